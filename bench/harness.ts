@@ -1,0 +1,103 @@
+/**
+ * A small benchmark harness. A benchmark names a workload of `elements` items and several cases that do the
+ * same work; one case is ours, the others are baselines measured in the same run. Each case runs `rounds`
+ * times after a warm-up; the harness prints the median nanoseconds per element and the ratio of every case to
+ * ours. Timings are never assertions: they are printed, and docs/performance.md records them.
+ */
+
+/** One way of doing a benchmark's work. `run` returns a value that depends on the work (to defeat dead-code elimination). */
+export interface BenchCase {
+  readonly name: string;
+  /** Elements this case processes per run, if fewer than the benchmark's (slow baselines run on a sample). */
+  readonly elements?: number;
+  readonly run: () => unknown;
+}
+
+/** A named workload with our case first and baselines after it. */
+export interface Benchmark {
+  readonly name: string;
+  /** What the benchmark measures, in one line. */
+  readonly description: string;
+  readonly elements: number;
+  /** The element that a "per element" figure counts (e.g. "instant", "produced date"). */
+  readonly unit?: string;
+  readonly ours: BenchCase;
+  readonly baselines: readonly BenchCase[];
+  readonly rounds?: number;
+}
+
+/** The measured result of one case. */
+export interface CaseResult {
+  readonly name: string;
+  readonly nsPerElement: number;
+  readonly samples: readonly number[];
+}
+
+function now(): number {
+  return Number(process.hrtime.bigint()) / 1e6;
+}
+
+function median(values: readonly number[]): number {
+  const sorted = [...values].sort((a, b) => a - b);
+  const mid = sorted.length >> 1;
+  return sorted.length % 2 ? sorted[mid]! : (sorted[mid - 1]! + sorted[mid]!) / 2;
+}
+
+let sink = 0;
+function consume(v: unknown): void {
+  if (typeof v === 'number') sink += v;
+  else if (v && typeof v === 'object' && 'length' in v) sink += (v as { length: number }).length;
+}
+
+/** Times one case: one warm-up run, then `rounds` timed runs; returns the median ns per element. */
+export function measure(c: BenchCase, elements: number, rounds: number): CaseResult {
+  const n = c.elements ?? elements;
+  consume(c.run());
+  const samples: number[] = [];
+  for (let r = 0; r < rounds; r++) {
+    const g = (globalThis as { gc?: () => void }).gc;
+    if (g) g();
+    const t0 = now();
+    consume(c.run());
+    samples.push(((now() - t0) * 1e6) / n);
+  }
+  return { name: c.name, nsPerElement: median(samples), samples };
+}
+
+function fmtNs(ns: number): string {
+  if (ns >= 1e6) return `${(ns / 1e6).toFixed(2)} ms`;
+  if (ns >= 1e3) return `${(ns / 1e3).toFixed(2)} µs`;
+  return `${ns.toFixed(2)} ns`;
+}
+
+/** Runs a benchmark and prints a table: case, median time per element, and its ratio to ours. */
+export function runBenchmark(b: Benchmark, print: (line: string) => void): CaseResult[] {
+  const rounds = b.rounds ?? 5;
+  print(`\n## ${b.name}: ${b.description}`);
+  print(`   ${b.elements.toLocaleString('en-US')} ${b.unit ?? 'elements'}, median of ${rounds} rounds`);
+  const ours = measure(b.ours, b.elements, rounds);
+  const results = [ours, ...b.baselines.map((c) => measure(c, b.elements, rounds))];
+  const width = Math.max(...results.map((r) => r.name.length));
+  for (const r of results) {
+    const ratio = r === ours ? 'ours' : describeRatio(r.nsPerElement / ours.nsPerElement);
+    print(`   ${r.name.padEnd(width)}  ${fmtNs(r.nsPerElement).padStart(10)} per ${b.unit ?? 'element'}  ${ratio}`);
+  }
+  if (sink === 0.5) print('');
+  return results;
+}
+
+function describeRatio(ratio: number): string {
+  return ratio >= 1 ? `ours is ${ratio.toFixed(ratio >= 100 ? 0 : 2)}x faster` : `ours is ${(1 / ratio).toFixed(2)}x the time of this`;
+}
+
+/** A seeded 32-bit PRNG (mulberry32), so every run measures the same data. */
+export function seededRandom(seed: number): () => number {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}

@@ -1,0 +1,26 @@
+/**
+ * `npm run demo`: the whole job on the invented company's data, one section per capability.
+ */
+import { COMPANY } from './scenario.js';
+import { section as civil } from './sections/civil.js';
+
+/** One part of the demo. `print` writes a line. */
+export interface DemoSection {
+  readonly title: string;
+  run(print: (line: string) => void): void | Promise<void>;
+}
+
+const sections: readonly DemoSection[] = [civil];
+
+async function main(): Promise<void> {
+  console.log(`kalends demo: ${COMPANY}`);
+  for (const s of sections) {
+    console.log(`\n=== ${s.title}`);
+    await s.run((line) => console.log(line));
+  }
+}
+
+main().catch((e: unknown) => {
+  console.error(e);
+  process.exitCode = 1;
+});

@@ -1,0 +1,27 @@
+#!/usr/bin/env bash
+# Packs kalends, installs the tarball into an empty project as a user would, then imports it (ESM), requires
+# it (CJS) and runs its CLI. Assumes `npm run build` has run.
+set -euo pipefail
+cd "$(dirname "$0")/.."
+root=$(pwd)
+work=$(mktemp -d)
+trap 'rm -rf "$work"' EXIT
+tarball=$(npm pack --silent --pack-destination "$work" | tail -n 1)
+cd "$work"
+npm init -y >/dev/null
+npm install --no-audit --no-fund "./$tarball" >/dev/null
+cat > esm.mjs <<'JS'
+import { dayNumberFromYmd, isoWeekDateFromDayNumber } from 'kalends';
+const w = isoWeekDateFromDayNumber(dayNumberFromYmd(2008, 12, 29));
+if (w.weekYear !== 2009 || w.week !== 1) throw new Error('ESM import gave a wrong ISO week');
+console.log('ESM import ok');
+JS
+cat > cjs.cjs <<'JS'
+const k = require('kalends');
+if (k.dayNumberFromYmd(1970, 1, 2) !== 1) throw new Error('CJS require gave a wrong day number');
+console.log('CJS require ok');
+JS
+node esm.mjs
+node cjs.cjs
+npx --no-install kalends help >/dev/null && echo 'CLI ok'
+if [ -f "$root/scripts/consumer-extra.mjs" ]; then cp "$root/scripts/consumer-extra.mjs" . && node consumer-extra.mjs; fi

@@ -1,0 +1,337 @@
+/**
+ * Proleptic Gregorian arithmetic on day numbers (integer days since 1970-01-01). No objects, no `Date`.
+ *
+ * The conversions are the days-from-civil and civil-from-days algorithms published by Howard Hinnant,
+ * "chrono-Compatible Low-Level Date Algorithms" (2013): a 400-year era of 146,097 days, with the year
+ * starting on 1 March so that the leap day is the last day of the computational year.
+ *
+ * @module
+ */
+import { MAX_DAY_NUMBER, MAX_YEAR, MIN_DAY_NUMBER, MIN_YEAR } from '../bounds.js';
+import { KalendsRangeError, requireInteger } from '../errors.js';
+
+/** A calendar date as three integers. `month` is 1..12, `day` is 1..31. */
+export interface Ymd {
+  readonly year: number;
+  readonly month: number;
+  readonly day: number;
+}
+
+const CUMULATIVE_DAYS = [0, 31, 59, 90, 120, 151, 181, 212, 243, 273, 304, 334];
+
+/**
+ * Whether `year` is a leap year in the proleptic Gregorian calendar (divisible by 4, except centuries not
+ * divisible by 400).
+ *
+ * @example
+ * ```ts
+ * isLeapYear(2024); // true
+ * isLeapYear(1900); // false
+ * ```
+ */
+export function isLeapYear(year: number): boolean {
+  requireYear(year);
+  return isLeapYearUnchecked(year);
+}
+
+/** @internal Leap-year test without validation, for hot paths. */
+export function isLeapYearUnchecked(year: number): boolean {
+  return (year & 3) === 0 && (year % 100 !== 0 || year % 400 === 0);
+}
+
+/**
+ * Number of days in `month` of `year` (28..31).
+ *
+ * @example
+ * ```ts
+ * daysInMonth(2024, 2); // 29
+ * ```
+ */
+export function daysInMonth(year: number, month: number): number {
+  requireYear(year);
+  requireInteger('month', month, 1, 12);
+  return daysInMonthUnchecked(year, month);
+}
+
+/** @internal */
+export function daysInMonthUnchecked(year: number, month: number): number {
+  if (month === 2) return isLeapYearUnchecked(year) ? 29 : 28;
+  return month === 4 || month === 6 || month === 9 || month === 11 ? 30 : 31;
+}
+
+/**
+ * Number of days in `year` (365 or 366).
+ *
+ * @example
+ * ```ts
+ * daysInYear(2000); // 366
+ * ```
+ */
+export function daysInYear(year: number): number {
+  requireYear(year);
+  return isLeapYearUnchecked(year) ? 366 : 365;
+}
+
+/**
+ * Day number (days since 1970-01-01) of a calendar date. Throws a RangeError naming the field for a month
+ * outside 1..12, a day past the month's length, or a year outside the supported range.
+ *
+ * @example
+ * ```ts
+ * dayNumberFromYmd(1970, 1, 1); // 0
+ * dayNumberFromYmd(2000, 3, 1); // 11017
+ * ```
+ */
+export function dayNumberFromYmd(year: number, month: number, day: number): number {
+  requireYear(year);
+  requireInteger('month', month, 1, 12);
+  requireInteger('day', day, 1, daysInMonthUnchecked(year, month));
+  return dayNumberFromYmdUnchecked(year, month, day);
+}
+
+/** @internal Days-from-civil without validation; arguments must be valid integers. */
+export function dayNumberFromYmdUnchecked(year: number, month: number, day: number): number {
+  const y = month <= 2 ? year - 1 : year;
+  const era = Math.floor(y / 400);
+  const yoe = y - era * 400; // 0..399
+  const mp = month > 2 ? month - 3 : month + 9; // March = 0
+  const doy = ((153 * mp + 2) / 5 | 0) + day - 1; // 0..365
+  const doe = yoe * 365 + (yoe >> 2) - ((yoe / 100) | 0) + doy; // 0..146096
+  return era * 146097 + doe - 719468;
+}
+
+/**
+ * Calendar date of a day number. This allocates one small object; in loops use
+ * {@link yearOfDayNumber}, {@link monthOfDayNumber}, {@link dayOfMonthOfDayNumber} or the bulk
+ * {@link ymdFromDayNumberBulk}.
+ *
+ * @example
+ * ```ts
+ * ymdFromDayNumber(11017); // { year: 2000, month: 3, day: 1 }
+ * ```
+ */
+export function ymdFromDayNumber(dayNumber: number): Ymd {
+  requireDayNumber(dayNumber);
+  const packed = packedYmdUnchecked(dayNumber);
+  return unpackYmd(packed);
+}
+
+/**
+ * Year of a day number.
+ *
+ * @example
+ * ```ts
+ * yearOfDayNumber(-1); // 1969
+ * ```
+ */
+export function yearOfDayNumber(dayNumber: number): number {
+  requireDayNumber(dayNumber);
+  return yearOfDayNumberUnchecked(dayNumber);
+}
+
+/**
+ * Month (1..12) of a day number.
+ *
+ * @example
+ * ```ts
+ * monthOfDayNumber(31); // 2 (1970-02-01)
+ * ```
+ */
+export function monthOfDayNumber(dayNumber: number): number {
+  requireDayNumber(dayNumber);
+  return monthOfDayNumberUnchecked(dayNumber);
+}
+
+/**
+ * Day of the month (1..31) of a day number.
+ *
+ * @example
+ * ```ts
+ * dayOfMonthOfDayNumber(31); // 1 (1970-02-01)
+ * ```
+ */
+export function dayOfMonthOfDayNumber(dayNumber: number): number {
+  requireDayNumber(dayNumber);
+  return dayOfMonthOfDayNumberUnchecked(dayNumber);
+}
+
+/**
+ * @internal Civil-from-days packed into one number without allocation:
+ * `(year - MIN_YEAR) * 512 + month * 32 + day`. Decode with the helpers below.
+ */
+export function packedYmdUnchecked(dayNumber: number): number {
+  const z = dayNumber + 719468;
+  const era = Math.floor(z / 146097);
+  const doe = z - era * 146097; // 0..146096
+  const yoe = ((doe - ((doe / 1460) | 0) + ((doe / 36524) | 0) - ((doe / 146096) | 0)) / 365) | 0; // 0..399
+  const doy = doe - (365 * yoe + (yoe >> 2) - ((yoe / 100) | 0)); // 0..365
+  const mp = ((5 * doy + 2) / 153) | 0; // 0..11
+  const day = doy - (((153 * mp + 2) / 5) | 0) + 1;
+  const month = mp < 10 ? mp + 3 : mp - 9;
+  const year = yoe + era * 400 + (month <= 2 ? 1 : 0);
+  return (year - MIN_YEAR) * 512 + month * 32 + day;
+}
+
+/** @internal */
+export function unpackYmd(packed: number): Ymd {
+  return { year: Math.floor(packed / 512) + MIN_YEAR, month: (packed >> 5) & 15, day: packed & 31 };
+}
+
+/** @internal */
+export function yearOfDayNumberUnchecked(dayNumber: number): number {
+  return Math.floor(packedYmdUnchecked(dayNumber) / 512) + MIN_YEAR;
+}
+
+/** @internal */
+export function monthOfDayNumberUnchecked(dayNumber: number): number {
+  return (packedYmdUnchecked(dayNumber) >> 5) & 15;
+}
+
+/** @internal */
+export function dayOfMonthOfDayNumberUnchecked(dayNumber: number): number {
+  return packedYmdUnchecked(dayNumber) & 31;
+}
+
+/**
+ * Bulk civil-from-days: writes the year, month and day of each day number into three Int32Arrays, in one
+ * pass with no per-element allocation. Returns the three arrays.
+ *
+ * @example
+ * ```ts
+ * const { years, months, days } = ymdFromDayNumberBulk(Int32Array.of(0, 11017));
+ * // years = [1970, 2000], months = [1, 3], days = [1, 1]
+ * ```
+ */
+export function ymdFromDayNumberBulk(
+  dayNumbers: ArrayLike<number>,
+  out?: { years: Int32Array; months: Int32Array; days: Int32Array },
+): { years: Int32Array; months: Int32Array; days: Int32Array } {
+  const n = dayNumbers.length;
+  const years = out?.years ?? new Int32Array(n);
+  const months = out?.months ?? new Int32Array(n);
+  const days = out?.days ?? new Int32Array(n);
+  if (years.length < n || months.length < n || days.length < n) {
+    throw new KalendsRangeError(`ymdFromDayNumberBulk: output arrays must hold ${n} elements, got ${Math.min(years.length, months.length, days.length)}`, { code: "length-mismatch", received: out });
+  }
+  for (let i = 0; i < n; i++) {
+    const dn = dayNumbers[i] as number;
+    if (!(dn >= MIN_DAY_NUMBER && dn <= MAX_DAY_NUMBER) || !Number.isInteger(dn)) requireDayNumber(dn, `dayNumbers[${i}]`);
+    const p = packedYmdUnchecked(dn);
+    years[i] = Math.floor(p / 512) + MIN_YEAR;
+    months[i] = (p >> 5) & 15;
+    days[i] = p & 31;
+  }
+  return { years, months, days };
+}
+
+/**
+ * Bulk days-from-civil: the day number of each (year, month, day) triple, validated, into an Int32Array.
+ *
+ * @example
+ * ```ts
+ * dayNumberFromYmdBulk(Int32Array.of(1970), Int32Array.of(1), Int32Array.of(2)); // Int32Array [1]
+ * ```
+ */
+export function dayNumberFromYmdBulk(
+  years: ArrayLike<number>,
+  months: ArrayLike<number>,
+  days: ArrayLike<number>,
+  out?: Int32Array,
+): Int32Array {
+  const n = years.length;
+  if (months.length !== n || days.length !== n) {
+    throw new KalendsRangeError(
+      `dayNumberFromYmdBulk: years, months and days must have the same length, got ${n}, ${months.length}, ${days.length}`,
+      { code: 'length-mismatch', received: [n, months.length, days.length] },
+    );
+  }
+  const result = out ?? new Int32Array(n);
+  for (let i = 0; i < n; i++) {
+    const y = years[i] as number;
+    const m = months[i] as number;
+    const d = days[i] as number;
+    if (
+      !(y >= MIN_YEAR && y <= MAX_YEAR && m >= 1 && m <= 12 && d >= 1 && d <= 28) &&
+      !(Number.isInteger(y) && y >= MIN_YEAR && y <= MAX_YEAR && Number.isInteger(m) && m >= 1 && m <= 12 && Number.isInteger(d) && d >= 1 && d <= daysInMonthUnchecked(y, m))
+    ) {
+      dayNumberFromYmd(y, m, d); // throws with the right message
+    }
+    result[i] = dayNumberFromYmdUnchecked(y, m, d);
+  }
+  return result;
+}
+
+/**
+ * ISO weekday of a day number: 1 = Monday .. 7 = Sunday (ISO 8601-1:2019, 3.1.1.8 / 4.3.2.2).
+ * 1970-01-01 was a Thursday.
+ *
+ * @example
+ * ```ts
+ * weekdayOfDayNumber(0); // 4 (Thursday)
+ * ```
+ */
+export function weekdayOfDayNumber(dayNumber: number): number {
+  requireDayNumber(dayNumber);
+  return weekdayOfDayNumberUnchecked(dayNumber);
+}
+
+/** @internal */
+export function weekdayOfDayNumberUnchecked(dayNumber: number): number {
+  // 1970-01-01 is Thursday (4). ((dn + 3) mod 7) + 1 maps Monday..Sunday to 1..7.
+  const r = (dayNumber + 3) % 7;
+  return (r < 0 ? r + 7 : r) + 1;
+}
+
+/**
+ * Day of the year (1..366) of a day number.
+ *
+ * @example
+ * ```ts
+ * dayOfYearOfDayNumber(dayNumberFromYmd(2024, 12, 31)); // 366
+ * ```
+ */
+export function dayOfYearOfDayNumber(dayNumber: number): number {
+  requireDayNumber(dayNumber);
+  const p = packedYmdUnchecked(dayNumber);
+  const year = Math.floor(p / 512) + MIN_YEAR;
+  const month = (p >> 5) & 15;
+  return CUMULATIVE_DAYS[month - 1]! + (month > 2 && isLeapYearUnchecked(year) ? 1 : 0) + (p & 31);
+}
+
+/**
+ * Day number of the given day of the year (1..365 or 366).
+ *
+ * @example
+ * ```ts
+ * dayNumberFromYearDay(1970, 32); // 31 (1970-02-01)
+ * ```
+ */
+export function dayNumberFromYearDay(year: number, dayOfYear: number): number {
+  requireYear(year);
+  requireInteger('dayOfYear', dayOfYear, 1, isLeapYearUnchecked(year) ? 366 : 365);
+  return dayNumberFromYmdUnchecked(year, 1, 1) + dayOfYear - 1;
+}
+
+/**
+ * Validates a year against the supported range, throwing a RangeError that names it.
+ *
+ * @example
+ * ```ts
+ * requireYear(2025); // 2025
+ * ```
+ */
+export function requireYear(year: unknown, name = 'year'): number {
+  return requireInteger(name, year, MIN_YEAR, MAX_YEAR);
+}
+
+/**
+ * Validates a day number against the supported range (MIN_DAY_NUMBER..MAX_DAY_NUMBER).
+ *
+ * @example
+ * ```ts
+ * requireDayNumber(0); // 0
+ * ```
+ */
+export function requireDayNumber(dayNumber: unknown, name = 'dayNumber'): number {
+  return requireInteger(name, dayNumber, MIN_DAY_NUMBER, MAX_DAY_NUMBER);
+}

@@ -1,0 +1,24 @@
+/** Public surface of the civil layer: proleptic Gregorian arithmetic on day numbers. */
+export {
+  type Ymd,
+  isLeapYear,
+  daysInMonth,
+  daysInYear,
+  dayNumberFromYmd,
+  ymdFromDayNumber,
+  yearOfDayNumber,
+  monthOfDayNumber,
+  dayOfMonthOfDayNumber,
+  ymdFromDayNumberBulk,
+  dayNumberFromYmdBulk,
+  weekdayOfDayNumber,
+  dayOfYearOfDayNumber,
+  dayNumberFromYearDay,
+} from './gregorian.js';
+export {
+  type IsoWeekDate,
+  isoWeeksInYear,
+  isoWeekDateFromDayNumber,
+  dayNumberFromIsoWeekDate,
+} from './isoweek.js';
+export { easterDayNumber, julianEasterDayNumber, EASTER_MIN_YEAR, JULIAN_EASTER_MIN_YEAR } from './easter.js';

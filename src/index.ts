@@ -1,0 +1,23 @@
+/**
+ * kalends: calendar-aware time indexing. This file is the public surface and nothing else; every export is
+ * documented where it is defined.
+ *
+ * @module
+ */
+export {
+  type ErrorCode,
+  type KalendsErrorFields,
+  type DefinitionIssue,
+  KalendsRangeError,
+  KalendsTypeError,
+  KalendsSyntaxError,
+  DefinitionError,
+} from './errors.js';
+export * from './bounds.js';
+export * from './civil/index.js';
+export * from './instant/index.js';
+export * from './zone/index.js';
+export * from './period/index.js';
+export * from './business/index.js';
+export * from './recurrence/index.js';
+export * from './series/index.js';

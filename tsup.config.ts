@@ -1,0 +1,41 @@
+import { defineConfig } from 'tsup';
+
+export default defineConfig([
+  // The library: ESM + CJS with declarations, one entry per public subpath.
+  {
+    entry: { index: 'src/index.ts', tzdata: 'src/tzdata/index.ts' },
+    format: ['esm', 'cjs'],
+    dts: true,
+    sourcemap: true,
+    clean: true,
+    treeshake: true,
+    splitting: false,
+    target: 'es2022',
+    outDir: 'dist',
+  },
+  // The CLI: one ESM file with a shebang. It uses the public surface only.
+  {
+    entry: { cli: 'src/cli/main.ts' },
+    format: ['esm'],
+    dts: false,
+    sourcemap: false,
+    clean: false,
+    target: 'node20',
+    platform: 'node',
+    outDir: 'dist',
+    banner: { js: '#!/usr/bin/env node' },
+    // The CSV parser is bundled so that the package keeps zero runtime dependencies.
+    noExternal: ['csv-parse'],
+  },
+  // Demo and benchmarks: built for running here, never shipped (outside dist/).
+  {
+    entry: { 'examples/demo': 'examples/demo.ts', 'bench/run': 'bench/run.ts' },
+    format: ['esm'],
+    dts: false,
+    clean: true,
+    target: 'node20',
+    platform: 'node',
+    outDir: '.build',
+    external: ['vega', 'vega-lite', 'temporal-polyfill', '@js-temporal/polyfill'],
+  },
+]);
