@@ -215,7 +215,7 @@ export function ymdFromDayNumberBulk(
   }
   for (let i = 0; i < n; i++) {
     const dn = dayNumbers[i] as number;
-    if (!(dn >= MIN_DAY_NUMBER && dn <= MAX_DAY_NUMBER) || !Number.isInteger(dn)) requireDayNumber(dn, `dayNumbers[${i}]`);
+    if (!(dn >= MIN_DAY_NUMBER && dn <= MAX_DAY_NUMBER && dn === Math.floor(dn))) requireDayNumber(dn, `dayNumbers[${i}]`);
     const p = packedYmdUnchecked(dn);
     years[i] = Math.floor(p / 512) + MIN_YEAR;
     months[i] = (p >> 5) & 15;
@@ -250,12 +250,11 @@ export function dayNumberFromYmdBulk(
     const y = years[i] as number;
     const m = months[i] as number;
     const d = days[i] as number;
-    if (
-      !(y >= MIN_YEAR && y <= MAX_YEAR && m >= 1 && m <= 12 && d >= 1 && d <= 28) &&
-      !(Number.isInteger(y) && y >= MIN_YEAR && y <= MAX_YEAR && Number.isInteger(m) && m >= 1 && m <= 12 && Number.isInteger(d) && d >= 1 && d <= daysInMonthUnchecked(y, m))
-    ) {
-      dayNumberFromYmd(y, m, d); // throws with the right message
-    }
+    const valid =
+      y >= MIN_YEAR && y <= MAX_YEAR && m >= 1 && m <= 12 && d >= 1 &&
+      (d <= 28 || d <= daysInMonthUnchecked(y, m)) &&
+      y === Math.floor(y) && m === (m | 0) && d === (d | 0);
+    if (!valid) dayNumberFromYmd(y, m, d); // throws with the field's name and value
     result[i] = dayNumberFromYmdUnchecked(y, m, d);
   }
   return result;
