@@ -160,16 +160,22 @@ export function dayOfMonthOfDayNumber(dayNumber: number): number {
  * `(year - MIN_YEAR) * 512 + month * 32 + day`. Decode with the helpers below.
  */
 export function packedYmdUnchecked(dayNumber: number): number {
-  const z = dayNumber + 719468;
-  const era = Math.floor(z / 146097);
-  const doe = z - era * 146097; // 0..146096
-  const yoe = ((doe - ((doe / 1460) | 0) + ((doe / 36524) | 0) - ((doe / 146096) | 0)) / 365) | 0; // 0..399
-  const doy = doe - (365 * yoe + (yoe >> 2) - ((yoe / 100) | 0)); // 0..365
-  const mp = ((5 * doy + 2) / 153) | 0; // 0..11
-  const day = doy - (((153 * mp + 2) / 5) | 0) + 1;
-  const month = mp < 10 ? mp + 3 : mp - 9;
-  const year = yoe + era * 400 + (month <= 2 ? 1 : 0);
-  return (year - MIN_YEAR) * 512 + month * 32 + day;
+  // Neri & Schneider, "Euclidean affine functions and their application to calendar algorithms",
+  // Software: Practice and Experience 53(4), 2023: civil-from-days with multiplications and shifts only.
+  // The shift K = 719468 + 146097 * 700 makes every supported day number non-negative; all intermediate
+  // values stay below 2^32 (or, for P2, below 2^53), so plain doubles are exact.
+  const n1 = 4 * (dayNumber + 102_987_368) + 3;
+  const century = (n1 / 146097) >>> 0;
+  const n2 = (((n1 % 146097) >>> 2) << 2) + 3;
+  const p2 = 2939745 * n2;
+  const z = Math.floor(p2 / 4294967296);
+  const ny = ((p2 - z * 4294967296) / 11758980) >>> 0; // day of the March-based year, 0..365
+  const n3 = 2141 * ny + 197913;
+  const m = n3 >>> 16;
+  const day = (((n3 & 65535) / 2141) | 0) + 1;
+  const jan = ny >= 306 ? 1 : 0;
+  const year = 100 * century + z - 280_000 + jan;
+  return (year - MIN_YEAR) * 512 + (jan ? m - 12 : m) * 32 + day;
 }
 
 /** @internal */

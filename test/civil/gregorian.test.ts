@@ -78,6 +78,27 @@ describe('civil: day numbers and year/month/day', () => {
     );
   });
 
+  it('every day from 1600-01-01 to 2400-12-31 and around both range ends steps through the calendar one day at a time', () => {
+    const windows: Array<[number, number]> = [
+      [dayNumberFromYmd(1600, 1, 1), dayNumberFromYmd(2400, 12, 31)],
+      [MIN_DAY_NUMBER, MIN_DAY_NUMBER + 150_000],
+      [MAX_DAY_NUMBER - 150_000, MAX_DAY_NUMBER],
+    ];
+    for (const [from, to] of windows) {
+      let { year, month, day } = ymdFromDayNumber(from);
+      for (let dn = from + 1; dn <= to; dn++) {
+        if (day < daysInMonth(year, month)) day++;
+        else if (month < 12) (month++, (day = 1));
+        else (year++, (month = 1), (day = 1));
+        const got = ymdFromDayNumber(dn);
+        if (got.year !== year || got.month !== month || got.day !== day) {
+          expect(got).toEqual({ year, month, day });
+        }
+        if (dayNumberFromYmd(year, month, day) !== dn) expect(dayNumberFromYmd(year, month, day)).toBe(dn);
+      }
+    }
+  });
+
   it('year, month and day-of-month accessors agree with ymdFromDayNumber (property)', () => {
     fc.assert(
       fc.property(anyDay, (dn) => {
