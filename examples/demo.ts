@@ -3,6 +3,7 @@
  */
 import { COMPANY } from './scenario.js';
 import { section as civil } from './sections/civil.js';
+import { section as instant } from './sections/instant.js';
 
 /** One part of the demo. `print` writes a line. */
 export interface DemoSection {
@@ -10,7 +11,7 @@ export interface DemoSection {
   run(print: (line: string) => void): void | Promise<void>;
 }
 
-const sections: readonly DemoSection[] = [civil];
+const sections: readonly DemoSection[] = [civil, instant];
 
 async function main(): Promise<void> {
   console.log(`kalends demo: ${COMPANY}`);

@@ -1,1 +1,47 @@
-export {};
+/**
+ * Public surface of the instant layer: epoch milliseconds as the instant, RFC 3339 / RFC 9557 text, ISO 8601
+ * dates and durations, and the one coercion point from what users hold.
+ */
+export {
+  type SuffixTag,
+  type LeapSecondHandling,
+  type ParseDateTimeOptions,
+  type ParsePlainDateTimeOptions,
+  type ExtendedDateTime,
+  type ParsedInstant,
+  type FractionDigits,
+  type FormatInstantOptions,
+  parseExtendedDateTime,
+  parseInstant,
+  formatInstant,
+  formatOffset,
+  parsePlainDate,
+  formatPlainDate,
+  formatIsoWeekDate,
+  formatOrdinalDate,
+  parsePlainDateTime,
+  formatPlainDateTime,
+} from './text.js';
+export {
+  type Duration,
+  type DurationFields,
+  type ShiftOptions,
+  MAX_DURATION_CALENDAR_FIELD,
+  durationFromFields,
+  negateDuration,
+  exactMsOfDuration,
+  parseDuration,
+  formatDuration,
+  shiftDayNumber,
+  shiftWallMs,
+} from './duration.js';
+export {
+  type ToDayNumberOptions,
+  type TemporalNamespaceLike,
+  toEpochMs,
+  toDayNumber,
+  toWallMs,
+  temporalInstantFromEpochMs,
+  temporalPlainDateFromDayNumber,
+  temporalPlainDateTimeFromWallMs,
+} from './coerce.js';

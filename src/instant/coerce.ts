@@ -1,0 +1,338 @@
+/**
+ * The one coercion point: whatever a user holds (text, a number, a `Date`, a Temporal object from any
+ * polyfill or a native implementation) becomes epoch milliseconds, a day number or wall milliseconds. Temporal
+ * objects are recognised by their shape, so kalends imports no polyfill; converting back takes the caller's
+ * Temporal namespace as an argument.
+ *
+ * @module
+ */
+import { MAX_DAY_NUMBER, MAX_EPOCH_MS, MIN_DAY_NUMBER, MIN_EPOCH_MS, MS_PER_DAY } from '../bounds.js';
+import { KalendsRangeError, KalendsTypeError, describeValue, requireInteger } from '../errors.js';
+import { dayNumberFromYmd, requireDayNumber, ymdFromDayNumber } from '../civil/gregorian.js';
+import { parseInstant, parsePlainDate, parsePlainDateTime } from './text.js';
+
+/** The name of a value's kind for messages: Temporal objects by their tag (`Temporal.PlainDate`), others as usual. */
+function kindOf(value: unknown): string {
+  if (typeof value === 'object' && value !== null) {
+    const tag = (value as { [Symbol.toStringTag]?: unknown })[Symbol.toStringTag];
+    if (typeof tag === 'string' && tag.startsWith('Temporal.')) return `a ${tag}`;
+  }
+  return describeValue(value);
+}
+
+function temporalTag(value: object): string | undefined {
+  const tag = (value as { [Symbol.toStringTag]?: unknown })[Symbol.toStringTag];
+  return typeof tag === 'string' && tag.startsWith('Temporal.') ? tag : undefined;
+}
+
+function floorDivBig(ns: bigint): number {
+  const q = ns / 1_000_000n;
+  return Number(ns < 0n && q * 1_000_000n !== ns ? q - 1n : q);
+}
+
+function checkEpochMs(fn: string, ms: number, received: unknown): number {
+  if (!(ms >= MIN_EPOCH_MS && ms <= MAX_EPOCH_MS)) {
+    throw new KalendsRangeError(`${fn}: ${kindOf(received)} gives ${ms} epoch ms, outside the supported ${MIN_EPOCH_MS} to ${MAX_EPOCH_MS}`, {
+      code: 'out-of-range',
+      received,
+    });
+  }
+  return ms;
+}
+
+/**
+ * Converts what a user holds into epoch milliseconds:
+ *
+ * | input | result |
+ * | --- | --- |
+ * | string | {@link parseInstant}: RFC 3339 / RFC 9557 with a required offset |
+ * | number | an integer within ±8.64e15 is taken as epoch ms; NaN, infinities and fractions are rejected |
+ * | `Date` | its time value; an invalid `Date` is rejected |
+ * | Temporal.Instant, Temporal.ZonedDateTime (any implementation) | `epochNanoseconds` floored to the ms, or `epochMilliseconds` |
+ *
+ * Anything else (a bigint, a Temporal.PlainDateTime, which has no instant without a zone, a plain object)
+ * throws a {@link KalendsTypeError} naming what was received.
+ *
+ * @example
+ * ```ts
+ * toEpochMs('1970-01-01T00:00:01Z');   // 1000
+ * toEpochMs(new Date(0));              // 0
+ * toEpochMs(Temporal.Now.instant());   // works with any Temporal implementation
+ * ```
+ */
+export function toEpochMs(value: unknown): number {
+  if (typeof value === 'string') return parseInstant(value).epochMs;
+  if (typeof value === 'number') {
+    if (!Number.isInteger(value)) {
+      throw new KalendsRangeError(
+        `toEpochMs: expected an integer number of epoch milliseconds, got ${describeValue(value)}${Number.isFinite(value) ? '; round it first (Math.floor truncates toward the past)' : ''}`,
+        { code: 'out-of-range', received: value },
+      );
+    }
+    return checkEpochMs('toEpochMs', value === 0 ? 0 : value, value);
+  }
+  if (value instanceof Date) {
+    const t = value.getTime();
+    if (Number.isNaN(t)) {
+      throw new KalendsRangeError('toEpochMs: got an invalid Date (its time value is NaN)', { code: 'out-of-range', received: value });
+    }
+    return t === 0 ? 0 : t;
+  }
+  if (typeof value === 'object' && value !== null) {
+    const o = value as { epochNanoseconds?: unknown; epochMilliseconds?: unknown };
+    if (typeof o.epochNanoseconds === 'bigint') return checkEpochMs('toEpochMs', floorDivBig(o.epochNanoseconds), value);
+    if (typeof o.epochMilliseconds === 'number' && Number.isInteger(o.epochMilliseconds)) {
+      return checkEpochMs('toEpochMs', o.epochMilliseconds, value);
+    }
+    const tag = temporalTag(value);
+    if (tag === 'Temporal.PlainDateTime' || tag === 'Temporal.PlainDate') {
+      throw new KalendsTypeError(
+        `toEpochMs: got a ${tag}, which names no instant until a zone is chosen; convert it with a zone (Temporal's toZonedDateTime, or the zone layer) first`,
+        { code: 'invalid-type', received: value },
+      );
+    }
+  }
+  if (typeof value === 'bigint') {
+    throw new KalendsTypeError(
+      `toEpochMs: got a bigint (${value}n); a bigint is ambiguous (nanoseconds? milliseconds?). Pass epoch milliseconds as a number, e.g. Number(ns / 1000000n)`,
+      { code: 'invalid-type', received: value },
+    );
+  }
+  throw new KalendsTypeError(
+    `toEpochMs: expected an RFC 3339 string with an offset, an integer number of epoch ms, a valid Date or a Temporal.Instant / ZonedDateTime, got ${kindOf(value)}`,
+    { code: 'invalid-type', received: value },
+  );
+}
+
+/** Options of {@link toDayNumber}. */
+export interface ToDayNumberOptions {
+  /**
+   * How to read a `Date`, which is an instant and has no date of its own: `'utc'` takes its UTC calendar date
+   * (`getUTCFullYear`...), `'local'` its date in the runtime's zone (`getFullYear`...). Without this option a
+   * `Date` is rejected, so the choice is always visible in the caller's code.
+   */
+  readonly dateFields?: 'utc' | 'local';
+}
+
+function ymdObjectToDayNumber(fn: string, value: object, tag: string | undefined): number | undefined {
+  const o = value as { year?: unknown; month?: unknown; day?: unknown; calendarId?: unknown; calendar?: unknown };
+  if (typeof o.year !== 'number' || typeof o.month !== 'number' || typeof o.day !== 'number') return undefined;
+  let calendar: unknown = o.calendarId;
+  if (calendar === undefined && typeof o.calendar === 'object' && o.calendar !== null) calendar = (o.calendar as { id?: unknown }).id;
+  if (calendar === undefined && typeof o.calendar === 'string') calendar = o.calendar;
+  if (calendar !== undefined && calendar !== 'iso8601') {
+    throw new KalendsRangeError(
+      `${fn}: got ${tag ? `a ${tag}` : 'an object'} in the calendar ${describeValue(calendar)}; kalends works in the ISO 8601 calendar: convert it with withCalendar('iso8601') first`,
+      { code: 'out-of-range', received: value },
+    );
+  }
+  try {
+    return dayNumberFromYmd(o.year, o.month, o.day);
+  } catch (e) {
+    throw new KalendsRangeError(`${fn}: got ${tag ? `a ${tag}` : 'an object'} with an invalid date: ${(e as Error).message}`, {
+      code: 'out-of-range',
+      received: value,
+    });
+  }
+}
+
+/**
+ * Converts what a user holds into a day number (a local date):
+ *
+ * | input | result |
+ * | --- | --- |
+ * | string | {@link parsePlainDate}: `2025-02-14`, `2025-W07-5` or `2025-045` |
+ * | number | an integer from -100,000,109 to 100,000,109 is taken as a day number (epoch ms and epoch seconds of any date after 2 January 1970 are larger, so they are caught with a hint) |
+ * | Temporal.PlainDate, PlainDateTime, ZonedDateTime (any implementation), or a plain `{ year, month, day }` | its ISO calendar date (a ZonedDateTime gives its date in its own zone) |
+ * | `Date` | only with `options.dateFields` `'utc'` or `'local'` |
+ *
+ * Anything else (a Temporal.Instant, which has no date without a zone; a non-ISO calendar) throws, naming what
+ * was received.
+ *
+ * @example
+ * ```ts
+ * toDayNumber('2025-02-14');                            // 20133
+ * toDayNumber(20133);                                   // 20133
+ * toDayNumber({ year: 2025, month: 2, day: 14 });       // 20133
+ * toDayNumber(new Date(Date.UTC(2025, 1, 14)), { dateFields: 'utc' }); // 20133
+ * ```
+ */
+export function toDayNumber(value: unknown, options?: ToDayNumberOptions): number {
+  if (typeof value === 'string') return parsePlainDate(value);
+  if (typeof value === 'number') {
+    if (Number.isInteger(value) && (value > MAX_DAY_NUMBER || value < MIN_DAY_NUMBER)) {
+      throw new KalendsRangeError(
+        `toDayNumber: ${describeValue(value)} is outside the day numbers ${MIN_DAY_NUMBER} to ${MAX_DAY_NUMBER}; if it is epoch milliseconds, it is an instant: choose a zone and use the zone layer's dayNumberFromEpochMs`,
+        { code: 'out-of-range', received: value },
+      );
+    }
+    return requireDayNumber(value === 0 ? 0 : value);
+  }
+  if (value instanceof Date) {
+    const mode = options?.dateFields;
+    if (Number.isNaN(value.getTime())) {
+      throw new KalendsRangeError('toDayNumber: got an invalid Date (its time value is NaN)', { code: 'out-of-range', received: value });
+    }
+    if (mode === 'utc') return dayNumberFromYmd(value.getUTCFullYear(), value.getUTCMonth() + 1, value.getUTCDate());
+    if (mode === 'local') return dayNumberFromYmd(value.getFullYear(), value.getMonth() + 1, value.getDate());
+    throw new KalendsTypeError(
+      `toDayNumber: got a Date${mode === undefined ? '' : ` with options.dateFields ${describeValue(mode)}`}; a Date is an instant, and its calendar date depends on the zone. Pass { dateFields: 'utc' } or { dateFields: 'local' } to choose, or use the zone layer's dayNumberFromEpochMs`,
+      { code: 'invalid-type', received: value },
+    );
+  }
+  if (typeof value === 'object' && value !== null) {
+    const tag = temporalTag(value);
+    const dn = ymdObjectToDayNumber('toDayNumber', value, tag);
+    if (dn !== undefined) return dn;
+    if (tag === 'Temporal.Instant') {
+      throw new KalendsTypeError(
+        'toDayNumber: got a Temporal.Instant, which has no calendar date until a zone is chosen; use toEpochMs and the zone layer, or Temporal toZonedDateTimeISO first',
+        { code: 'invalid-type', received: value },
+      );
+    }
+  }
+  throw new KalendsTypeError(
+    `toDayNumber: expected an ISO 8601 date string, an integer day number, a Temporal.PlainDate / PlainDateTime / ZonedDateTime or { year, month, day }, got ${kindOf(value)}`,
+    { code: 'invalid-type', received: value },
+  );
+}
+
+/**
+ * Converts what a user holds into wall milliseconds (a local date-time): a local ISO 8601 date-time string
+ * ({@link parsePlainDateTime}), an integer number taken as wall ms, or a Temporal.PlainDateTime / PlainDate
+ * (midnight) / ZonedDateTime (its wall-clock time in its own zone), duck-typed. Sub-millisecond fields of a
+ * Temporal object are dropped (floored).
+ *
+ * @example
+ * ```ts
+ * toWallMs('1970-01-02T00:00');  // 86400000
+ * ```
+ */
+export function toWallMs(value: unknown): number {
+  const min = MIN_DAY_NUMBER * MS_PER_DAY;
+  const max = MAX_DAY_NUMBER * MS_PER_DAY + MS_PER_DAY - 1;
+  if (typeof value === 'string') return parsePlainDateTime(value);
+  if (typeof value === 'number') return requireInteger('wallMs', value === 0 ? 0 : value, min, max);
+  if (typeof value === 'object' && value !== null && !(value instanceof Date)) {
+    const tag = temporalTag(value);
+    const dn = ymdObjectToDayNumber('toWallMs', value, tag);
+    if (dn !== undefined) {
+      const o = value as { hour?: unknown; minute?: unknown; second?: unknown; millisecond?: unknown };
+      const part = (name: 'hour' | 'minute' | 'second' | 'millisecond', hi: number): number => {
+        const v = o[name];
+        if (v === undefined) return 0;
+        return requireInteger(name, v, 0, hi);
+      };
+      return dn * MS_PER_DAY + part('hour', 23) * 3_600_000 + part('minute', 59) * 60_000 + part('second', 59) * 1000 + part('millisecond', 999);
+    }
+  }
+  throw new KalendsTypeError(
+    `toWallMs: expected a local ISO 8601 date-time string, an integer of wall ms, or a Temporal.PlainDateTime / PlainDate / ZonedDateTime, got ${kindOf(value)}${value instanceof Date ? '; a Date is an instant: use toEpochMs and the zone layer' : ''}`,
+    { code: 'invalid-type', received: value },
+  );
+}
+
+/**
+ * The parts of a Temporal namespace that the conversions below use. Pass `Temporal` from the runtime or from
+ * the polyfill you already use; kalends never imports one.
+ */
+export interface TemporalNamespaceLike {
+  readonly Instant: { fromEpochMilliseconds(epochMilliseconds: number): unknown };
+  readonly PlainDate: new (isoYear: number, isoMonth: number, isoDay: number) => unknown;
+  readonly PlainDateTime: new (
+    isoYear: number,
+    isoMonth: number,
+    isoDay: number,
+    hour: number,
+    minute: number,
+    second: number,
+    millisecond: number,
+  ) => unknown;
+}
+
+function requireNamespace(fn: string, ns: unknown, member: 'Instant' | 'PlainDate' | 'PlainDateTime'): void {
+  const m = typeof ns === 'object' && ns !== null ? (ns as Record<string, unknown>)[member] : undefined;
+  if (typeof m !== 'function' && (typeof m !== 'object' || m === null)) {
+    throw new KalendsTypeError(`${fn}: expected a Temporal namespace (with Temporal.${member}) as the last argument, got ${describeValue(ns)}`, {
+      code: 'invalid-type',
+      received: ns,
+    });
+  }
+}
+
+function wrapTemporal<T>(fn: string, received: unknown, make: () => T): T {
+  try {
+    return make();
+  } catch (e) {
+    throw new KalendsRangeError(`${fn}: the Temporal implementation refused ${describeValue(received)}: ${(e as Error).message}`, {
+      code: 'out-of-range',
+      received,
+    });
+  }
+}
+
+/**
+ * A `Temporal.Instant` for an instant, built with the Temporal namespace the caller passes.
+ *
+ * @example
+ * ```ts
+ * import { Temporal } from '@js-temporal/polyfill'; // or the runtime's Temporal
+ * temporalInstantFromEpochMs(0, Temporal).toString(); // '1970-01-01T00:00:00Z'
+ * ```
+ */
+export function temporalInstantFromEpochMs<T extends Pick<TemporalNamespaceLike, 'Instant'>>(
+  epochMs: number,
+  temporal: T,
+): ReturnType<T['Instant']['fromEpochMilliseconds']> {
+  requireInteger('epochMs', epochMs, MIN_EPOCH_MS, MAX_EPOCH_MS);
+  requireNamespace('temporalInstantFromEpochMs', temporal, 'Instant');
+  return wrapTemporal('temporalInstantFromEpochMs', epochMs, () => temporal.Instant.fromEpochMilliseconds(epochMs)) as ReturnType<
+    T['Instant']['fromEpochMilliseconds']
+  >;
+}
+
+/**
+ * A `Temporal.PlainDate` for a day number, built with the caller's Temporal namespace. Temporal's range
+ * (-271821-04-19 to +275760-09-13) is narrower than kalends's; dates outside it throw a {@link KalendsRangeError}.
+ *
+ * @example
+ * ```ts
+ * temporalPlainDateFromDayNumber(20133, Temporal).toString(); // '2025-02-14'
+ * ```
+ */
+export function temporalPlainDateFromDayNumber<T extends Pick<TemporalNamespaceLike, 'PlainDate'>>(
+  dayNumber: number,
+  temporal: T,
+): InstanceType<T['PlainDate']> {
+  const { year, month, day } = ymdFromDayNumber(dayNumber);
+  requireNamespace('temporalPlainDateFromDayNumber', temporal, 'PlainDate');
+  return wrapTemporal('temporalPlainDateFromDayNumber', dayNumber, () => new temporal.PlainDate(year, month, day)) as InstanceType<T['PlainDate']>;
+}
+
+/**
+ * A `Temporal.PlainDateTime` for wall milliseconds, built with the caller's Temporal namespace.
+ *
+ * @example
+ * ```ts
+ * temporalPlainDateTimeFromWallMs(86401000, Temporal).toString(); // '1970-01-02T00:00:01'
+ * ```
+ */
+export function temporalPlainDateTimeFromWallMs<T extends Pick<TemporalNamespaceLike, 'PlainDateTime'>>(
+  wallMs: number,
+  temporal: T,
+): InstanceType<T['PlainDateTime']> {
+  requireInteger('wallMs', wallMs, MIN_DAY_NUMBER * MS_PER_DAY, MAX_DAY_NUMBER * MS_PER_DAY + MS_PER_DAY - 1);
+  requireNamespace('temporalPlainDateTimeFromWallMs', temporal, 'PlainDateTime');
+  const dn = Math.floor(wallMs / MS_PER_DAY);
+  const { year, month, day } = ymdFromDayNumber(dn);
+  let r = wallMs - dn * MS_PER_DAY;
+  const h = Math.floor(r / 3_600_000);
+  r -= h * 3_600_000;
+  const mi = Math.floor(r / 60_000);
+  r -= mi * 60_000;
+  const s = Math.floor(r / 1000);
+  const ms = r - s * 1000;
+  return wrapTemporal('temporalPlainDateTimeFromWallMs', wallMs, () => new temporal.PlainDateTime(year, month, day, h, mi, s, ms)) as InstanceType<
+    T['PlainDateTime']
+  >;
+}

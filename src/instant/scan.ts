@@ -1,0 +1,155 @@
+/**
+ * A small character scanner shared by the instant layer's parsers. It reads ASCII digits and fixed characters by
+ * char code (no regular expressions, no backtracking), so every parse is one linear pass, and every failure
+ * becomes a {@link KalendsSyntaxError} that quotes the whole input and names the position.
+ *
+ * @internal
+ * @module
+ */
+import { KalendsRangeError, KalendsSyntaxError, describeValue, type ErrorCode } from '../errors.js';
+import { MAX_YEAR, MIN_YEAR } from '../bounds.js';
+
+/** @internal A cursor over one input string, with the name of the function reading it (for messages). */
+export class Scanner {
+  pos = 0;
+  constructor(
+    readonly text: string,
+    readonly fn: string,
+    readonly expected: string,
+  ) {}
+
+  get done(): boolean {
+    return this.pos >= this.text.length;
+  }
+
+  peek(offset = 0): number {
+    const i = this.pos + offset;
+    return i < this.text.length ? this.text.charCodeAt(i) : -1;
+  }
+
+  /** Throws a syntax error: `<fn>: "<input>" is not <expected>: <detail> at position <p>`. */
+  fail(detail: string, position = this.pos, code: ErrorCode = 'malformed'): never {
+    throw syntaxError(this.fn, this.text, this.expected, detail, position, code);
+  }
+
+  /** Describes the character at the cursor for an error message. */
+  here(): string {
+    if (this.done) return 'the end of the text';
+    return `${JSON.stringify(this.text[this.pos])}`;
+  }
+
+  expectChar(code: number, what: string): void {
+    if (this.peek() !== code) this.fail(`expected ${what} but found ${this.here()}`);
+    this.pos++;
+  }
+
+  /** Reads exactly `n` ASCII digits and returns their value. */
+  digits(n: number, field: string): number {
+    let v = 0;
+    for (let k = 0; k < n; k++) {
+      const c = this.peek();
+      if (c < 48 || c > 57) {
+        this.fail(`${field} needs ${n} digits but found ${this.here()}`);
+      }
+      v = v * 10 + (c - 48);
+      this.pos++;
+    }
+    return v;
+  }
+
+  /** Number of consecutive ASCII digits starting at the cursor. */
+  countDigits(): number {
+    let k = 0;
+    for (;;) {
+      const c = this.peek(k);
+      if (c < 48 || c > 57) return k;
+      k++;
+    }
+  }
+
+  /** Reads a two-digit field and checks it lies in [min, max]. */
+  field2(field: string, min: number, max: number, hint = ''): number {
+    const start = this.pos;
+    const v = this.digits(2, field);
+    if (v < min || v > max) {
+      this.fail(`${field} ${this.text.slice(start, start + 2)} is out of range; expected ${pad2(min)} to ${pad2(max)}${hint}`, start, 'out-of-range');
+    }
+    return v;
+  }
+
+  /**
+   * Reads a year: four digits (0000..9999), or a sign and six digits (ISO 8601 expanded representation, as in
+   * RFC 9557 and Temporal). `-000000` is invalid. Years outside the supported range throw a range error.
+   */
+  year(): number {
+    const start = this.pos;
+    const c = this.peek();
+    let year: number;
+    if (c === 43 /* + */ || c === 45 /* - */) {
+      this.pos++;
+      const n = this.countDigits();
+      if (n !== 6) {
+        this.fail(`an expanded year needs a sign and exactly 6 digits, found ${n} digit${n === 1 ? '' : 's'}`, start);
+      }
+      const v = this.digits(6, 'the year');
+      if (c === 45 && v === 0) this.fail('-000000 is not a valid year; write year zero as 0000 or +000000', start);
+      year = c === 45 ? -v : v;
+    } else {
+      const n = this.countDigits();
+      if (n !== 4) {
+        this.fail(
+          n > 4
+            ? `a year with more than 4 digits needs a sign and exactly 6 digits (e.g. +012025), found ${n} digits`
+            : `the year needs 4 digits (or a sign and 6 digits), found ${n === 0 ? this.here() : `${n} digit${n === 1 ? '' : 's'}`}`,
+          start,
+        );
+      }
+      year = this.digits(4, 'the year');
+    }
+    if (year < MIN_YEAR || year > MAX_YEAR) {
+      throw new KalendsRangeError(
+        `${this.fn}: ${describeValue(this.text)} is outside the supported range: year ${year} at position ${start}; expected ${MIN_YEAR} to ${MAX_YEAR}`,
+        { code: 'out-of-range', received: this.text },
+      );
+    }
+    return year;
+  }
+
+  /**
+   * Reads an optional fraction: `.` or `,` then 1..9 digits. Returns nanoseconds (0..999,999,999), or -1 when
+   * there is no fraction.
+   */
+  fractionNs(field: string): number {
+    const c = this.peek();
+    if (c !== 46 /* . */ && c !== 44 /* , */) return -1;
+    const start = this.pos;
+    this.pos++;
+    const n = this.countDigits();
+    if (n === 0) this.fail(`a decimal sign must be followed by digits (${field}), found ${this.here()}`, start);
+    if (n > 9) this.fail(`${field} has ${n} fraction digits; at most 9 (nanoseconds) are accepted`, start, 'out-of-range');
+    let v = 0;
+    for (let k = 0; k < 9; k++) v = v * 10 + (k < n ? this.text.charCodeAt(this.pos + k) - 48 : 0);
+    this.pos += n;
+    return v;
+  }
+}
+
+/** @internal Builds the syntax error every parser in this layer throws. */
+export function syntaxError(fn: string, text: string, expected: string, detail: string, position: number, code: ErrorCode = 'malformed'): KalendsSyntaxError {
+  return new KalendsSyntaxError(`${fn}: ${describeValue(text)} is not ${expected}: ${detail} (at position ${position})`, {
+    code,
+    received: text,
+    position,
+  });
+}
+
+/** @internal Two-digit zero padding. */
+export function pad2(n: number): string {
+  return n < 10 ? `0${n}` : String(n);
+}
+
+/** @internal Year as ISO 8601 / RFC 9557 text: 4 digits for 0..9999, otherwise a sign and 6 digits. */
+export function formatYear(year: number): string {
+  if (year >= 0 && year <= 9999) return String(year).padStart(4, '0');
+  return `${year < 0 ? '-' : '+'}${String(Math.abs(year)).padStart(6, '0')}`;
+}
