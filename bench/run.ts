@@ -4,13 +4,14 @@
  */
 import { runBenchmark, type Benchmark } from './harness.js';
 import { benchmarks as civil } from './civil.js';
+import { benchmarks as instant } from './instant.js';
 import { benchmarks as zone } from './zone.js';
 import { benchmarks as period } from './period.js';
 import { benchmarks as business } from './business.js';
 import { benchmarks as recurrence } from './recurrence.js';
 import { benchmarks as series } from './series.js';
 
-const all: readonly (() => Benchmark)[] = [...civil, ...zone, ...period, ...business, ...recurrence, ...series];
+const all: readonly (() => Benchmark)[] = [...civil, ...instant, ...zone, ...period, ...business, ...recurrence, ...series];
 const filter = process.argv[2];
 console.log(`kalends benchmarks, Node ${process.version}, ${new Date().toISOString().slice(0, 10)}`);
 for (const make of all) {
