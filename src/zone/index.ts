@@ -1,1 +1,41 @@
-export {};
+/** Public surface of the zone layer: compiled IANA zone rules, local <-> instant, bulk conversion. */
+export {
+  type Zone,
+  type ZoneInput,
+  type ZoneSource,
+  type ZoneRulesData,
+  type ZoneRulesSource,
+  type ZoneFromIdOptions,
+  UTC_ZONE,
+  ZONE_CACHE_LIMIT,
+  zoneFromId,
+  zoneFromOffset,
+  zoneFromTzif,
+  zoneFromRules,
+  toZone,
+  isZone,
+  listZoneIds,
+  clearZoneCache,
+} from './zone.js';
+export {
+  type Disambiguation,
+  type WallResolution,
+  type WallFields,
+  type WallFieldsInput,
+  type ZoneTransition,
+  type ListTransitionsOptions,
+  offsetSecondsAt,
+  wallMsFromEpochMs,
+  dayNumberFromEpochMs,
+  wallFieldsFromEpochMs,
+  resolveWallMs,
+  epochMsFromWallMs,
+  epochMsFromWallFields,
+  dayStartEpochMs,
+  dayLengthMs,
+  listTransitions,
+  nextTransition,
+  previousTransition,
+} from './query.js';
+export { type BulkOptions, INVALID_DAY_NUMBER, dayNumberFromEpochMsBulk, wallMsFromEpochMsBulk } from './bulk.js';
+export { UnknownZoneError, WallTimeRejectedError, CorruptTzifError } from './errors.js';

@@ -1,0 +1,407 @@
+/**
+ * Zones: construction from an IANA id (through the runtime's Intl or a pinned rules source), from TZif bytes,
+ * from plain rules data, or from a fixed offset; and the bounded cache that resolves `ZoneInput` strings.
+ *
+ * @module
+ */
+import { MAX_OFFSET_SECONDS } from '../bounds.js';
+import {
+  DefinitionError,
+  type DefinitionIssue,
+  KalendsRangeError,
+  KalendsSyntaxError,
+  KalendsTypeError,
+  describeValue,
+} from '../errors.js';
+import { Engine, FixedEngine, IntlEngine, TableEngine } from './engine.js';
+import { UnknownZoneError } from './errors.js';
+import { listedIdIgnoringCase, probeFormatter, runtimeTzRelease, runtimeZoneIds, suggestZoneIds } from './intl.js';
+import { type PosixTz, parsePosixTz } from './posix.js';
+import { parseTzif } from './tzif.js';
+
+/** Where a zone's rules come from. */
+export type ZoneSource = 'intl' | 'tzif' | 'rules' | 'fixed';
+
+/**
+ * A compiled zone: immutable to its users (frozen). Its rules table is filled lazily, a year at a time, as
+ * queries need it. Make one with {@link zoneFromId}, {@link zoneFromOffset}, {@link zoneFromTzif} or
+ * {@link zoneFromRules}; every function that takes a zone also takes its id as a string ({@link ZoneInput}).
+ */
+export interface Zone {
+  /** The id as asked for, case-normalized where the runtime lists it ("America/New_York", "+05:30", "UTC"). */
+  readonly id: string;
+  /** The runtime's canonical id (ECMA-402 `resolvedOptions().timeZone`); links resolve to it. Equal to `id` for
+   * fixed offsets and rules data. */
+  readonly canonicalId: string;
+  /** Where the rules come from. */
+  readonly source: ZoneSource;
+  /** The tz database release of the rules, when known (Node's `process.versions.tz` for Intl; pinned data). */
+  readonly tzRelease: string | undefined;
+  /** The offset of a fixed-offset zone (UTC included), else undefined. */
+  readonly fixedOffsetSeconds: number | undefined;
+}
+
+/** A zone, or a string that names one: an IANA id ("Europe/Dublin"), "UTC", or a fixed offset ("+05:30"). */
+export type ZoneInput = Zone | string;
+
+/**
+ * Rules of one zone as plain data: the offset before the first transition, the transitions (POSIX seconds,
+ * ascending) with the offset from each, and an optional tail rule (a POSIX TZ string, RFC 8536 section 3.3) for
+ * instants after the last transition. The pinned module `kalends/tzdata` produces these.
+ */
+export interface ZoneRulesData {
+  readonly id: string;
+  readonly tzRelease?: string | undefined;
+  readonly initialOffsetSeconds: number;
+  readonly transitionsSeconds: ArrayLike<number>;
+  readonly offsetsSeconds: ArrayLike<number>;
+  readonly tailRule?: string | undefined;
+}
+
+/** A set of rules by id, such as the pinned tz data of `kalends/tzdata` (`PINNED_TZDATA`). */
+export interface ZoneRulesSource {
+  /** The tz database release of the data, e.g. "2025b". */
+  readonly tzRelease: string;
+  /** Every id the source knows, links included. */
+  readonly ids: readonly string[];
+  /** The rules of `id` (exact spelling), or undefined. */
+  rulesOf(id: string): ZoneRulesData | undefined;
+}
+
+/** Options of {@link zoneFromId}. */
+export interface ZoneFromIdOptions {
+  /** Read rules from this source instead of the runtime's Intl (e.g. `PINNED_TZDATA` from `kalends/tzdata`). */
+  readonly source?: ZoneRulesSource;
+}
+
+const ENGINE: unique symbol = Symbol('kalends.zone.engine');
+type ZoneWithEngine = Zone & { readonly [ENGINE]: Engine };
+
+function makeZone(fields: Zone, engine: Engine): Zone {
+  const z = { ...fields };
+  Object.defineProperty(z, ENGINE, { value: engine, enumerable: false });
+  return Object.freeze(z);
+}
+
+/** @internal The engine of a zone. */
+export function engineOf(zone: Zone): Engine {
+  return (zone as ZoneWithEngine)[ENGINE];
+}
+
+/** Whether `value` is a zone made by this library. */
+export function isZone(value: unknown): value is Zone {
+  return typeof value === 'object' && value !== null && ENGINE in value;
+}
+
+/** The UTC zone: offset 0 at every instant. */
+export const UTC_ZONE: Zone = makeZone(
+  { id: 'UTC', canonicalId: 'UTC', source: 'fixed', tzRelease: undefined, fixedOffsetSeconds: 0 },
+  new FixedEngine(0),
+);
+
+// ---------------------------------------------------------------------------------------------------------
+// Fixed offsets
+
+const OFFSET_RE = /^([+\-\u2212])(\d{2})(?::?(\d{2})(?::?(\d{2}))?)?$/;
+
+/** Formats an offset as ±HH:MM, or ±HH:MM:SS when it has seconds. @internal */
+export function formatOffsetSeconds(offsetSeconds: number): string {
+  const sign = offsetSeconds < 0 ? '-' : '+';
+  const a = Math.abs(offsetSeconds);
+  const hh = String(Math.floor(a / 3600)).padStart(2, '0');
+  const mm = String(Math.floor((a % 3600) / 60)).padStart(2, '0');
+  const ss = a % 60;
+  return `${sign}${hh}:${mm}${ss ? `:${String(ss).padStart(2, '0')}` : ''}`;
+}
+
+/** Parses ±HH, ±HHMM, ±HH:MM, ±HH:MM:SS or ±HHMMSS (RFC 9557 / ISO 8601 UTC offsets) to seconds. @internal */
+export function parseOffsetText(name: string, text: string): number {
+  const m = OFFSET_RE.exec(text);
+  if (!m) {
+    throw new KalendsSyntaxError(
+      `${name}: expected a UTC offset like "+05:30", "-08:00" or "+05:21:10", got ${describeValue(text)}`,
+      { code: 'malformed', received: text, position: /^[+\-\u2212]/.test(text) ? 1 : 0 },
+    );
+  }
+  const h = Number(m[2]);
+  const mi = m[3] === undefined ? 0 : Number(m[3]);
+  const s = m[4] === undefined ? 0 : Number(m[4]);
+  if (h > 23 || mi > 59 || s > 59) {
+    throw new KalendsRangeError(
+      `${name}: expected hours 00..23, minutes and seconds 00..59 in a UTC offset, got ${describeValue(text)}`,
+      { code: 'out-of-range', received: text },
+    );
+  }
+  const v = h * 3600 + mi * 60 + s;
+  return m[1] === '+' ? v : 0 - v;
+}
+
+/**
+ * A fixed-offset zone from an offset string (±HH, ±HH:MM, ±HHMM, ±HH:MM:SS) or a number of seconds east of UTC
+ * (an integer within ±86,399). Its id is the offset written ±HH:MM[:SS].
+ *
+ * @example
+ * ```ts
+ * zoneFromOffset('+05:30').id; // '+05:30'
+ * zoneFromOffset(-18000).id;   // '-05:00'
+ * ```
+ */
+export function zoneFromOffset(offset: string | number): Zone {
+  let seconds: number;
+  if (typeof offset === 'number') {
+    if (!Number.isInteger(offset) || Math.abs(offset) > MAX_OFFSET_SECONDS) {
+      throw new KalendsRangeError(
+        `offset: expected an integer number of seconds from -${MAX_OFFSET_SECONDS} to ${MAX_OFFSET_SECONDS}, got ${describeValue(offset)}`,
+        { code: 'out-of-range', received: offset },
+      );
+    }
+    seconds = offset;
+  } else if (typeof offset === 'string') {
+    seconds = parseOffsetText('offset', offset);
+  } else {
+    throw new KalendsTypeError(`offset: expected a string like "+05:30" or a number of seconds, got ${describeValue(offset)}`, {
+      code: 'invalid-type',
+      received: offset,
+    });
+  }
+  const id = formatOffsetSeconds(seconds === 0 ? 0 : seconds);
+  return makeZone({ id, canonicalId: id, source: 'fixed', tzRelease: undefined, fixedOffsetSeconds: seconds }, new FixedEngine(seconds));
+}
+
+// ---------------------------------------------------------------------------------------------------------
+// Rules data and TZif
+
+/**
+ * A zone from plain rules data (see {@link ZoneRulesData}). Every fault is reported at once in a DefinitionError
+ * with the path of each field.
+ *
+ * @example
+ * ```ts
+ * const z = zoneFromRules({ id: 'Example/Fixed', initialOffsetSeconds: 3600, transitionsSeconds: [], offsetsSeconds: [] });
+ * offsetSecondsAt(z, 0); // 3600
+ * ```
+ */
+export function zoneFromRules(data: ZoneRulesData): Zone {
+  if (typeof data !== 'object' || data === null) {
+    throw new KalendsTypeError(`rules: expected a ZoneRulesData object, got ${describeValue(data)}`, { code: 'invalid-type', received: data });
+  }
+  const issues: DefinitionIssue[] = [];
+  const off = (path: string, v: unknown): void => {
+    if (typeof v !== 'number' || !Number.isInteger(v) || Math.abs(v) > MAX_OFFSET_SECONDS) {
+      issues.push({ path, message: `expected an integer offset in seconds within ±${MAX_OFFSET_SECONDS}, got ${describeValue(v)}` });
+    }
+  };
+  if (typeof data.id !== 'string' || data.id === '') issues.push({ path: 'id', message: `expected a non-empty string, got ${describeValue(data.id)}` });
+  off('initialOffsetSeconds', data.initialOffsetSeconds);
+  const ts = data.transitionsSeconds;
+  const os = data.offsetsSeconds;
+  const isList = (v: unknown): v is ArrayLike<number> => typeof v === 'object' && v !== null && typeof (v as { length?: unknown }).length === 'number';
+  if (!isList(ts)) issues.push({ path: 'transitionsSeconds', message: `expected an array of numbers, got ${describeValue(ts)}` });
+  if (!isList(os)) issues.push({ path: 'offsetsSeconds', message: `expected an array of numbers, got ${describeValue(os)}` });
+  if (isList(ts) && isList(os)) {
+    if (ts.length !== os.length) issues.push({ path: 'offsetsSeconds', message: `expected ${ts.length} offsets (one per transition), got ${os.length}` });
+    for (let i = 0; i < ts.length && issues.length < 20; i++) {
+      const t = ts[i];
+      if (typeof t !== 'number' || !Number.isInteger(t)) issues.push({ path: `transitionsSeconds[${i}]`, message: `expected an integer, got ${describeValue(t)}` });
+      else if (i > 0 && !(t > (ts[i - 1] as number))) issues.push({ path: `transitionsSeconds[${i}]`, message: `expected times in ascending order, got ${t} after ${ts[i - 1]}` });
+      if (i < os.length) off(`offsetsSeconds[${i}]`, os[i]);
+    }
+  }
+  let rule: PosixTz | undefined;
+  if (data.tailRule !== undefined && data.tailRule !== '') {
+    if (typeof data.tailRule !== 'string') issues.push({ path: 'tailRule', message: `expected a POSIX TZ string, got ${describeValue(data.tailRule)}` });
+    else {
+      try {
+        rule = parsePosixTz(data.tailRule);
+      } catch (e) {
+        issues.push({ path: 'tailRule', message: (e as Error).message });
+      }
+    }
+  }
+  if (data.tzRelease !== undefined && typeof data.tzRelease !== 'string') issues.push({ path: 'tzRelease', message: `expected a string, got ${describeValue(data.tzRelease)}` });
+  if (issues.length > 0) throw new DefinitionError(issues, data);
+  return rulesZone(data.id, 'rules', data.tzRelease, data.initialOffsetSeconds, ts, os, rule);
+}
+
+function rulesZone(
+  id: string,
+  source: ZoneSource,
+  tzRelease: string | undefined,
+  initial: number,
+  transitionsSeconds: ArrayLike<number>,
+  offsets: ArrayLike<number>,
+  rule: PosixTz | undefined,
+): Zone {
+  // Times outside the ECMAScript range: earlier ones set the initial offset, later ones are dropped.
+  const ms: number[] = [];
+  const os: number[] = [];
+  let init = initial;
+  for (let i = 0; i < transitionsSeconds.length; i++) {
+    const t = transitionsSeconds[i]! * 1000;
+    if (t < -8.64e15) init = offsets[i]!;
+    else if (t <= 8.64e15) {
+      ms.push(t);
+      os.push(offsets[i]!);
+    }
+  }
+  const engine = new TableEngine(init, ms, os, rule);
+  return makeZone({ id, canonicalId: id, source, tzRelease, fixedOffsetSeconds: undefined }, engine);
+}
+
+/**
+ * A zone from TZif bytes (RFC 8536 / RFC 9636, versions 1 to 4): the file's transitions and, for version 2 and
+ * later, its footer rule for instants past the table. Corrupt or truncated bytes give a CorruptTzifError
+ * (code 'corrupt-tzif') with the byte position.
+ *
+ * @example
+ * ```ts
+ * const ny = zoneFromTzif(readFileSync('/usr/share/zoneinfo/America/New_York'), 'America/New_York');
+ * offsetSecondsAt(ny, Date.UTC(2025, 6, 1)); // -14400
+ * ```
+ */
+export function zoneFromTzif(bytes: Uint8Array, id = 'TZif', options: { readonly tzRelease?: string } = {}): Zone {
+  const c = parseTzif(bytes);
+  const n = c.transitionsSeconds.length;
+  const offsets = new Int32Array(n);
+  for (let i = 0; i < n; i++) offsets[i] = c.types[c.transitionTypes[i]!]!.offsetSeconds;
+  return rulesZone(id, 'tzif', options.tzRelease, c.types[0]!.offsetSeconds, c.transitionsSeconds, offsets, c.footerRule);
+}
+
+// ---------------------------------------------------------------------------------------------------------
+// Ids and the cache
+
+/** How many zones the string cache holds (least recently used ones are dropped first). */
+export const ZONE_CACHE_LIMIT = 64;
+
+const cache = new Map<string, Zone>();
+
+function cacheGet(key: string): Zone | undefined {
+  const z = cache.get(key);
+  if (z !== undefined) {
+    cache.delete(key);
+    cache.set(key, z);
+  }
+  return z;
+}
+
+function cachePut(key: string, z: Zone): void {
+  cache.set(key, z);
+  while (cache.size > ZONE_CACHE_LIMIT) cache.delete(cache.keys().next().value as string);
+}
+
+/** Empties the zone cache (compiled tables are released once no zone object refers to them). */
+export function clearZoneCache(): void {
+  cache.clear();
+}
+
+/** @internal The number of cached entries (for tests and docs). */
+export function zoneCacheSize(): number {
+  return cache.size;
+}
+
+const sourceIds = new WeakMap<ZoneRulesSource, Map<string, string>>();
+
+function fromSource(id: string, source: ZoneRulesSource): Zone {
+  let lower = sourceIds.get(source);
+  if (!lower) {
+    lower = new Map(source.ids.map((x) => [x.toLowerCase(), x]));
+    sourceIds.set(source, lower);
+  }
+  const exact = lower.get(id.toLowerCase());
+  const data = exact === undefined ? undefined : source.rulesOf(exact);
+  if (exact === undefined || data === undefined) {
+    throw new UnknownZoneError('id', id, suggestZoneIds(id, source.ids), `the pinned tz data ${source.tzRelease}`);
+  }
+  const z = zoneFromRules(data);
+  // Keep the source's release and mark the origin as TZif data.
+  return makeZone({ ...z, source: 'tzif', tzRelease: data.tzRelease ?? source.tzRelease }, engineOf(z));
+}
+
+function fromIntl(id: string): Zone {
+  if (/^utc$/i.test(id)) return UTC_ZONE;
+  if (/^[+\-\u2212]/.test(id)) return zoneFromOffset(id);
+  const format = id === '' ? undefined : probeFormatter(id);
+  if (!format) throw new UnknownZoneError('id', id, suggestZoneIds(id, runtimeZoneIds()));
+  const canonicalId = format.resolvedOptions().timeZone ?? id;
+  const listed = listedIdIgnoringCase(id);
+  const normalized = listed ?? (canonicalId.toLowerCase() === id.toLowerCase() ? canonicalId : id);
+  const release = runtimeTzRelease();
+  if (canonicalId === 'UTC' || canonicalId === 'Etc/UTC' || canonicalId === 'Etc/GMT') {
+    return makeZone({ id: normalized, canonicalId: 'UTC', source: 'fixed', tzRelease: undefined, fixedOffsetSeconds: 0 }, new FixedEngine(0));
+  }
+  // Zones that share a canonical id share one engine.
+  const shared = cache.get(`\u0000${canonicalId}`);
+  const engine = shared ? engineOf(shared) : new IntlEngine(format);
+  const z = makeZone({ id: normalized, canonicalId, source: 'intl', tzRelease: release, fixedOffsetSeconds: undefined }, engine);
+  if (!shared) cachePut(`\u0000${canonicalId}`, z);
+  return z;
+}
+
+/**
+ * The zone named by an IANA id ("America/New_York"), "UTC", or a fixed offset ("+05:30"). By default the
+ * runtime's Intl supplies the rules; `options.source` picks another source such as pinned tz data. Ids are
+ * matched ignoring case and canonicalized as the runtime knows them (`zone.canonicalId`). An unknown id gives an
+ * UnknownZoneError (code 'unknown-zone') with the closest valid ids. Zones are cached (see ZONE_CACHE_LIMIT).
+ *
+ * @example
+ * ```ts
+ * zoneFromId('europe/dublin').id; // 'Europe/Dublin'
+ * zoneFromId('Europe/Londn');     // throws UnknownZoneError: ... did you mean "Europe/London"?
+ * ```
+ */
+export function zoneFromId(id: string, options: ZoneFromIdOptions = {}): Zone {
+  if (typeof id !== 'string') {
+    throw new KalendsTypeError(`id: expected a time zone id string, got ${describeValue(id)}`, { code: 'invalid-type', received: id });
+  }
+  const source = options.source;
+  if (source) {
+    if (/^utc$/i.test(id)) return UTC_ZONE;
+    if (/^[+\-\u2212]/.test(id)) return zoneFromOffset(id);
+    return fromSource(id, source);
+  }
+  const hit = cacheGet(id);
+  if (hit) return hit;
+  const z = fromIntl(id);
+  cachePut(id, z);
+  return z;
+}
+
+/**
+ * The one coercion point for zones: a Zone is returned as it is; a string is resolved by {@link zoneFromId}
+ * through the cache. `name` is the parameter name used in error messages.
+ *
+ * @example
+ * ```ts
+ * toZone('Asia/Kolkata') === toZone('Asia/Kolkata'); // true (cached)
+ * ```
+ */
+export function toZone(input: ZoneInput, name = 'zone'): Zone {
+  if (typeof input === 'string') {
+    const hit = cacheGet(input);
+    if (hit) return hit;
+    try {
+      return zoneFromId(input);
+    } catch (e) {
+      if (e instanceof UnknownZoneError && name !== 'id') throw new UnknownZoneError(name, input, e.suggestions);
+      throw e;
+    }
+  }
+  if (isZone(input)) return input;
+  throw new KalendsTypeError(`${name}: expected a Zone or a time zone id string, got ${describeValue(input)}`, {
+    code: 'invalid-type',
+    received: input,
+  });
+}
+
+/**
+ * The zone ids the runtime lists (ECMA-402 `Intl.supportedValuesOf('timeZone')`: canonical ids, no links), plus
+ * "UTC", sorted.
+ *
+ * @example
+ * ```ts
+ * listZoneIds().includes('Europe/Dublin'); // true
+ * ```
+ */
+export function listZoneIds(): readonly string[] {
+  return runtimeZoneIds();
+}

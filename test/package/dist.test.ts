@@ -1,0 +1,46 @@
+/**
+ * Conformance of the built package (dist/), not only of the sources: the ESM and CJS entry points expose the same
+ * names as src/index.ts, the declarations exist, the core bundle carries no pinned tz data, and package.json keeps
+ * its promises (no runtime dependencies, sideEffects false, an exports map). `npm test` builds before it runs.
+ */
+import { describe, expect, it } from 'vitest';
+import { createRequire } from 'node:module';
+import { existsSync, readFileSync } from 'node:fs';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+import * as source from '../../src/index.js';
+
+const root = fileURLToPath(new URL('../../', import.meta.url));
+const dist = (f: string) => `${root}dist/${f}`;
+const built = existsSync(dist('index.js'));
+
+describe.skipIf(!built && !process.env.CI)('built package', () => {
+  it('ESM entry exports exactly the names of src/index.ts', async () => {
+    const esm = (await import(pathToFileURL(dist('index.js')).href)) as Record<string, unknown>;
+    expect(Object.keys(esm).sort()).toEqual(Object.keys(source).sort());
+  });
+
+  it('CJS entry exports exactly the names of src/index.ts', () => {
+    const cjs = createRequire(import.meta.url)(dist('index.cjs')) as Record<string, unknown>;
+    expect(Object.keys(cjs).filter((k) => k !== '__esModule').sort()).toEqual(Object.keys(source).sort());
+  });
+
+  it('ships declarations for both formats and a CLI with a shebang', () => {
+    for (const f of ['index.d.ts', 'index.d.cts', 'tzdata.d.ts', 'cli.js']) expect(existsSync(dist(f))).toBe(true);
+    expect(readFileSync(dist('cli.js'), 'utf8').startsWith('#!/usr/bin/env node')).toBe(true);
+  });
+
+  it('package.json: no runtime dependencies, sideEffects false, engines, exports for . and ./tzdata', () => {
+    const pkg = JSON.parse(readFileSync(`${root}package.json`, 'utf8')) as Record<string, unknown>;
+    expect(pkg.dependencies ?? {}).toEqual({});
+    expect(pkg.sideEffects).toBe(false);
+    expect((pkg.engines as Record<string, string>).node).toBe('>=20');
+    expect(Object.keys(pkg.exports as object)).toEqual(expect.arrayContaining(['.', './tzdata']));
+  });
+
+  it('the core bundle does not contain the pinned tz data module', () => {
+    const core = readFileSync(dist('index.js'), 'utf8');
+    const pinned = readFileSync(dist('tzdata.js'), 'utf8');
+    expect(pinned).toMatch(/TZDATA_RELEASE/);
+    expect(core).not.toMatch(/TZDATA_RELEASE/);
+  });
+});
