@@ -5,6 +5,7 @@ import { COMPANY } from './scenario.js';
 import { section as civil } from './sections/civil.js';
 import { section as instant } from './sections/instant.js';
 import { section as zone } from './sections/zone.js';
+import { section as period } from './sections/period.js';
 
 /** One part of the demo. `print` writes a line. */
 export interface DemoSection {
@@ -12,7 +13,7 @@ export interface DemoSection {
   run(print: (line: string) => void): void | Promise<void>;
 }
 
-const sections: readonly DemoSection[] = [civil, instant, zone];
+const sections: readonly DemoSection[] = [civil, instant, zone, period];
 
 async function main(): Promise<void> {
   console.log(`kalends demo: ${COMPANY}`);

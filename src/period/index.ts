@@ -1,1 +1,57 @@
-export {};
+/** Public surface of the period layer: calendar, fiscal and 52/53-week units; period values and arithmetic. */
+export {
+  type WeekdayName,
+  type YearNaming,
+  type MonthDay,
+  type YearEndRule,
+  type WeekLayout,
+  type ExtraWeekPlacement,
+  type CalendarUnitName,
+  type FiscalKind,
+  type CalendarUnitDefinition,
+  type MonthFiscalDefinition,
+  type WeekFiscalDefinition,
+  type UnitDefinition,
+  validateUnitDefinition,
+} from './definition.js';
+export {
+  type PeriodUnit,
+  type UnitKind,
+  type UnitInput,
+  defineUnit,
+  resolveUnit,
+  DAY_UNIT,
+  ISO_WEEK_UNIT,
+  MONTH_UNIT,
+  QUARTER_UNIT,
+  HALF_YEAR_UNIT,
+  YEAR_UNIT,
+} from './units.js';
+export {
+  type Period,
+  periodFromOrdinal,
+  periodFromDayNumber,
+  shiftPeriod,
+  countPeriods,
+  comparePeriods,
+  periodFirstDayNumber,
+  periodLastDayNumber,
+  periodEndDayNumber,
+  periodLengthDays,
+  periodContainsDayNumber,
+  formatPeriod,
+  parsePeriod,
+  periodYearEarlier,
+  listSubPeriods,
+  listOverlappingPeriods,
+  periodContaining,
+} from './period.js';
+export { ordinalFromDayNumberBulk, labelFromOrdinalBulk, firstDayNumberFromOrdinalBulk } from './bulk.js';
+export {
+  periodFromEpochMs,
+  periodStartEpochMs,
+  periodEndEpochMs,
+  periodContainsEpochMs,
+  ordinalFromEpochMsBulk,
+  INVALID_ORDINAL,
+} from './instants.js';

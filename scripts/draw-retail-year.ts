@@ -1,0 +1,103 @@
+/**
+ * Draws docs/img/retail-454-fy2023.svg: a 4-5-4 retail year (ending on the Saturday nearest 31 January, named by
+ * its start year) laid out week by week, one row per period, with the 53rd week marked. Every date in the
+ * picture comes from the period layer.
+ *
+ * Run: npx esbuild scripts/draw-retail-year.ts --bundle --platform=node --format=esm \
+ *        --outfile=/tmp/draw-retail-year.mjs && node /tmp/draw-retail-year.mjs [FY2023]
+ */
+import { writeFileSync, mkdirSync } from 'node:fs';
+import { dirname, resolve } from 'node:path';
+import { ymdFromDayNumber } from '../src/civil/index.js';
+import {
+  defineUnit,
+  formatPeriod,
+  listSubPeriods,
+  parsePeriod,
+  periodContaining,
+  periodFirstDayNumber,
+  periodLastDayNumber,
+  periodLengthDays,
+} from '../src/period/index.js';
+
+const RETAIL = { yearEnd: { weekday: 'saturday', month: 1, rule: 'nearest' }, naming: 'start-year', layout: '4-5-4' } as const;
+const label = process.argv[2] ?? 'FY2023';
+const year = defineUnit({ kind: 'fiscal-year', ...RETAIL });
+const quarterUnit = defineUnit({ kind: 'fiscal-quarter', ...RETAIL });
+const periodUnit = defineUnit({ kind: 'fiscal-period', ...RETAIL });
+const weekUnit = defineUnit({ kind: 'fiscal-week', ...RETAIL });
+const fy = parsePeriod(year, label);
+
+const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
+const short = (dn: number) => {
+  const { month, day } = ymdFromDayNumber(dn);
+  return `${MONTHS[month - 1]} ${day}`;
+};
+const full = (dn: number) => {
+  const { year: y, month, day } = ymdFromDayNumber(dn);
+  return `${day} ${MONTHS[month - 1]} ${y}`;
+};
+const esc = (s: string) => s.replace(/&/g, '&amp;').replace(/</g, '&lt;');
+
+const QUARTER_FILL = ['#e8f1fb', '#eaf6ec', '#fdf3e3', '#f4ecf8'];
+const QUARTER_STROKE = ['#5b8fc9', '#5aa46a', '#d39a3a', '#9a6bb8'];
+const CELL_W = 104;
+const CELL_H = 40;
+const LEFT = 150;
+const TOP = 78;
+const ROW_GAP = 6;
+
+const periods = listSubPeriods(fy, periodUnit);
+const rows: string[] = [];
+let y = TOP;
+for (const p of periods) {
+  const q = periodContaining(p, quarterUnit);
+  const qi = Number(formatPeriod(q).slice(-1)) - 1;
+  // Retail months are named after the calendar month that holds most of their days (the middle day's month).
+  const { month } = ymdFromDayNumber(periodFirstDayNumber(p) + Math.floor(periodLengthDays(p) / 2));
+  rows.push(
+    `<text x="${LEFT - 12}" y="${y + CELL_H / 2 - 3}" text-anchor="end" class="period">${esc(formatPeriod(p).slice(-3))} · ${MONTHS[month - 1]}</text>`,
+    `<text x="${LEFT - 12}" y="${y + CELL_H / 2 + 12}" text-anchor="end" class="small">${periodLengthDays(p) / 7} weeks</text>`,
+  );
+  listSubPeriods(p, weekUnit).forEach((w, i) => {
+    const x = LEFT + i * CELL_W;
+    const wl = formatPeriod(w);
+    const extra = wl.endsWith('W53');
+    rows.push(
+      `<rect x="${x}" y="${y}" width="${CELL_W - 6}" height="${CELL_H}" rx="4" fill="${extra ? '#fde2e2' : QUARTER_FILL[qi]}" stroke="${extra ? '#c0392b' : QUARTER_STROKE[qi]}" stroke-width="${extra ? 2 : 1}"/>`,
+      `<text x="${x + 8}" y="${y + 16}" class="week">${esc(wl.slice(-3))}${extra ? ' (53rd)' : ''}</text>`,
+      `<text x="${x + 8}" y="${y + 32}" class="small">${short(periodFirstDayNumber(w))} – ${short(periodLastDayNumber(w))}</text>`,
+    );
+  });
+  const weeks = periodLengthDays(p) / 7;
+  const isQuarterEnd = formatPeriod(p).endsWith(String(((qi + 1) * 3)).padStart(2, '0'));
+  if (isQuarterEnd) {
+    rows.push(`<text x="${LEFT + weeks * CELL_W + 4}" y="${y + CELL_H / 2 + 4}" class="quarter" fill="${QUARTER_STROKE[qi]}">${esc(formatPeriod(q).slice(-2))}: ${periodLengthDays(q) / 7} weeks</text>`);
+  }
+  y += CELL_H + ROW_GAP;
+}
+const width = LEFT + 5 * CELL_W + 130;
+const height = y + 30;
+const weeks = periodLengthDays(fy) / 7;
+const svg = `<svg xmlns="http://www.w3.org/2000/svg" width="${width}" height="${height}" viewBox="0 0 ${width} ${height}" font-family="Helvetica, Arial, sans-serif">
+<style>
+  .title { font-size: 17px; font-weight: bold; fill: #222; }
+  .sub { font-size: 12px; fill: #444; }
+  .period { font-size: 13px; font-weight: bold; fill: #333; }
+  .week { font-size: 12px; font-weight: bold; fill: #222; }
+  .small { font-size: 11px; fill: #555; }
+  .quarter { font-size: 12px; font-weight: bold; }
+</style>
+<rect width="100%" height="100%" fill="#ffffff"/>
+<text x="20" y="30" class="title">${esc(formatPeriod(fy))}: a 4-5-4 retail year, week by week (${weeks} weeks)</text>
+<text x="20" y="50" class="sub">${esc(full(periodFirstDayNumber(fy)))} – ${esc(full(periodLastDayNumber(fy)))}. The year ends on the Saturday nearest 31 January and is named by the year it starts in.</text>
+<text x="20" y="66" class="sub">${weeks === 53 ? 'The 53rd week (red) goes to the last period, so the last quarter is laid out 4-5-5.' : 'A 52-week year: every quarter is laid out 4-5-4.'}</text>
+${rows.join('\n')}
+<text x="20" y="${height - 10}" class="small">Generated by scripts/draw-retail-year.ts from the kalends period layer.</text>
+</svg>
+`;
+// Run from the repository root (the bundle may live in /tmp, so paths are relative to the working directory).
+const target = resolve(process.cwd(), 'docs', 'img', `retail-454-${label.toLowerCase()}.svg`);
+mkdirSync(dirname(target), { recursive: true });
+writeFileSync(target, svg);
+console.log(`wrote ${target}`);
