@@ -6,6 +6,7 @@ import { section as civil } from './sections/civil.js';
 import { section as instant } from './sections/instant.js';
 import { section as zone } from './sections/zone.js';
 import { section as period } from './sections/period.js';
+import { section as business } from './sections/business.js';
 
 /** One part of the demo. `print` writes a line. */
 export interface DemoSection {
@@ -13,7 +14,7 @@ export interface DemoSection {
   run(print: (line: string) => void): void | Promise<void>;
 }
 
-const sections: readonly DemoSection[] = [civil, instant, zone, period];
+const sections: readonly DemoSection[] = [civil, instant, zone, period, business];
 
 async function main(): Promise<void> {
   console.log(`kalends demo: ${COMPANY}`);

@@ -1,0 +1,467 @@
+/**
+ * Business calendars: define one from plain data (or take a bundled one by name), then ask which days are
+ * business days, list holidays, shift and count business days, and adjust dates by the ISDA business-day
+ * conventions. Every operation works on day numbers (days since 1970-01-01) and is O(1) per year spanned.
+ *
+ * @module
+ */
+import { MIN_YEAR } from '../bounds.js';
+import { packedYmdUnchecked, requireDayNumber } from '../civil/gregorian.js';
+import {
+  DefinitionError,
+  type DefinitionIssue,
+  KalendsRangeError,
+  KalendsTypeError,
+  describeValue,
+  requireInteger,
+} from '../errors.js';
+import {
+  BUSINESS_DAY_CONVENTIONS,
+  type BusinessDayConvention,
+  type CalendarDefinition,
+  WEEKDAY_NAMES,
+  type WeekdayName,
+} from './definition.js';
+import { isoDateFromDayNumber } from './dates.js';
+import { Engine } from './engine.js';
+import { BUNDLED_DEFINITIONS, suggestCalendarNames } from './jurisdictions/index.js';
+import { holidaysOfYear } from './rules.js';
+import { type CalendarNode, normalizeDefinition } from './validate.js';
+
+const ENGINE = Symbol('kalends.business.engine');
+
+/**
+ * A compiled, immutable business calendar. Pass it (or a bundled calendar's name) to the functions of this
+ * module. It keeps its `definition`, so it can be serialized and defined again.
+ */
+export interface BusinessCalendar {
+  /** The definition's `id`, or `"custom"`. */
+  readonly id: string;
+  readonly name: string | undefined;
+  /** The legal source named by the definition. */
+  readonly source: string | undefined;
+  /** The caution carried by the definition. */
+  readonly caution: string | undefined;
+  /** Weekend days as ISO weekdays (1 = Monday .. 7 = Sunday), ascending. */
+  readonly weekend: readonly number[];
+  /** Weekend days by name. */
+  readonly weekendNames: readonly WeekdayName[];
+  /** First and last year (inclusive) the calendar answers for. */
+  readonly firstYear: number;
+  readonly lastYear: number;
+  /** The definition it was compiled from (frozen). */
+  readonly definition: CalendarDefinition;
+}
+
+/** A calendar, or the name of a bundled one (`'us-federal'`, `'england-and-wales'`, `'euro-t2'`). */
+export type CalendarInput = BusinessCalendar | string;
+
+interface Internal extends BusinessCalendar {
+  readonly [ENGINE]: Engine;
+}
+
+/** A holiday as listed by {@link listHolidays}. */
+export interface Holiday {
+  /** The day the holiday is observed (the day that is not a business day). */
+  readonly dayNumber: number;
+  /** The date the rule gives before any weekend observance shift. Equal to `dayNumber` unless moved. */
+  readonly actualDayNumber: number;
+  /** `dayNumber` as `YYYY-MM-DD`. */
+  readonly date: string;
+  /** `actualDayNumber` as `YYYY-MM-DD`. */
+  readonly actualDate: string;
+  readonly name: string;
+  /** True when the holiday was moved off a weekend day (an observed, "in lieu of" or substitute day). */
+  readonly moved: boolean;
+  /** True for a one-off addition rather than a yearly rule. */
+  readonly oneOff: boolean;
+  /** The rule's id, when it has one. */
+  readonly ruleId: string | undefined;
+}
+
+/**
+ * An unknown bundled calendar name; `suggestions` lists close names.
+ *
+ * @example
+ * ```ts
+ * try { calendarFromName('us-fedral'); } catch (e) { if (e instanceof UnknownCalendarError) e.suggestions; } // ['us-federal']
+ * ```
+ */
+export class UnknownCalendarError extends KalendsRangeError {
+  readonly suggestions: readonly string[];
+  constructor(name: string, parameter: string) {
+    const suggestions = suggestCalendarNames(name);
+    super(
+      `${parameter}: unknown calendar ${describeValue(name)}${suggestions.length ? `; did you mean ${suggestions.map((s) => JSON.stringify(s)).join(' or ')}?` : ''} (bundled calendars: ${Object.keys(BUNDLED_DEFINITIONS).join(', ')})`,
+      { code: 'out-of-range', received: name },
+    );
+    this.name = 'UnknownCalendarError';
+    this.suggestions = suggestions;
+  }
+}
+
+function deepFreeze<T>(value: T): T {
+  if (typeof value === 'object' && value !== null && !Object.isFrozen(value)) {
+    Object.freeze(value);
+    for (const v of Object.values(value as object)) deepFreeze(v);
+  }
+  return value;
+}
+
+/** Checks that every removal of every node removes a holiday. */
+function checkRemovals(node: CalendarNode, issues: DefinitionIssue[]): void {
+  for (const m of node.members) checkRemovals(m, issues);
+  for (const r of node.removals) {
+    const year = Math.floor(packedYmdUnchecked(r.dayNumber) / 512) + MIN_YEAR;
+    const list = holidaysOfYear(node, year, false);
+    if (!list.some((h) => h.observed === r.dayNumber)) {
+      const shown = list.map((h) => isoDateFromDayNumber(h.observed)).join(', ');
+      issues.push({
+        path: `${r.path}.date`,
+        message: `no holiday of this calendar is observed on ${isoDateFromDayNumber(r.dayNumber)}, so there is nothing to remove; holidays in ${year}: ${shown || '(none)'}`,
+      });
+    }
+  }
+}
+
+/**
+ * Validates a calendar definition and compiles it. Every fault is reported at once in a DefinitionError whose
+ * `issues` name the path of each (`holidays[3].day: expected an integer from 1 to 29 for month 2, got 30`).
+ *
+ * @example
+ * ```ts
+ * const company = defineCalendar({
+ *   id: 'company',
+ *   extends: 'us-federal',
+ *   holidays: [{ id: 'day-after-thanksgiving', name: 'Day after Thanksgiving', kind: 'relative', to: 'thanksgiving-day', offset: 1 }],
+ * });
+ * isBusinessDay(company, dayNumberFromYmd(2025, 11, 28)); // false
+ * ```
+ */
+export function defineCalendar(definition: CalendarDefinition): BusinessCalendar {
+  const { node, issues } = normalizeDefinition(definition);
+  if (!node) throw new DefinitionError(issues, definition);
+  const removalIssues: DefinitionIssue[] = [];
+  try {
+    checkRemovals(node, removalIssues);
+  } catch (e) {
+    if (e instanceof KalendsRangeError && e.path !== undefined) removalIssues.push({ path: e.path, message: e.message });
+    else throw e;
+  }
+  if (removalIssues.length) throw new DefinitionError(removalIssues, definition);
+  const frozen = Object.isFrozen(definition) ? definition : deepFreeze(JSON.parse(JSON.stringify(definition)) as CalendarDefinition);
+  const id = typeof definition.id === 'string' ? definition.id : 'custom';
+  const weekend: number[] = [];
+  for (let wd = 1; wd <= 7; wd++) if (node.weekendMask & (1 << wd)) weekend.push(wd);
+  const calendar: Internal = {
+    id,
+    name: definition.name,
+    source: definition.source,
+    caution: definition.caution,
+    weekend: Object.freeze(weekend),
+    weekendNames: Object.freeze(weekend.map((wd) => WEEKDAY_NAMES[wd - 1]!)),
+    firstYear: node.firstYear,
+    lastYear: node.lastYear,
+    definition: frozen,
+    [ENGINE]: new Engine(node, id, node.firstYear, node.lastYear),
+  };
+  return Object.freeze(calendar);
+}
+
+const bundledCache = new Map<string, BusinessCalendar>();
+
+/**
+ * A bundled calendar by name: `'us-federal'` (United States federal holidays, 5 U.S.C. 6103),
+ * `'england-and-wales'` (bank holidays) or `'euro-t2'` (T2 closing days). Compiled once and cached. An unknown
+ * name throws an {@link UnknownCalendarError} with suggestions.
+ *
+ * @example
+ * ```ts
+ * const us = calendarFromName('us-federal');
+ * us.caution; // 'Holiday calendars change by law and by proclamation, ...'
+ * ```
+ */
+export function calendarFromName(name: string): BusinessCalendar {
+  const cached = bundledCache.get(name);
+  if (cached) return cached;
+  if (typeof name !== 'string') {
+    throw new KalendsTypeError(`name: expected the name of a bundled calendar, got ${describeValue(name)}`, {
+      code: 'invalid-type',
+      received: name,
+    });
+  }
+  const def = (BUNDLED_DEFINITIONS as Readonly<Record<string, CalendarDefinition>>)[name];
+  if (!def || !Object.prototype.hasOwnProperty.call(BUNDLED_DEFINITIONS, name)) throw new UnknownCalendarError(name, 'name');
+  const cal = defineCalendar(def);
+  bundledCache.set(name, cal);
+  return cal;
+}
+
+function engineOf(calendar: CalendarInput): Engine {
+  if (typeof calendar === 'string') {
+    const cached = bundledCache.get(calendar);
+    if (cached) return (cached as Internal)[ENGINE];
+    if (!Object.prototype.hasOwnProperty.call(BUNDLED_DEFINITIONS, calendar)) throw new UnknownCalendarError(calendar, 'calendar');
+    return (calendarFromName(calendar) as Internal)[ENGINE];
+  }
+  const engine = typeof calendar === 'object' && calendar !== null ? (calendar as Internal)[ENGINE] : undefined;
+  if (!engine) {
+    throw new KalendsTypeError(
+      `calendar: expected a BusinessCalendar from defineCalendar or a bundled calendar name, got ${describeValue(calendar)}`,
+      { code: 'invalid-type', received: calendar },
+    );
+  }
+  return engine;
+}
+
+/** Validates a day number against the civil range and the calendar's years; `extra` allows one day past the end. */
+function requireDay(engine: Engine, dayNumber: number, name: string, extra = 0): number {
+  requireDayNumber(dayNumber, name);
+  if (dayNumber < engine.firstDay || dayNumber >= engine.endDay + extra) {
+    throw new KalendsRangeError(
+      `${name}: ${isoDateFromDayNumber(dayNumber)} (day number ${dayNumber}) is outside the years ${engine.firstYear}..${engine.lastYear} that calendar ${JSON.stringify(engine.label)} supports`,
+      { code: 'out-of-range', received: dayNumber },
+    );
+  }
+  return dayNumber;
+}
+
+/**
+ * Whether `dayNumber` is a business day: not a weekend day and not a holiday of the calendar.
+ *
+ * @example
+ * ```ts
+ * isBusinessDay('us-federal', dayNumberFromYmd(2025, 7, 4)); // false (Independence Day)
+ * isBusinessDay('us-federal', dayNumberFromYmd(2025, 7, 7)); // true
+ * ```
+ */
+export function isBusinessDay(calendar: CalendarInput, dayNumber: number): boolean {
+  const e = engineOf(calendar);
+  return e.isBusinessDay(requireDay(e, dayNumber, 'dayNumber'));
+}
+
+/**
+ * The first business day strictly after `dayNumber`.
+ *
+ * @example
+ * ```ts
+ * nextBusinessDay('england-and-wales', dayNumberFromYmd(2025, 12, 24)); // day number of 2025-12-29
+ * ```
+ */
+export function nextBusinessDay(calendar: CalendarInput, dayNumber: number): number {
+  const e = engineOf(calendar);
+  return e.shift(requireDay(e, dayNumber, 'dayNumber'), 1);
+}
+
+/**
+ * The last business day strictly before `dayNumber`.
+ *
+ * @example
+ * ```ts
+ * previousBusinessDay('euro-t2', dayNumberFromYmd(2026, 4, 7)); // day number of 2026-04-02 (Good Friday and Easter Monday closed)
+ * ```
+ */
+export function previousBusinessDay(calendar: CalendarInput, dayNumber: number): number {
+  const e = engineOf(calendar);
+  return e.shift(requireDay(e, dayNumber, 'dayNumber'), -1);
+}
+
+/**
+ * Moves `n` business days from `dayNumber`. For n > 0 the result is the nth business day strictly after
+ * `dayNumber`; for n < 0 the |n|th business day strictly before it; for n = 0 it is `dayNumber` itself when that
+ * is a business day, otherwise the next business day (the following convention). The result is always a
+ * business day. Cost: O(1) per year spanned, never day by day.
+ *
+ * Counting back: for a business day d, `countBusinessDays(cal, d, shiftBusinessDays(cal, d, n)) === n` for every
+ * n. When d is not a business day, the count is n - 1 for n > 0 and n for n < 0 (d itself is not counted).
+ *
+ * @example
+ * ```ts
+ * shiftBusinessDays('us-federal', dayNumberFromYmd(2025, 12, 23), 2); // 2025-12-26 (25 December skipped)
+ * ```
+ */
+export function shiftBusinessDays(calendar: CalendarInput, dayNumber: number, n: number): number {
+  const e = engineOf(calendar);
+  requireDay(e, dayNumber, 'dayNumber');
+  requireInteger('n', n, -Number.MAX_SAFE_INTEGER, Number.MAX_SAFE_INTEGER);
+  return e.shift(dayNumber, n);
+}
+
+/**
+ * Business days in the end-exclusive range [start, end). When end < start the result is negative:
+ * `countBusinessDays(cal, a, b) === -countBusinessDays(cal, b, a)`, so counts add up across ranges
+ * (count(a, b) + count(b, c) = count(a, c)). `end` may be the day after the calendar's last supported day.
+ *
+ * @example
+ * ```ts
+ * countBusinessDays('us-federal', dayNumberFromYmd(2025, 1, 1), dayNumberFromYmd(2026, 1, 1)); // 250
+ * ```
+ */
+export function countBusinessDays(calendar: CalendarInput, start: number, end: number): number {
+  const e = engineOf(calendar);
+  requireDay(e, start, 'start', 1);
+  requireDay(e, end, 'end', 1);
+  if (end >= start) return e.countBetween(start, end);
+  const back = e.countBetween(end, start);
+  return back === 0 ? 0 : -back;
+}
+
+function monthKey(dayNumber: number): number {
+  return packedYmdUnchecked(dayNumber) >> 5;
+}
+
+/**
+ * Adjusts a date that may fall on a non-business day, by a business-day convention. The first three are the
+ * ISDA 2006 Definitions, section 4.12: `following` (the next business day), `modified-following` (the next
+ * business day unless it is in the next calendar month, then the preceding business day), `preceding` (the
+ * previous business day). `modified-preceding` (the previous business day unless it is in the previous month,
+ * then the following one) is common practice, not an ISDA 2006 term. `none` returns the date unchanged. A
+ * business day is never moved. When a modified convention finds no business day in the month on either side, a
+ * KalendsRangeError with code 'no-business-day' is thrown rather than leave the month.
+ *
+ * @example
+ * ```ts
+ * adjustDayNumber('us-federal', dayNumberFromYmd(2026, 1, 31), 'modified-following'); // 2026-01-30 (Saturday -> Friday: Monday is in February)
+ * ```
+ */
+export function adjustDayNumber(calendar: CalendarInput, dayNumber: number, convention: BusinessDayConvention): number {
+  const e = engineOf(calendar);
+  requireDay(e, dayNumber, 'dayNumber');
+  if (!BUSINESS_DAY_CONVENTIONS.includes(convention)) {
+    throw new KalendsRangeError(
+      `convention: expected one of ${BUSINESS_DAY_CONVENTIONS.join(', ')}, got ${describeValue(convention)}`,
+      { code: 'out-of-range', received: convention },
+    );
+  }
+  if (convention === 'none' || e.isBusinessDay(dayNumber)) return dayNumber;
+  if (convention === 'following') return e.shift(dayNumber, 1);
+  if (convention === 'preceding') return e.shift(dayNumber, -1);
+  const forward = convention === 'modified-following';
+  const month = monthKey(dayNumber);
+  const first = e.shift(dayNumber, forward ? 1 : -1);
+  if (monthKey(first) === month) return first;
+  const second = e.shift(dayNumber, forward ? -1 : 1);
+  if (monthKey(second) === month) return second;
+  throw new KalendsRangeError(
+    `${convention}: the month of ${isoDateFromDayNumber(dayNumber)} has no business day in calendar ${JSON.stringify(e.label)}, so the date cannot be adjusted within its month`,
+    { code: 'no-business-day', received: dayNumber },
+  );
+}
+
+/**
+ * The holidays observed in [start, end), in date order, with their names; each says where its rule put it
+ * (`actualDayNumber`) and whether it was moved off a weekend. A holiday is listed by the day it is observed: the
+ * United States New Year's Day of 2022 (a Saturday) is listed as 2021-12-31. Holidays that fall on a weekend day
+ * and are not moved are listed too (they do not change which days are business days).
+ *
+ * @example
+ * ```ts
+ * listHolidays('us-federal', dayNumberFromYmd(2021, 12, 1), dayNumberFromYmd(2022, 1, 1)).map((h) => h.date);
+ * // ['2021-12-24', '2021-12-31']
+ * ```
+ */
+export function listHolidays(calendar: CalendarInput, start: number, end: number): Holiday[] {
+  const e = engineOf(calendar);
+  requireDay(e, start, 'start', 1);
+  requireDay(e, end, 'end', 1);
+  if (end < start) {
+    throw new KalendsRangeError(`end: expected a day number not before start (${start}), got ${end}`, {
+      code: 'out-of-range',
+      received: end,
+    });
+  }
+  const out: Holiday[] = [];
+  if (end === start) return out;
+  const ya = Math.floor(packedYmdUnchecked(start) / 512) + MIN_YEAR;
+  const yb = Math.floor(packedYmdUnchecked(end - 1) / 512) + MIN_YEAR;
+  for (let y = ya; y <= yb; y++) {
+    for (const h of holidaysOfYear(e.node, y)) {
+      if (h.observed < start || h.observed >= end) continue;
+      out.push(
+        Object.freeze({
+          dayNumber: h.observed,
+          actualDayNumber: h.actual,
+          date: isoDateFromDayNumber(h.observed),
+          actualDate: isoDateFromDayNumber(h.actual),
+          name: h.name,
+          moved: h.observed !== h.actual,
+          oneOff: h.oneOff,
+          ruleId: h.ruleId,
+        }),
+      );
+    }
+  }
+  return out;
+}
+
+/**
+ * The nth business day in [start, end): n = 1 is the first, n = -1 the last, n = -2 the one before it. Throws a
+ * KalendsRangeError with code 'no-business-day' when the range holds fewer than |n| business days (check with
+ * {@link countBusinessDays} first when that can happen).
+ *
+ * @example
+ * ```ts
+ * nthBusinessDayInRange('us-federal', dayNumberFromYmd(2025, 5, 1), dayNumberFromYmd(2025, 6, 1), -1); // 2025-05-30
+ * ```
+ */
+export function nthBusinessDayInRange(calendar: CalendarInput, start: number, end: number, n: number): number {
+  const e = engineOf(calendar);
+  requireDay(e, start, 'start', 1);
+  requireDay(e, end, 'end', 1);
+  if (end < start) {
+    throw new KalendsRangeError(`end: expected a day number not before start (${start}), got ${end}`, {
+      code: 'out-of-range',
+      received: end,
+    });
+  }
+  requireInteger('n', n, -Number.MAX_SAFE_INTEGER, Number.MAX_SAFE_INTEGER);
+  if (n === 0) {
+    throw new KalendsRangeError('n: expected a non-zero integer (1 is the first business day, -1 the last), got 0', {
+      code: 'out-of-range',
+      received: n,
+    });
+  }
+  const available = e.countBetween(start, end);
+  if (Math.abs(n) > available) {
+    throw new KalendsRangeError(
+      `n: the range ${isoDateFromDayNumber(start)}..${isoDateFromDayNumber(end)} (end-exclusive) holds ${available} business days in calendar ${JSON.stringify(e.label)}, so there is no business day number ${n}`,
+      { code: 'no-business-day', received: n },
+    );
+  }
+  if (n > 0) {
+    const first = e.shift(start, 0); // the first business day on or after start
+    return n === 1 ? first : e.shift(first, n - 1);
+  }
+  const last = e.isBusinessDay(end - 1) ? end - 1 : e.shift(end - 1, -1);
+  return n === -1 ? last : e.shift(last, n + 1);
+}
+
+/** What {@link nthBusinessDayOfPeriod} needs of a period: its unit's first-day mapping and its ordinal. */
+export interface PeriodLike {
+  readonly unit: { firstDayNumberOf(ordinal: number): number };
+  readonly ordinal: number;
+}
+
+/**
+ * The nth business day of a period of the period layer (a month, a quarter, a fiscal year, a 4-4-5 period):
+ * n = 1 is the first, n = -1 the last. The period is [unit.firstDayNumberOf(ordinal),
+ * unit.firstDayNumberOf(ordinal + 1)).
+ *
+ * @example
+ * ```ts
+ * // The last business day (month-end close) of 2025-05, with the period layer's month unit:
+ * nthBusinessDayOfPeriod('us-federal', periodFromDayNumber(MONTH, dayNumberFromYmd(2025, 5, 1)), -1); // 2025-05-30
+ * ```
+ */
+export function nthBusinessDayOfPeriod(calendar: CalendarInput, period: PeriodLike, n: number): number {
+  const unit = typeof period === 'object' && period !== null ? period.unit : undefined;
+  if (!unit || typeof unit.firstDayNumberOf !== 'function' || typeof period.ordinal !== 'number') {
+    throw new KalendsTypeError(`period: expected a period { unit, ordinal } of the period layer, got ${describeValue(period)}`, {
+      code: 'invalid-type',
+      received: period,
+    });
+  }
+  const start = unit.firstDayNumberOf(period.ordinal);
+  const end = unit.firstDayNumberOf(period.ordinal + 1);
+  return nthBusinessDayInRange(calendar, start, end, n);
+}

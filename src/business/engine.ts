@@ -1,0 +1,248 @@
+/**
+ * @internal The compiled form of a business calendar: one bit per day (set = business day) in 12 words of 32 bits
+ * per year, plus a running count of business days before each word. A contiguous window of compiled years is
+ * kept (compiled lazily, bounded to MAX_WINDOW_YEARS); inside it, the business days before any day are one
+ * lookup and one popcount, and the kth business day is a binary search over the running counts, so counting and
+ * shifting never walk day by day. Spans longer than the window are handled in window-sized chunks.
+ *
+ * @module
+ */
+import {
+  dayNumberFromYmdUnchecked,
+  isLeapYearUnchecked,
+  weekdayOfDayNumberUnchecked,
+  yearOfDayNumberUnchecked,
+} from '../civil/gregorian.js';
+import { KalendsRangeError } from '../errors.js';
+import { isoDateFromDayNumber } from './dates.js';
+import { holidaysOfYear } from './rules.js';
+import type { CalendarNode } from './validate.js';
+
+/** Words of 32 days per compiled year (384 bits cover 366 days). */
+const WORDS = 12;
+/** Most years a calendar keeps compiled at once (about 100 bytes a year). */
+export const MAX_WINDOW_YEARS = 4096;
+/** Extra years compiled on each side when the window grows, so that nearby queries do not grow it again. */
+const MARGIN_YEARS = 8;
+/** Consecutive years without a business day after which a search gives up with a 'no-business-day' error. */
+export const MAX_EMPTY_YEARS = 100;
+
+/** Number of set bits in a 32-bit word. */
+export function popcount32(x: number): number {
+  x = x - ((x >>> 1) & 0x55555555);
+  x = (x & 0x33333333) + ((x >>> 2) & 0x33333333);
+  x = (x + (x >>> 4)) & 0x0f0f0f0f;
+  return Math.imul(x, 0x01010101) >>> 24;
+}
+
+/** @internal The compiled, cached state of one calendar. */
+export class Engine {
+  /** First year of the window. */
+  private lo = 0;
+  /** Years in the window (0 = empty). */
+  private count = 0;
+  private words = new Uint32Array(0);
+  /** cum[w] = business days in the window before word w; cum[count * 12] is the window's total. */
+  private cum = new Int32Array(1);
+
+  /** First supported day, and the day after the last one. */
+  readonly firstDay: number;
+  readonly endDay: number;
+
+  constructor(
+    readonly node: CalendarNode,
+    readonly label: string,
+    readonly firstYear: number,
+    readonly lastYear: number,
+  ) {
+    this.firstDay = dayNumberFromYmdUnchecked(firstYear, 1, 1);
+    this.endDay = dayNumberFromYmdUnchecked(lastYear + 1, 1, 1);
+  }
+
+  /** Compiles one year's bits into `words` at `offset`. */
+  private compileYear(year: number, words: Uint32Array, offset: number): void {
+    const start = dayNumberFromYmdUnchecked(year, 1, 1);
+    const len = isLeapYearUnchecked(year) ? 366 : 365;
+    const mask = this.node.weekendMask;
+    let wd = weekdayOfDayNumberUnchecked(start);
+    for (let k = 0; k < WORDS; k++) words[offset + k] = 0;
+    for (let doy = 0; doy < len; doy++) {
+      if ((mask & (1 << wd)) === 0) words[offset + (doy >> 5)]! |= 1 << (doy & 31);
+      wd = wd === 7 ? 1 : wd + 1;
+    }
+    for (const h of holidaysOfYear(this.node, year)) {
+      const doy = h.observed - start;
+      words[offset + (doy >> 5)]! &= ~(1 << (doy & 31));
+    }
+  }
+
+  /** Makes the window exactly [newLo, newHi], reusing compiled years that overlap. */
+  private setWindow(newLo: number, newHi: number): void {
+    const n = newHi - newLo + 1;
+    const words = new Uint32Array(n * WORDS);
+    for (let y = newLo; y <= newHi; y++) {
+      const old = y - this.lo;
+      if (this.count > 0 && old >= 0 && old < this.count) words.set(this.words.subarray(old * WORDS, old * WORDS + WORDS), (y - newLo) * WORDS);
+      else this.compileYear(y, words, (y - newLo) * WORDS);
+    }
+    const cum = new Int32Array(n * WORDS + 1);
+    let acc = 0;
+    for (let w = 0; w < n * WORDS; w++) {
+      cum[w] = acc;
+      acc += popcount32(words[w]!);
+    }
+    cum[n * WORDS] = acc;
+    this.lo = newLo;
+    this.count = n;
+    this.words = words;
+    this.cum = cum;
+  }
+
+  /** Ensures the window covers [yLo, yHi] (which must span at most MAX_WINDOW_YEARS years). */
+  ensure(yLo: number, yHi: number): void {
+    const hi = this.lo + this.count - 1;
+    if (this.count > 0 && yLo >= this.lo && yHi <= hi) return;
+    let newLo: number;
+    let newHi: number;
+    if (this.count > 0 && Math.max(hi, yHi) - Math.min(this.lo, yLo) + 1 <= MAX_WINDOW_YEARS) {
+      newLo = yLo < this.lo ? Math.max(this.firstYear, yLo - MARGIN_YEARS) : this.lo;
+      newHi = yHi > hi ? Math.min(this.lastYear, yHi + MARGIN_YEARS) : hi;
+    } else {
+      newLo = Math.max(this.firstYear, yLo - MARGIN_YEARS);
+      newHi = Math.min(this.lastYear, yHi + MARGIN_YEARS);
+    }
+    if (newHi - newLo + 1 > MAX_WINDOW_YEARS) {
+      // Keep the requested years; trim the margins.
+      newLo = Math.max(newLo, Math.min(yLo, newHi - MAX_WINDOW_YEARS + 1));
+      newHi = Math.min(newHi, newLo + MAX_WINDOW_YEARS - 1);
+    }
+    this.setWindow(newLo, newHi);
+  }
+
+  private get total(): number {
+    return this.cum[this.count * WORDS]!;
+  }
+
+  /** Business days in the window before `dn` (dn's year in the window, or dn the first day after it). */
+  private rank(dn: number): number {
+    const y = yearOfDayNumberUnchecked(dn);
+    const yi = y - this.lo;
+    if (yi === this.count) return this.total;
+    const doy = dn - dayNumberFromYmdUnchecked(y, 1, 1);
+    const w = yi * WORDS + (doy >> 5);
+    const b = doy & 31;
+    return this.cum[w]! + (b === 0 ? 0 : popcount32(this.words[w]! & (0xffffffff >>> (32 - b))));
+  }
+
+  /** Whether `dn` (in the window) is a business day. */
+  private bit(dn: number): boolean {
+    const y = yearOfDayNumberUnchecked(dn);
+    const doy = dn - dayNumberFromYmdUnchecked(y, 1, 1);
+    return ((this.words[(y - this.lo) * WORDS + (doy >> 5)]! >>> (doy & 31)) & 1) === 1;
+  }
+
+  /** The day of the business day with index k (0 <= k < total) in the window. */
+  private select(k: number): number {
+    const cum = this.cum;
+    let a = 0;
+    let b = this.count * WORDS - 1;
+    while (a < b) {
+      const mid = (a + b + 1) >> 1;
+      if (cum[mid]! <= k) a = mid;
+      else b = mid - 1;
+    }
+    let x = this.words[a]!;
+    for (let r = k - cum[a]!; r > 0; r--) x &= x - 1;
+    const bit = 31 - Math.clz32(x & -x);
+    const yi = (a / WORDS) | 0;
+    return dayNumberFromYmdUnchecked(this.lo + yi, 1, 1) + (a - yi * WORDS) * 32 + bit;
+  }
+
+  isBusinessDay(dn: number): boolean {
+    const y = yearOfDayNumberUnchecked(dn);
+    this.ensure(y, y);
+    return this.bit(dn);
+  }
+
+  /**
+   * The business day n business days from dn: n > 0 counts business days strictly after dn, n < 0 strictly
+   * before, n = 0 gives dn if it is a business day, else the next one.
+   */
+  shift(dn: number, n: number): number {
+    const y = yearOfDayNumberUnchecked(dn);
+    this.ensure(y, y);
+    if (n > 0 || (n === 0 && !this.bit(dn))) {
+      let k = this.rank(dn) + (this.bit(dn) ? 1 : 0) + Math.max(n, 1) - 1;
+      let emptyYears = 0;
+      while (k >= this.total) {
+        const hi = this.lo + this.count - 1;
+        if (hi >= this.lastYear) throw this.pastEnd(dn, n, 'last', this.lastYear);
+        const need = k - this.total + 1;
+        const add = Math.min(this.lastYear - hi, Math.max(MARGIN_YEARS, Math.ceil(need / 366) + 1), MAX_WINDOW_YEARS);
+        const before = this.total;
+        if (hi + add - this.lo + 1 <= MAX_WINDOW_YEARS) this.setWindow(this.lo, hi + add);
+        else {
+          k -= this.total;
+          this.setWindow(hi + 1, hi + add);
+        }
+        const gained = this.count > 0 && this.lo === hi + 1 ? this.total : this.total - before;
+        emptyYears = gained === 0 ? emptyYears + add : 0;
+        if (emptyYears >= MAX_EMPTY_YEARS) throw this.noBusinessDay(dn, 'after');
+      }
+      return this.select(k);
+    }
+    if (n === 0) return dn;
+    let k = this.rank(dn) + n;
+    let emptyYears = 0;
+    while (k < 0) {
+      if (this.lo <= this.firstYear) throw this.pastEnd(dn, n, 'first', this.firstYear);
+      const add = Math.min(this.lo - this.firstYear, Math.max(MARGIN_YEARS, Math.ceil(-k / 366) + 1), MAX_WINDOW_YEARS);
+      const hi = this.lo + this.count - 1;
+      const before = this.total;
+      let gained: number;
+      if (hi - (this.lo - add) + 1 <= MAX_WINDOW_YEARS) {
+        this.setWindow(this.lo - add, hi);
+        gained = this.total - before;
+      } else {
+        this.setWindow(this.lo - add, this.lo - 1);
+        gained = this.total;
+      }
+      k += gained;
+      emptyYears = gained === 0 ? emptyYears + add : 0;
+      if (emptyYears >= MAX_EMPTY_YEARS) throw this.noBusinessDay(dn, 'before');
+    }
+    return this.select(k);
+  }
+
+  /** Business days in [a, b), a <= b; b may be the first day after the last supported year. */
+  countBetween(a: number, b: number): number {
+    if (a >= b) return 0;
+    const ya = yearOfDayNumberUnchecked(a);
+    const yb = yearOfDayNumberUnchecked(b - 1);
+    if (yb - ya + 1 <= MAX_WINDOW_YEARS) {
+      this.ensure(ya, yb);
+      return this.rank(b) - this.rank(a);
+    }
+    let sum = 0;
+    for (let chunk = ya; chunk <= yb; chunk += MAX_WINDOW_YEARS) {
+      const chunkHi = Math.min(yb, chunk + MAX_WINDOW_YEARS - 1);
+      this.setWindow(chunk, chunkHi);
+      sum += (chunkHi === yb ? this.rank(b) : this.total) - (chunk === ya ? this.rank(a) : 0);
+    }
+    return sum;
+  }
+
+  private pastEnd(dn: number, n: number, which: 'first' | 'last', year: number): KalendsRangeError {
+    return new KalendsRangeError(
+      `shifting ${isoDateFromDayNumber(dn)} by ${n} business days passes the ${which} year (${year}) that calendar ${JSON.stringify(this.label)} supports`,
+      { code: 'out-of-range', received: n },
+    );
+  }
+
+  private noBusinessDay(dn: number, where: 'after' | 'before'): KalendsRangeError {
+    return new KalendsRangeError(
+      `calendar ${JSON.stringify(this.label)} has no business day within ${MAX_EMPTY_YEARS} years ${where} ${isoDateFromDayNumber(dn)}; its holidays cover every weekday`,
+      { code: 'no-business-day', received: dn },
+    );
+  }
+}
