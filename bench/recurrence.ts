@@ -1,4 +1,80 @@
+import { Temporal } from 'temporal-polyfill';
+import { type BusinessCalendar, defineCalendar, defineRule, formatPlainDate, listHolidays, occurrenceBulk, parsePlainDate } from '../src/index.js';
 import type { Benchmark } from './harness.js';
 
-/** Benchmarks of this layer (none yet). Each is a factory so that its data is made only when it runs. */
-export const benchmarks: readonly (() => Benchmark)[] = [];
+/** Holidays of `calendar` in [start, end) as ISO strings: what a user's loop would check against. */
+function holidaySet(calendar: BusinessCalendar | string, start: string, end: string): Set<string> {
+  return new Set(listHolidays(calendar as BusinessCalendar, parsePlainDate(start), parsePlainDate(end)).map((h) => formatPlainDate(h.dayNumber)));
+}
+
+/**
+ * The business month ends of 1900-2100 (2,412 months) on a calendar with a Saturday-Sunday weekend, New Year's
+ * Day and Christmas Day (observed on the nearest weekday), defined for those years.
+ */
+function businessMonthEnds(): Benchmark {
+  const calendar = defineCalendar({
+    id: 'bench-weekends-and-two-holidays',
+    years: { from: 1899, until: 2101 },
+    observance: { saturday: 'previous-weekday', sunday: 'next-weekday' },
+    holidays: [
+      { id: 'new-year', name: "New Year's Day", kind: 'fixed', month: 1, day: 1 },
+      { id: 'christmas', name: 'Christmas Day', kind: 'fixed', month: 12, day: 25 },
+    ],
+  });
+  const rule = defineRule({ kind: 'monthly', on: { businessDay: 'last' }, calendar });
+  const holidays = holidaySet(calendar, '1899-12-01', '2101-02-01');
+  const months = (2100 - 1900 + 1) * 12;
+  return {
+    name: 'recurrence-business-month-ends',
+    description: 'last business day of every month, 1900-2100 (weekends + 2 observed holidays)',
+    elements: months,
+    unit: 'produced date',
+    ours: { name: 'kalends occurrenceBulk', run: () => occurrenceBulk(rule, '1900-01-01', '2101-01-01') },
+    baselines: [
+      {
+        name: 'Temporal.PlainDate loop (temporal-polyfill)',
+        run: () => {
+          const out: string[] = [];
+          for (let y = 1900; y <= 2100; y++) {
+            for (let m = 1; m <= 12; m++) {
+              let d = Temporal.PlainDate.from({ year: y, month: m, day: 1 }).add({ months: 1 }).subtract({ days: 1 });
+              while (d.dayOfWeek > 5 || holidays.has(d.toString())) d = d.subtract({ days: 1 });
+              out.push(d.toString());
+            }
+          }
+          return out;
+        },
+      },
+    ],
+  };
+}
+
+/** Every business day of 2000-2050 on the bundled US federal calendar (12,8xx dates over 18,628 days). */
+function usFederalBusinessDays(): Benchmark {
+  const rule = defineRule({ kind: 'business-days', calendar: 'us-federal' });
+  const holidays = holidaySet('us-federal', '2000-01-01', '2051-01-01');
+  const produced = occurrenceBulk(rule, '2000-01-01', '2051-01-01').length;
+  return {
+    name: 'recurrence-us-federal-business-days',
+    description: 'every business day of 2000-2050 on the US federal calendar',
+    elements: produced,
+    unit: 'produced date',
+    ours: { name: 'kalends occurrenceBulk', run: () => occurrenceBulk(rule, '2000-01-01', '2051-01-01') },
+    baselines: [
+      {
+        name: 'Temporal.PlainDate loop (temporal-polyfill)',
+        run: () => {
+          const out: string[] = [];
+          const end = Temporal.PlainDate.from('2051-01-01');
+          for (let d = Temporal.PlainDate.from('2000-01-01'); Temporal.PlainDate.compare(d, end) < 0; d = d.add({ days: 1 })) {
+            if (d.dayOfWeek <= 5 && !holidays.has(d.toString())) out.push(d.toString());
+          }
+          return out;
+        },
+      },
+    ],
+  };
+}
+
+/** Benchmarks of this layer. Each is a factory so that its data is made only when it runs. */
+export const benchmarks: readonly (() => Benchmark)[] = [businessMonthEnds, usFederalBusinessDays];

@@ -7,6 +7,7 @@ import { section as instant } from './sections/instant.js';
 import { section as zone } from './sections/zone.js';
 import { section as period } from './sections/period.js';
 import { section as business } from './sections/business.js';
+import { section as recurrence } from './sections/recurrence.js';
 
 /** One part of the demo. `print` writes a line. */
 export interface DemoSection {
@@ -14,7 +15,7 @@ export interface DemoSection {
   run(print: (line: string) => void): void | Promise<void>;
 }
 
-const sections: readonly DemoSection[] = [civil, instant, zone, period, business];
+const sections: readonly DemoSection[] = [civil, instant, zone, period, business, recurrence];
 
 async function main(): Promise<void> {
   console.log(`kalends demo: ${COMPANY}`);

@@ -1,1 +1,50 @@
-export {};
+/**
+ * Public surface of the recurrence layer: frequency rules as plain data, their expansion into dates and
+ * instants, finance schedules with stubs, and RFC 5545 recurrence text.
+ */
+export type {
+  WeekdayInput,
+  DateInput,
+  InstantInput,
+  RuleCalendarInput,
+  WhenShort,
+  DaySelector,
+  DateRuleCommon,
+  DaysRuleDefinition,
+  BusinessDaysRuleDefinition,
+  WeeklyRuleDefinition,
+  MonthlyRuleDefinition,
+  SemiMonthlyRuleDefinition,
+  AnchoredMonthRuleDefinition,
+  PeriodsRuleDefinition,
+  IntradayRuleDefinition,
+  Rfc5545Frequency,
+  Rfc5545WeekdayNum,
+  Rfc5545RuleDefinition,
+  RuleDefinition,
+  RuleKind,
+  Rule,
+} from './types.js';
+export {
+  type RangeOptions,
+  type IterateOptions,
+  type StepOptions,
+  defineRule,
+  listOccurrences,
+  listFirstOccurrences,
+  iterateOccurrences,
+  nextOccurrence,
+  previousOccurrence,
+  matchesRule,
+  occurrenceBulk,
+} from './generate.js';
+export { type ParseRecurrenceOptions, type FormatRecurrenceOptions, parseRecurrenceRule, formatRecurrenceRule } from './rfc5545.js';
+export {
+  type StubPlacement,
+  type ScheduleStep,
+  type ScheduleOptions,
+  type SchedulePeriod,
+  type Schedule,
+  buildSchedule,
+} from './schedule.js';
+export { describeRule } from './describe.js';

@@ -1,0 +1,477 @@
+/**
+ * @internal The expansion engines behind every rule. An engine writes its raw occurrences in a half-open range
+ * `[lo, hi)` in strictly increasing order, computing each one directly (anchor + n x step, or the n-th period's
+ * selected day): nothing is found by adding a step repeatedly, and every loop is bounded by the range.
+ *
+ * Units are day numbers for date engines and epoch milliseconds for instant engines.
+ *
+ * @module
+ */
+import {
+  dayNumberFromYmdUnchecked,
+  daysInMonthUnchecked,
+  packedYmdUnchecked,
+  weekdayOfDayNumberUnchecked,
+} from '../civil/gregorian.js';
+import { MAX_DAY_NUMBER, MIN_DAY_NUMBER, MIN_YEAR, MS_PER_DAY } from '../bounds.js';
+
+/** A growable buffer of numbers: one allocation per doubling, none per element. */
+export class Sink {
+  data: Float64Array;
+  length = 0;
+  constructor(capacity = 64) {
+    this.data = new Float64Array(Math.max(4, capacity));
+  }
+  push(v: number): void {
+    if (this.length === this.data.length) {
+      const next = new Float64Array(this.data.length * 2);
+      next.set(this.data);
+      this.data = next;
+    }
+    this.data[this.length++] = v;
+  }
+  clear(): void {
+    this.length = 0;
+  }
+  last(): number {
+    return this.length > 0 ? this.data[this.length - 1]! : Number.NaN;
+  }
+}
+
+/** A raw occurrence generator. */
+export interface Engine {
+  /** Appends the occurrences in [lo, hi) in strictly increasing order. */
+  fill(lo: number, hi: number, out: Sink): void;
+  /** Typical distance between occurrences (units), to size search windows. */
+  readonly stride: number;
+  /**
+   * An upper bound on the distance between consecutive occurrences when one is proven (units); otherwise
+   * Infinity, and searches give up after a bounded distance with a typed error.
+   */
+  readonly maxGap: number;
+}
+
+/** What a rule needs from a business calendar. */
+export interface BusinessOps {
+  readonly id: string;
+  /** The calendar answers for days in [firstDay, endDay). */
+  readonly firstDay: number;
+  readonly endDay: number;
+  isBusinessDay(dayNumber: number): boolean;
+  adjust(dayNumber: number, convention: string): number;
+  /** Business days in [start, end). */
+  countBusinessDays(start: number, end: number): number;
+  /** The n-th business day in [start, end) (n < 0 counts from the end), or undefined. For checks only. */
+  nthBusinessDayInRange(start: number, end: number, n: number): number | undefined;
+  /** The compiled calendar, for definitions that are serialized again. */
+  readonly calendar: unknown;
+}
+
+/** What a rule needs from a period unit. */
+export interface PeriodOps {
+  readonly id: string;
+  ordinalOf(dayNumber: number): number;
+  firstDayOf(ordinal: number): number;
+  readonly unit: unknown;
+}
+
+/** What a rule needs from a zone. */
+export interface ZoneOps {
+  readonly id: string;
+  offsetSecondsAt(epochMs: number): number;
+  readonly zone: unknown;
+}
+
+/** Floor modulo for any integers. */
+export function mod(a: number, n: number): number {
+  const r = a % n;
+  return r < 0 ? r + n : r;
+}
+
+function gcd(a: number, b: number): number {
+  while (b !== 0) [a, b] = [b, a % b];
+  return Math.abs(a);
+}
+
+/** Months in one 400-year Gregorian cycle: the calendar (and its weekdays) repeats after it. */
+export const CYCLE_MONTHS = 4800;
+/** Days in one 400-year Gregorian cycle (146,097 = 20,871 weeks). */
+export const CYCLE_DAYS = 146_097;
+/** Index of the month that holds a day number: year * 12 + (month - 1). */
+export function monthIndexOf(dayNumber: number): number {
+  const p = packedYmdUnchecked(dayNumber);
+  return (Math.floor(p / 512) + MIN_YEAR) * 12 + ((p >> 5) & 15) - 1;
+}
+/** First day number of month index `mi`. */
+export function firstDayOfMonthIndex(mi: number): number {
+  const y = Math.floor(mi / 12);
+  return dayNumberFromYmdUnchecked(y, mi - y * 12 + 1, 1);
+}
+/** Length in days of month index `mi`. */
+export function lengthOfMonthIndex(mi: number): number {
+  const y = Math.floor(mi / 12);
+  return daysInMonthUnchecked(y, mi - y * 12 + 1);
+}
+const MIN_MONTH_INDEX = monthIndexOf(MIN_DAY_NUMBER);
+const MAX_MONTH_INDEX = monthIndexOf(MAX_DAY_NUMBER);
+
+// ---------------------------------------------------------------------------------------------------------------
+// Day selectors
+
+/** A compiled day selector. `kind` 0 = day of period, 1 = nth weekday, 2 = nth business day. */
+export interface Selector {
+  readonly kind: 0 | 1 | 2;
+  /** Day (1-based, negative from the end), weekday ordinal, or business-day ordinal. */
+  readonly n: number;
+  /** ISO weekday for kind 1. */
+  readonly weekday: number;
+  /** For kind 0: move a missing day to the last (or first) day instead of skipping the period. */
+  readonly clamp: boolean;
+}
+
+/** Marks "no day selected". */
+export const NONE = Number.MIN_SAFE_INTEGER;
+
+/** The day `s` picks in the period [first, end), or NONE. */
+export function pickDay(s: Selector, first: number, end: number, business: BusinessOps | undefined): number {
+  if (s.kind === 0) {
+    if (s.n > 0) {
+      const d = first + s.n - 1;
+      return d < end ? d : s.clamp ? end - 1 : NONE;
+    }
+    const d = end + s.n;
+    return d >= first ? d : s.clamp ? first : NONE;
+  }
+  if (s.kind === 1) {
+    if (s.n > 0) {
+      const d = first + mod(s.weekday - weekdayOfDayNumberUnchecked(first), 7) + 7 * (s.n - 1);
+      return d < end ? d : NONE;
+    }
+    const d = end - 1 - mod(weekdayOfDayNumberUnchecked(end - 1) - s.weekday, 7) + 7 * (s.n + 1);
+    return d >= first ? d : NONE;
+  }
+  const cal = business!;
+  let seen = 0;
+  if (s.n > 0) {
+    for (let d = first; d < end; d++) if (cal.isBusinessDay(d) && ++seen === s.n) return d;
+  } else {
+    for (let d = end - 1; d >= first; d--) if (cal.isBusinessDay(d) && ++seen === -s.n) return d;
+  }
+  return NONE;
+}
+
+/** Writes the days that `selectors` pick in [first, end), restricted to [lo, hi), sorted and distinct. */
+function emitSelected(
+  selectors: readonly Selector[],
+  first: number,
+  end: number,
+  lo: number,
+  hi: number,
+  business: BusinessOps | undefined,
+  scratch: number[],
+  out: Sink,
+): void {
+  if (selectors.length === 1) {
+    const d = pickDay(selectors[0]!, first, end, business);
+    if (d !== NONE && d >= lo && d < hi) out.push(d);
+    return;
+  }
+  scratch.length = 0;
+  for (const s of selectors) {
+    const d = pickDay(s, first, end, business);
+    if (d !== NONE) scratch.push(d);
+  }
+  scratch.sort((a, b) => a - b);
+  let prev = NONE;
+  for (const d of scratch) {
+    if (d !== prev && d >= lo && d < hi) out.push(d);
+    prev = d;
+  }
+}
+
+function selectsSomething(selectors: readonly Selector[], first: number, end: number, business: BusinessOps | undefined): boolean {
+  for (const s of selectors) if (pickDay(s, first, end, business) !== NONE) return true;
+  return false;
+}
+
+// ---------------------------------------------------------------------------------------------------------------
+// Date engines
+
+/** Every `step` days from `anchor`. */
+export function daysEngine(anchor: number, step: number): Engine {
+  return {
+    stride: step,
+    maxGap: step,
+    fill(lo, hi, out) {
+      let k = Math.ceil((lo - anchor) / step);
+      for (let d = anchor + k * step; d < hi; d = anchor + ++k * step) out.push(d);
+    },
+  };
+}
+
+/** Every `step` business days, counting the first business day on or after `anchor` as number 0. */
+export function businessDaysEngine(cal: BusinessOps, anchor: number, step: number): Engine {
+  return {
+    stride: step * 1.4,
+    maxGap: Number.POSITIVE_INFINITY,
+    fill(lo, hi, out) {
+      if (step === 1) {
+        for (let d = lo; d < hi; d++) if (cal.isBusinessDay(d)) out.push(d);
+        return;
+      }
+      // Index (in business days from the anchor) of the first business day on or after lo.
+      let index = lo >= anchor ? cal.countBusinessDays(anchor, lo) : -cal.countBusinessDays(lo, anchor);
+      for (let d = lo; d < hi; d++) {
+        if (!cal.isBusinessDay(d)) continue;
+        if (mod(index, step) === 0) out.push(d);
+        index++;
+      }
+    },
+  };
+}
+
+/** On the given weekday offsets (0..6 from the week start) of every `step`-th week from the week starting `weekZero`. */
+export function weeklyEngine(weekZero: number, offsets: readonly number[], step: number): Engine {
+  const span = 7 * step;
+  return {
+    stride: span / offsets.length,
+    maxGap: span,
+    fill(lo, hi, out) {
+      let k = Math.floor((lo - weekZero) / span);
+      for (let base = weekZero + k * span; base < hi; base = weekZero + ++k * span) {
+        for (const off of offsets) {
+          const d = base + off;
+          if (d >= lo && d < hi) out.push(d);
+        }
+      }
+    },
+  };
+}
+
+/**
+ * Days picked by `selectors` in every `step`-th month (month index congruent to `phase` modulo `step`), among
+ * the months of the year in `monthMask` (bit m set for month m; 0 = all).
+ */
+export function monthsEngine(
+  step: number,
+  phase: number,
+  monthMask: number,
+  selectors: readonly Selector[],
+  business: BusinessOps | undefined,
+  maxGapMonths: number,
+): Engine {
+  const scratch: number[] = [];
+  return {
+    stride: (30.44 * step) / selectors.length,
+    maxGap: Number.isFinite(maxGapMonths) ? (maxGapMonths + 1) * 31 : Number.POSITIVE_INFINITY,
+    fill(lo, hi, out) {
+      if (lo >= hi) return;
+      const miLo = Math.max(monthIndexOf(lo), MIN_MONTH_INDEX);
+      const miHi = Math.min(monthIndexOf(hi - 1), MAX_MONTH_INDEX);
+      for (let mi = miLo + mod(phase - miLo, step); mi <= miHi; mi += step) {
+        const y = Math.floor(mi / 12);
+        const m = mi - y * 12 + 1;
+        if (monthMask !== 0 && ((monthMask >> m) & 1) === 0) continue;
+        const first = dayNumberFromYmdUnchecked(y, m, 1);
+        emitSelected(selectors, first, first + daysInMonthUnchecked(y, m), lo, hi, business, scratch, out);
+      }
+    },
+  };
+}
+
+/**
+ * Proves whether a months engine can produce a date, by checking every candidate month of one full 400-year
+ * Gregorian cycle (the calendar and its weekdays repeat after 4,800 months), and returns the longest run of
+ * candidate months without one (in months), or -1 when no month in the cycle produces a date.
+ * Business-day selectors are checked as if every weekday were a business day (their calendar is not periodic).
+ */
+export function monthsCycleGap(step: number, phase: number, monthMask: number, selectors: readonly Selector[]): number {
+  const civil = selectors.map((s) => (s.kind === 2 ? { ...s, kind: 0 as const, clamp: false, n: s.n > 0 ? 1 : -1 } : s));
+  const candidates = CYCLE_MONTHS / gcd(step, CYCLE_MONTHS);
+  const base = 2000 * 12 + mod(phase - 2000 * 12, step);
+  let firstHit = -1;
+  let lastHit = -1;
+  let maxGap = 0;
+  for (let k = 0; k < candidates; k++) {
+    const mi = base + k * step;
+    const m = mod(mi, 12) + 1;
+    if (monthMask !== 0 && ((monthMask >> m) & 1) === 0) continue;
+    const first = firstDayOfMonthIndex(mi);
+    if (!selectsSomething(civil, first, first + lengthOfMonthIndex(mi), undefined)) continue;
+    if (firstHit < 0) firstHit = k;
+    else maxGap = Math.max(maxGap, k - lastHit);
+    lastHit = k;
+  }
+  if (firstHit < 0) return -1;
+  maxGap = Math.max(maxGap, firstHit + candidates - lastHit);
+  return maxGap * step;
+}
+
+/** Days picked by `selectors` in every `step`-th period of a unit, counting from period `phase`. */
+export function periodsEngine(
+  unit: PeriodOps,
+  step: number,
+  phase: number,
+  selectors: readonly Selector[],
+  business: BusinessOps | undefined,
+  stride: number,
+  maxGap: number,
+): Engine {
+  const scratch: number[] = [];
+  return {
+    stride,
+    maxGap,
+    fill(lo, hi, out) {
+      if (lo >= hi) return;
+      const oLo = unit.ordinalOf(lo);
+      const oHi = unit.ordinalOf(hi - 1);
+      for (let o = oLo + mod(phase - oLo, step); o <= oHi; o += step) {
+        emitSelected(selectors, unit.firstDayOf(o), unit.firstDayOf(o + 1), lo, hi, business, scratch, out);
+      }
+    },
+  };
+}
+
+/**
+ * Checks the candidate periods of one 400-year cycle from `anchorOrdinal` (at most 146,097 of them) and returns
+ * the longest distance in days between producing periods, or -1 when none produces a date. Business-day
+ * selectors are checked as in {@link monthsCycleGap}.
+ */
+export function periodsCycleGap(unit: PeriodOps, step: number, anchorOrdinal: number, selectors: readonly Selector[]): number {
+  const civil = selectors.map((s) => (s.kind === 2 ? { ...s, kind: 0 as const, clamp: false, n: s.n > 0 ? 1 : -1 } : s));
+  const startDay = unit.firstDayOf(anchorOrdinal);
+  const stopDay = startDay + CYCLE_DAYS * step;
+  let last = Number.NaN;
+  let first = Number.NaN;
+  let gap = 0;
+  let count = 0;
+  for (let o = anchorOrdinal; count < CYCLE_DAYS; o += step, count++) {
+    const a = unit.firstDayOf(o);
+    if (a >= stopDay) break;
+    const b = unit.firstDayOf(o + 1);
+    if (!selectsSomething(civil, a, b, undefined)) continue;
+    if (Number.isNaN(first)) first = a;
+    else gap = Math.max(gap, a - last);
+    last = a;
+  }
+  if (Number.isNaN(first)) return -1;
+  return Math.max(gap, first + (stopDay - startDay) - last) + 62;
+}
+
+// ---------------------------------------------------------------------------------------------------------------
+// Instants
+
+/** How a wall-clock time maps to instants in a zone: one instant, a gap, or an overlap with two. */
+export interface WallResolution {
+  /** 0 = unique, 1 = in a gap (skipped), 2 = in an overlap (repeated). */
+  readonly state: 0 | 1 | 2;
+  /** Unique: the instant; gap: the instant shifted forward by the gap; overlap: the earlier instant. */
+  readonly earlier: number;
+  /** Overlap: the later instant; otherwise the same as `earlier`. */
+  readonly later: number;
+}
+
+const resolution = { state: 0 as 0 | 1 | 2, earlier: 0, later: 0 };
+
+/**
+ * Resolves a wall time by probing the zone's offsets a day before and after (the approach of Temporal's
+ * GetPossibleEpochNanoseconds), so that only `offsetSecondsAt` is needed. Returns a shared object: copy it.
+ */
+export function resolveWall(zone: ZoneOps, wallMs: number): WallResolution {
+  const before = zone.offsetSecondsAt(wallMs - MS_PER_DAY) * 1000;
+  const after = zone.offsetSecondsAt(wallMs + MS_PER_DAY) * 1000;
+  const e1 = wallMs - before;
+  const e2 = wallMs - after;
+  const ok1 = zone.offsetSecondsAt(e1) * 1000 === before;
+  const ok2 = before !== after && zone.offsetSecondsAt(e2) * 1000 === after;
+  if (ok1 && ok2) {
+    resolution.state = 2;
+    resolution.earlier = Math.min(e1, e2);
+    resolution.later = Math.max(e1, e2);
+  } else if (ok1 || ok2) {
+    resolution.state = 0;
+    resolution.earlier = resolution.later = ok1 ? e1 : e2;
+  } else if (before === after) {
+    // Two transitions within two days: fall back to the offset at the first guess.
+    const e = wallMs - zone.offsetSecondsAt(e1) * 1000;
+    resolution.state = 0;
+    resolution.earlier = resolution.later = e;
+  } else {
+    // In a gap: read the wall time with the offset in force before the gap (RFC 5545 section 3.3.5; Temporal
+    // 'compatible'), which lands after the transition by the length of the gap.
+    resolution.state = 1;
+    resolution.earlier = resolution.later = e1;
+  }
+  return resolution;
+}
+
+/** Fixed steps of absolute time from `anchorMs`. */
+export function elapsedEngine(anchorMs: number, stepMs: number): Engine {
+  return {
+    stride: stepMs,
+    maxGap: stepMs,
+    fill(lo, hi, out) {
+      let k = Math.ceil((lo - anchorMs) / stepMs);
+      for (let t = anchorMs + k * stepMs; t < hi; t = anchorMs + ++k * stepMs) out.push(t);
+    },
+  };
+}
+
+/** Steps of wall-clock time from `anchorWallMs`, resolved in `zone` with the stated gap and overlap rules. */
+export function wallClockEngine(zone: ZoneOps, anchorWallMs: number, stepMs: number, dropSkipped: boolean, repeatTwice: boolean): Engine {
+  const scratch: number[] = [];
+  return {
+    stride: stepMs,
+    // A step can vanish in a gap (dropped) and gaps are shorter than a day.
+    maxGap: stepMs + MS_PER_DAY,
+    fill(lo, hi, out) {
+      if (lo >= hi) return;
+      // Every instant in [lo, hi) has a wall time within a day of it (offsets are below 24 hours).
+      const wLo = lo - MS_PER_DAY;
+      const wHi = hi + MS_PER_DAY;
+      scratch.length = 0;
+      let k = Math.ceil((wLo - anchorWallMs) / stepMs);
+      for (let w = anchorWallMs + k * stepMs; w < wHi; w = anchorWallMs + ++k * stepMs) {
+        const r = resolveWall(zone, w);
+        if (r.state === 1 && dropSkipped) continue;
+        if (r.earlier >= lo && r.earlier < hi) scratch.push(r.earlier);
+        if (r.state === 2 && repeatTwice && r.later >= lo && r.later < hi) scratch.push(r.later);
+      }
+      let sorted = true;
+      for (let i = 1; i < scratch.length; i++) if (scratch[i]! < scratch[i - 1]!) sorted = false;
+      if (!sorted) scratch.sort((a, b) => a - b);
+      let prev = Number.NaN;
+      for (const t of scratch) {
+        if (t !== prev) out.push(t);
+        prev = t;
+      }
+    },
+  };
+}
+
+/**
+ * Instants at wall time `timeOfDayMs` on the days of a date engine, resolved in `zone` (a gap moves the time
+ * forward, an overlap takes the earlier instant: RFC 5545 section 3.3.5).
+ */
+export function timeOfDayEngine(days: Engine, zone: ZoneOps, timeOfDayMs: number): Engine {
+  const buffer = new Sink(64);
+  return {
+    stride: days.stride * MS_PER_DAY,
+    maxGap: days.maxGap * MS_PER_DAY + MS_PER_DAY,
+    fill(lo, hi, out) {
+      if (lo >= hi) return;
+      buffer.clear();
+      const dLo = Math.max(Math.floor(lo / MS_PER_DAY) - 2, MIN_DAY_NUMBER);
+      const dHi = Math.min(Math.floor(hi / MS_PER_DAY) + 3, MAX_DAY_NUMBER + 1);
+      days.fill(dLo, dHi, buffer);
+      let prev = Number.NaN;
+      for (let i = 0; i < buffer.length; i++) {
+        const t = resolveWall(zone, buffer.data[i]! * MS_PER_DAY + timeOfDayMs).earlier;
+        if (t >= lo && t < hi && !(t <= prev)) {
+          out.push(t);
+          prev = t;
+        }
+      }
+    },
+  };
+}

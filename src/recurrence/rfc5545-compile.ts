@@ -1,0 +1,458 @@
+/**
+ * @internal Expansion of RFC 5545 recurrence rules (section 3.3.10) for the date-level frequencies (DAILY,
+ * WEEKLY, MONTHLY, YEARLY) and fixed steps for HOURLY and MINUTELY.
+ *
+ * Each period of the frequency (a year, month, week or day, every INTERVAL-th one counted from DTSTART's) is
+ * expanded to the days that satisfy every BYxxx part at once; this intersection is what the RFC's table of
+ * "expand" and "limit" behaviours produces for date-level parts. Missing day information comes from DTSTART as
+ * the RFC says. BYSETPOS then picks positions in each period's sorted set.
+ *
+ * @module
+ */
+import { MAX_DAY_NUMBER, MAX_EPOCH_MS, MIN_DAY_NUMBER, MIN_YEAR, MS_PER_DAY } from '../bounds.js';
+import { describeValue } from '../errors.js';
+import {
+  dayNumberFromYmdUnchecked,
+  daysInMonthUnchecked,
+  isLeapYearUnchecked,
+  packedYmdUnchecked,
+  weekdayOfDayNumberUnchecked,
+} from '../civil/gregorian.js';
+import type { Compiled } from './compile.js';
+import { MAX_COUNT } from './compile.js';
+import { type Engine, type ZoneOps, CYCLE_DAYS, elapsedEngine, mod, monthIndexOf, resolveWall, timeOfDayEngine } from './engine.js';
+import { parseInstant, parsePlainDate, parsePlainDateTime, zoneOps } from './deps.js';
+import { Issues, WEEKDAY_NAMES, checkKeys, readEnum, readInt } from './validate.js';
+import type { Rfc5545Frequency, WeekdayName } from './types.js';
+
+/** A zone of offset 0 for DTSTART values in UTC and for floating times. */
+export const UTC_OPS: ZoneOps = { id: 'UTC', zone: undefined, offsetSecondsAt: () => 0 };
+
+const FREQUENCIES: readonly Rfc5545Frequency[] = ['yearly', 'monthly', 'weekly', 'daily', 'hourly', 'minutely'];
+
+/** The date-level parts of a rule, compiled. */
+export interface RfcDaySpec {
+  readonly frequency: 'yearly' | 'monthly' | 'weekly' | 'daily';
+  readonly interval: number;
+  readonly startDay: number;
+  readonly byMonthMask: number;
+  readonly byWeekNo: readonly number[] | undefined;
+  readonly byYearDay: readonly number[] | undefined;
+  readonly byMonthDay: readonly number[] | undefined;
+  /** Bit w set: every weekday w (no ordinal). */
+  readonly byDayMask: number;
+  readonly byDayNth: readonly { readonly weekday: number; readonly nth: number }[] | undefined;
+  readonly bySetPos: readonly number[] | undefined;
+  readonly weekStart: number;
+}
+
+function yearOf(dn: number): number {
+  return Math.floor(packedYmdUnchecked(dn) / 512) + MIN_YEAR;
+}
+
+/** First day of week 1 of `year` for weeks starting on `weekStart`: the week holding January 4 (RFC 5545 BYWEEKNO, ISO 8601). */
+function week1Start(year: number, weekStart: number): number {
+  const jan4 = dayNumberFromYmdUnchecked(year, 1, 4);
+  return jan4 - mod(weekdayOfDayNumberUnchecked(jan4) - weekStart, 7);
+}
+
+/** Week number (positive) and the number of weeks in its week-year. */
+function weekNumber(dn: number, weekStart: number): [number, number] {
+  let y = yearOf(dn);
+  let s = week1Start(y, weekStart);
+  if (dn < s) {
+    y -= 1;
+    s = week1Start(y, weekStart);
+  } else {
+    const next = week1Start(y + 1, weekStart);
+    if (dn >= next) {
+      y += 1;
+      s = next;
+    }
+  }
+  const weeks = (week1Start(y + 1, weekStart) - s) / 7;
+  return [Math.floor((dn - s) / 7) + 1, weeks];
+}
+
+/** Whether day `dn` satisfies every date-level part. */
+function dayMatches(spec: RfcDaySpec, dn: number): boolean {
+  const p = packedYmdUnchecked(dn);
+  const y = Math.floor(p / 512) + MIN_YEAR;
+  const m = (p >> 5) & 15;
+  const dom = p & 31;
+  if (spec.byMonthMask !== 0 && ((spec.byMonthMask >> m) & 1) === 0) return false;
+  if (spec.byWeekNo) {
+    const [wn, weeks] = weekNumber(dn, spec.weekStart);
+    let hit = false;
+    for (const w of spec.byWeekNo) if (w === wn || w === wn - weeks - 1) hit = true;
+    if (!hit) return false;
+  }
+  const yearLength = isLeapYearUnchecked(y) ? 366 : 365;
+  const jan1 = dayNumberFromYmdUnchecked(y, 1, 1);
+  const doy = dn - jan1 + 1;
+  if (spec.byYearDay) {
+    let hit = false;
+    for (const v of spec.byYearDay) if (v === doy || v === doy - yearLength - 1) hit = true;
+    if (!hit) return false;
+  }
+  const monthLength = daysInMonthUnchecked(y, m);
+  if (spec.byMonthDay) {
+    let hit = false;
+    for (const v of spec.byMonthDay) if (v === dom || v === dom - monthLength - 1) hit = true;
+    if (!hit) return false;
+  }
+  if (spec.byDayMask !== 0 || spec.byDayNth) {
+    const wd = weekdayOfDayNumberUnchecked(dn);
+    if (((spec.byDayMask >> wd) & 1) === 0) {
+      if (!spec.byDayNth) return false;
+      // An ordinal counts within the month for MONTHLY, and for YEARLY with BYMONTH; otherwise within the year
+      // (RFC 5545 section 3.3.10 as corrected by verified erratum EID 1913).
+      const inMonth = spec.frequency === 'monthly' || spec.byMonthMask !== 0;
+      const pos = inMonth ? dom : doy;
+      const length = inMonth ? monthLength : yearLength;
+      const fromStart = Math.floor((pos - 1) / 7) + 1;
+      const fromEnd = -(Math.floor((length - pos) / 7) + 1);
+      let hit = false;
+      for (const e of spec.byDayNth) if (e.weekday === wd && (e.nth === fromStart || e.nth === fromEnd)) hit = true;
+      if (!hit) return false;
+    }
+  }
+  return true;
+}
+
+/** The period (index, first day, end day) of each frequency. */
+function periodIndexOf(spec: RfcDaySpec, dn: number): number {
+  switch (spec.frequency) {
+    case 'yearly':
+      return yearOf(dn);
+    case 'monthly':
+      return monthIndexOf(dn);
+    case 'weekly':
+      return Math.floor((dn - mod(spec.weekStart - 4, 7)) / 7);
+    default:
+      return dn;
+  }
+}
+function periodFirst(spec: RfcDaySpec, index: number): number {
+  switch (spec.frequency) {
+    case 'yearly':
+      return dayNumberFromYmdUnchecked(index, 1, 1);
+    case 'monthly': {
+      const y = Math.floor(index / 12);
+      return dayNumberFromYmdUnchecked(y, index - y * 12 + 1, 1);
+    }
+    case 'weekly':
+      // Day 0 (1970-01-01) is a Thursday (ISO 4); weeks start on weekStart.
+      return index * 7 + mod(spec.weekStart - 4, 7);
+    default:
+      return index;
+  }
+}
+
+/** Appends the days of period `index` (after BYSETPOS), sorted. */
+function expandPeriod(spec: RfcDaySpec, index: number, scratch: number[]): void {
+  scratch.length = 0;
+  const first = periodFirst(spec, index);
+  const end = periodFirst(spec, index + 1);
+  const lo = Math.max(first, MIN_DAY_NUMBER);
+  const hi = Math.min(end, MAX_DAY_NUMBER + 1);
+  if (spec.frequency === 'yearly' && spec.byMonthMask !== 0 && !spec.byWeekNo) {
+    // Only the listed months can hold a match.
+    for (let m = 1; m <= 12; m++) {
+      if (((spec.byMonthMask >> m) & 1) === 0) continue;
+      const a = dayNumberFromYmdUnchecked(index, m, 1);
+      const b = a + daysInMonthUnchecked(index, m);
+      for (let d = Math.max(a, lo); d < Math.min(b, hi); d++) if (dayMatches(spec, d)) scratch.push(d);
+    }
+  } else {
+    for (let d = lo; d < hi; d++) if (dayMatches(spec, d)) scratch.push(d);
+  }
+  if (spec.bySetPos && scratch.length > 0) {
+    const picked: number[] = [];
+    for (const p of spec.bySetPos) {
+      const i = p > 0 ? p - 1 : scratch.length + p;
+      if (i >= 0 && i < scratch.length) picked.push(scratch[i]!);
+    }
+    picked.sort((a, b) => a - b);
+    scratch.length = 0;
+    let prev = Number.NaN;
+    for (const d of picked) {
+      if (d !== prev) scratch.push(d);
+      prev = d;
+    }
+  }
+}
+
+/** Periods in one repeat of the pattern (the 400-year Gregorian cycle, counted in candidate periods). */
+function cyclePeriods(spec: RfcDaySpec): number {
+  const per = spec.frequency === 'yearly' ? 400 : spec.frequency === 'monthly' ? 4800 : spec.frequency === 'weekly' ? 20_871 : CYCLE_DAYS;
+  let a = spec.interval;
+  let b = per;
+  while (b !== 0) [a, b] = [b, a % b];
+  return per / a;
+}
+function periodDays(spec: RfcDaySpec): number {
+  return spec.frequency === 'yearly' ? 366 : spec.frequency === 'monthly' ? 31 : spec.frequency === 'weekly' ? 7 : 1;
+}
+
+/** The engine of a date-level rule; returns undefined when the rule can never produce a date. */
+export function rfcDayEngine(spec: RfcDaySpec): Engine | undefined {
+  const scratch: number[] = [];
+  const startIndex = periodIndexOf(spec, spec.startDay);
+  // Prove that the rule produces a date after DTSTART: the pattern repeats with the 400-year cycle, so one
+  // full cycle of candidate periods (plus DTSTART's own period) decides it.
+  const cycle = cyclePeriods(spec);
+  let found = false;
+  for (let k = 0; k <= cycle && !found; k++) {
+    expandPeriod(spec, startIndex + k * spec.interval, scratch);
+    for (const d of scratch) if (d >= spec.startDay) found = true;
+  }
+  if (!found) return undefined;
+  const maxGap = (cycle + 1) * spec.interval * periodDays(spec);
+  if (spec.frequency === 'daily' && !spec.byWeekNo && !spec.byYearDay && !spec.byMonthDay && spec.byMonthMask === 0 && spec.byDayMask === 0 && !spec.byDayNth) {
+    const step = spec.interval;
+    const a = spec.startDay;
+    return {
+      stride: step,
+      maxGap: step,
+      fill(lo, hi, out) {
+        lo = Math.max(lo, a);
+        let k = Math.ceil((lo - a) / step);
+        for (let d = a + k * step; d < hi; d = a + ++k * step) out.push(d);
+      },
+    };
+  }
+  return {
+    stride: Math.max(1, (spec.interval * periodDays(spec)) / 2),
+    maxGap,
+    fill(lo, hi, out) {
+      lo = Math.max(lo, spec.startDay);
+      if (lo >= hi) return;
+      const iLo = periodIndexOf(spec, lo);
+      const iHi = periodIndexOf(spec, hi - 1);
+      for (let i = iLo + mod(startIndex - iLo, spec.interval); i <= iHi; i += spec.interval) {
+        expandPeriod(spec, i, scratch);
+        for (const d of scratch) if (d >= lo && d < hi) out.push(d);
+      }
+    },
+  };
+}
+
+function readList(def: Record<string, unknown>, key: string, min: number, max: number, allowNegative: boolean, issues: Issues): number[] | undefined {
+  const v = def[key];
+  if (v === undefined) return undefined;
+  if (!Array.isArray(v) || v.length === 0) {
+    issues.add(key, `expected a non-empty list of integers, got ${describeValue(v)}`);
+    return undefined;
+  }
+  const out: number[] = [];
+  v.forEach((x, i) => {
+    const ok = typeof x === 'number' && Number.isInteger(x) && ((x >= min && x <= max) || (allowNegative && x <= -min && x >= -max));
+    if (!ok) issues.add(`${key}[${i}]`, `expected an integer from ${min} to ${max}${allowNegative ? ` or -${max} to -${min}` : ''}, got ${describeValue(x)}`);
+    else out.push(x);
+  });
+  return out.length === v.length ? out : undefined;
+}
+
+interface StartValue {
+  readonly day: number;
+  /** Milliseconds into the day, or undefined for a DATE. */
+  readonly timeMs: number | undefined;
+}
+
+function readStartLike(v: unknown, path: string, issues: Issues): StartValue | undefined {
+  if (typeof v !== 'string') {
+    issues.add(path, `expected a date "1997-09-02" or a local date-time "1997-09-02T09:00:00", got ${describeValue(v)}`);
+    return undefined;
+  }
+  try {
+    if (!v.includes('T')) return { day: parsePlainDate(v), timeMs: undefined };
+    const wall = parsePlainDateTime(v);
+    const day = Math.floor(wall / MS_PER_DAY);
+    return { day, timeMs: wall - day * MS_PER_DAY };
+  } catch (e) {
+    issues.add(path, `expected a date "1997-09-02" or a local date-time "1997-09-02T09:00:00", got ${describeValue(v)} (${(e as Error).message})`);
+    return undefined;
+  }
+}
+
+/** Compiles an `rfc5545` definition. */
+export function compileRfc5545(def: Record<string, unknown>, issues: Issues): Compiled | undefined {
+  checkKeys(
+    def,
+    ['kind', 'frequency', 'start', 'zone', 'interval', 'count', 'until', 'byMonth', 'byWeekNo', 'byYearDay', 'byMonthDay', 'byDay', 'bySetPos', 'weekStart', 'exclude', 'label'],
+    '',
+    issues,
+  );
+  const frequency = readEnum(def, 'frequency', 'frequency', FREQUENCIES, issues, undefined);
+  if (def['frequency'] === undefined) issues.add('frequency', 'expected the FREQ rule part: "yearly", "monthly", "weekly", "daily", "hourly" or "minutely"; got none');
+  const start = readStartLike(def['start'], 'start', issues);
+  if (def['interval'] === 0) issues.add('interval', 'expected an integer of at least 1 (INTERVAL=0 would never move), got 0');
+  const interval = def['interval'] === 0 ? Number.NaN : readInt(def, 'interval', 'interval', 1, 1_000_000, issues, 1);
+  const countRaw = readInt(def, 'count', 'count', 1, MAX_COUNT, issues, Number.NaN);
+  if (def['count'] !== undefined && def['until'] !== undefined) issues.add('until', 'UNTIL and COUNT must not both occur in one rule (RFC 5545 section 3.3.10)');
+  const byMonth = readList(def, 'byMonth', 1, 12, false, issues);
+  const byWeekNo = readList(def, 'byWeekNo', 1, 53, true, issues);
+  const byYearDay = readList(def, 'byYearDay', 1, 366, true, issues);
+  const byMonthDay = readList(def, 'byMonthDay', 1, 31, true, issues);
+  const bySetPos = readList(def, 'bySetPos', 1, 366, true, issues);
+  const weekStartName = readEnum(def, 'weekStart', 'weekStart', WEEKDAY_NAMES, issues, 'monday') ?? 'monday';
+  const weekStart = WEEKDAY_NAMES.indexOf(weekStartName as WeekdayName) + 1;
+  let byDayMask = 0;
+  let byDayNth: { weekday: number; nth: number }[] | undefined;
+  const byDay = def['byDay'];
+  if (byDay !== undefined) {
+    if (!Array.isArray(byDay) || byDay.length === 0) issues.add('byDay', `expected a non-empty list of { weekday, nth? }, got ${describeValue(byDay)}`);
+    else {
+      byDay.forEach((e, i) => {
+        const path = `byDay[${i}]`;
+        if (typeof e !== 'object' || e === null) {
+          issues.add(path, `expected { "weekday": "monday", "nth"?: 1 }, got ${describeValue(e)}`);
+          return;
+        }
+        const entry = e as Record<string, unknown>;
+        checkKeys(entry, ['weekday', 'nth'], path, issues);
+        const wdName = readEnum(entry, 'weekday', `${path}.weekday`, WEEKDAY_NAMES, issues, undefined);
+        if (entry['weekday'] === undefined) issues.add(`${path}.weekday`, 'expected a weekday "monday".."sunday", got undefined');
+        const nth = entry['nth'];
+        if (nth !== undefined && (typeof nth !== 'number' || !Number.isInteger(nth) || nth === 0 || Math.abs(nth) > 53)) {
+          issues.add(`${path}.nth`, `expected an integer from 1 to 53 or -53 to -1, got ${describeValue(nth)}`);
+          return;
+        }
+        if (!wdName) return;
+        const wd = WEEKDAY_NAMES.indexOf(wdName) + 1;
+        if (nth === undefined) byDayMask |= 1 << wd;
+        else (byDayNth ??= []).push({ weekday: wd, nth: nth as number });
+      });
+    }
+  }
+  // Combinations the RFC forbids ("N/A" in the table of section 3.3.10).
+  if (frequency) {
+    const na = (key: string, part: string, when: readonly string[]) => {
+      if (def[key] !== undefined && when.includes(frequency)) {
+        issues.add(key, `${part} must not be used with FREQ=${frequency.toUpperCase()} (RFC 5545 section 3.3.10)`);
+      }
+    };
+    na('byWeekNo', 'BYWEEKNO', ['monthly', 'weekly', 'daily', 'hourly', 'minutely']);
+    na('byYearDay', 'BYYEARDAY', ['monthly', 'weekly', 'daily']);
+    na('byMonthDay', 'BYMONTHDAY', ['weekly']);
+    if (byDayNth && !['monthly', 'yearly'].includes(frequency)) {
+      issues.add('byDay', `a BYDAY ordinal (such as 1MO) needs FREQ=MONTHLY or YEARLY, got FREQ=${frequency.toUpperCase()} (RFC 5545 section 3.3.10)`);
+    }
+    if (byDayNth && frequency === 'yearly' && byWeekNo) {
+      issues.add('byDay', 'a BYDAY ordinal must not be used with FREQ=YEARLY and BYWEEKNO (RFC 5545 section 3.3.10)');
+    }
+    if (frequency === 'hourly' || frequency === 'minutely') {
+      for (const [key, part] of [
+        ['byMonth', 'BYMONTH'],
+        ['byYearDay', 'BYYEARDAY'],
+        ['byMonthDay', 'BYMONTHDAY'],
+        ['byDay', 'BYDAY'],
+        ['bySetPos', 'BYSETPOS'],
+      ] as const) {
+        if (def[key] !== undefined) issues.add(key, `${part} with FREQ=${frequency.toUpperCase()} is not supported (only INTERVAL, COUNT and UNTIL are)`);
+      }
+    }
+  }
+  if (bySetPos && !byMonth && !byWeekNo && !byYearDay && !byMonthDay && byDay === undefined) {
+    issues.add('bySetPos', 'BYSETPOS must be used with another BYxxx rule part (RFC 5545 section 3.3.10)');
+  }
+  // Zone of DTSTART.
+  let zone: ZoneOps | undefined;
+  if (def['zone'] !== undefined) {
+    if (start && start.timeMs === undefined) issues.add('zone', 'a TZID applies to a DTSTART with a time; this DTSTART is a date');
+    else if (def['zone'] === 'UTC') zone = UTC_OPS;
+    else {
+      try {
+        zone = zoneOps(def['zone'], 'zone');
+      } catch (e) {
+        issues.add('zone', (e as Error).message);
+      }
+    }
+  }
+  if (start && start.timeMs === undefined && (frequency === 'hourly' || frequency === 'minutely')) {
+    issues.add('start', `FREQ=${frequency.toUpperCase()} needs a DTSTART with a time, got the date ${describeValue(def['start'])}`);
+  }
+  const exclude = def['exclude'];
+  const excludes: StartValue[] = [];
+  if (exclude !== undefined) {
+    if (!Array.isArray(exclude)) issues.add('exclude', `expected a list of dates or date-times, got ${describeValue(exclude)}`);
+    else exclude.forEach((x, i) => {
+      const v = readStartLike(x, `exclude[${i}]`, issues);
+      if (v && start && (v.timeMs === undefined) !== (start.timeMs === undefined)) {
+        issues.add(`exclude[${i}]`, `expected the same value type as start (${start.timeMs === undefined ? 'a date' : 'a date-time'}), got ${describeValue(x)}`);
+      } else if (v) excludes.push(v);
+    });
+  }
+  if (def['label'] !== undefined && typeof def['label'] !== 'string') issues.add('label', `expected a string, got ${describeValue(def['label'])}`);
+  if (!issues.ok || !frequency || !start || Number.isNaN(interval)) return undefined;
+
+  const dated = start.timeMs === undefined;
+  const tz = zone ?? UTC_OPS;
+  const toValue = (v: StartValue): number => (dated ? v.day : resolveWall(tz, v.day * MS_PER_DAY + v.timeMs!).earlier);
+  const startValue = toValue(start);
+
+  // UNTIL (inclusive) as an exclusive end.
+  let rawEnd = dated ? MAX_DAY_NUMBER + 1 : MAX_EPOCH_MS + 1;
+  const until = def['until'];
+  if (until !== undefined) {
+    if (typeof until !== 'string') issues.add('until', `expected a date "1997-12-24" or an instant "1997-12-24T00:00:00Z", got ${describeValue(until)}`);
+    else {
+      try {
+        if (!until.includes('T')) {
+          const d = parsePlainDate(until);
+          rawEnd = dated ? d + 1 : resolveWall(tz, (d + 1) * MS_PER_DAY).earlier;
+        } else if (/[zZ]$|[+-]\d\d:?\d\d$/.test(until)) {
+          const t = parseInstant(until).epochMs;
+          rawEnd = dated ? Math.floor(t / MS_PER_DAY) + 1 : t + 1;
+        } else {
+          const w = parsePlainDateTime(until);
+          rawEnd = dated ? Math.floor(w / MS_PER_DAY) + 1 : resolveWall(tz, w).earlier + 1;
+        }
+      } catch (e) {
+        issues.add('until', `expected a date "1997-12-24" or an instant "1997-12-24T00:00:00Z", got ${describeValue(until)} (${(e as Error).message})`);
+      }
+    }
+  }
+  if (!issues.ok) return undefined;
+
+  let engine: Engine | undefined;
+  if (frequency === 'hourly' || frequency === 'minutely') {
+    engine = elapsedEngine(startValue, interval * (frequency === 'hourly' ? 3_600_000 : 60_000));
+  } else {
+    const defaults = !byWeekNo && !byYearDay && !byMonthDay && byDay === undefined;
+    const p = packedYmdUnchecked(start.day);
+    const spec: RfcDaySpec = {
+      frequency,
+      interval,
+      startDay: start.day,
+      byMonthMask: (byMonth ?? (defaults && frequency === 'yearly' ? [(p >> 5) & 15] : [])).reduce((mask, m) => mask | (1 << m), 0),
+      byWeekNo,
+      byYearDay,
+      byMonthDay: byMonthDay ?? (defaults && (frequency === 'yearly' || frequency === 'monthly') ? [p & 31] : undefined),
+      byDayMask: byDay === undefined && defaults && frequency === 'weekly' ? 1 << weekdayOfDayNumberUnchecked(start.day) : byDayMask,
+      byDayNth,
+      bySetPos,
+      weekStart,
+    };
+    const days = rfcDayEngine(spec);
+    if (!days) {
+      issues.add('frequency', 'the rule never produces a date on or after DTSTART: no period in a full 400-year Gregorian cycle (after which dates and weekdays repeat) satisfies every BYxxx part');
+      return undefined;
+    }
+    engine = dated ? days : timeOfDayEngine(days, tz, start.timeMs!);
+  }
+  return {
+    values: dated ? 'dates' : 'instants',
+    engine,
+    business: undefined,
+    convention: 'none',
+    rawStart: startValue,
+    rawEnd,
+    count: Number.isNaN(countRaw) ? undefined : countRaw,
+    countEnd: dated ? MAX_DAY_NUMBER + 1 : MAX_EPOCH_MS + 1,
+    exclude: excludes.length > 0 ? new Set(excludes.map(toValue)) : undefined,
+    zone: dated ? undefined : tz,
+    period: undefined,
+  };
+}

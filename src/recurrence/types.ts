@@ -1,0 +1,230 @@
+/**
+ * The plain-data vocabulary of frequency rules. A rule definition is a JSON-serializable object; `defineRule`
+ * validates it (collecting every fault with its dotted path) and compiles it into a {@link Rule}.
+ *
+ * Dates inside definitions are ISO 8601 calendar dates (`"2025-01-31"`) or day numbers; wall-clock times are
+ * ISO 8601 local date-times (`"2025-03-09T01:30"`); instants are RFC 3339 strings or epoch milliseconds.
+ *
+ * @module
+ */
+
+import type { WeekdayName } from '../period/index.js';
+import type { BusinessDayConvention } from '../business/index.js';
+
+export type { WeekdayName };
+
+/** A weekday as a name or as its ISO 8601 number (1 = Monday .. 7 = Sunday). */
+export type WeekdayInput = WeekdayName | number;
+
+/** A calendar date: an ISO 8601 date string (`"2025-01-31"`) or a day number. */
+export type DateInput = string | number;
+
+/** An instant: an RFC 3339 / RFC 9557 string with an offset or `Z`, or epoch milliseconds. */
+export type InstantInput = string | number;
+
+/**
+ * The business-day adjustment conventions of the business layer, by their ISDA 2006 Definitions names
+ * (section 4.12): `'following'`, `'modified-following'`, `'preceding'`, `'modified-preceding'`, and `'none'`.
+ */
+export type Convention = BusinessDayConvention;
+
+/**
+ * A business calendar for a rule: a compiled calendar from the business layer, its plain-data definition, or
+ * the id of a bundled calendar.
+ */
+export type RuleCalendarInput = object | string;
+
+/**
+ * What happens when a selected day does not exist in a period (day 31 of a 30-day month, day 30 of February):
+ * `'last-day'` moves it to the period's last day, `'skip'` drops the period.
+ */
+export type WhenShort = 'last-day' | 'skip';
+
+/**
+ * Picks days inside one period (a month, a quarter's month, a fiscal period):
+ * - `{ day: 15 }` the 15th day; `{ day: -1 }` or `{ day: 'last' }` the last day; `{ day: -2 }` the day before;
+ *   `whenShort` says what happens when the period is shorter than `day` (required for days past 28);
+ * - `{ weekday: 'friday', nth: 2 }` the second Friday; `nth: -1` or `'last'` the last Friday; a period without
+ *   that many Fridays produces nothing;
+ * - `{ businessDay: 1 }` the first business day; `{ businessDay: -1 }` or `'last'` the last (the rule's
+ *   `calendar` decides which days are business days).
+ */
+export type DaySelector =
+  | { readonly day: number | 'last'; readonly whenShort?: WhenShort }
+  | { readonly weekday: WeekdayInput; readonly nth: number | 'last' }
+  | { readonly businessDay: number | 'last' };
+
+/** Fields shared by every date rule. */
+export interface DateRuleCommon {
+  /** First date the rule may produce (inclusive), before any adjustment. */
+  readonly start?: DateInput;
+  /** Dates the rule produces lie before this date (exclusive), before any adjustment. */
+  readonly end?: DateInput;
+  /** At most this many occurrences, counted from `start` (which is then required). */
+  readonly count?: number;
+  /** Business calendar for business-day selectors and for `convention`. */
+  readonly calendar?: RuleCalendarInput;
+  /** Business-day adjustment of each produced date (default `'none'`). Needs `calendar`. */
+  readonly convention?: Convention;
+  /** A free label shown by `describeRule` and the CLI. */
+  readonly label?: string;
+}
+
+/** Every `every` days, counted from `anchor` (default: `start`). */
+export interface DaysRuleDefinition extends DateRuleCommon {
+  readonly kind: 'days';
+  readonly every?: number;
+  readonly anchor?: DateInput;
+}
+
+/** Every `every` business days of `calendar`, counted from the first business day on or after `anchor`. */
+export interface BusinessDaysRuleDefinition extends DateRuleCommon {
+  readonly kind: 'business-days';
+  readonly every?: number;
+  readonly anchor?: DateInput;
+}
+
+/**
+ * On the given weekdays of every `every`-th week. Weeks start on `weekStart` (default monday); the week that
+ * holds `anchor` (default: `start`) is week 0.
+ */
+export interface WeeklyRuleDefinition extends DateRuleCommon {
+  readonly kind: 'weekly';
+  readonly weekdays: readonly WeekdayInput[];
+  readonly every?: number;
+  readonly anchor?: DateInput;
+  readonly weekStart?: WeekdayInput;
+}
+
+/**
+ * Days picked by `on` in every `every`-th month, counted from the month of `anchor`; `months` (1..12) keeps
+ * only those months of the year. Without `on`, the day comes from `anchor` (a month end stays on month ends when
+ * `keepMonthEnd` is true; a day past 28 otherwise moves to the last day of shorter months).
+ */
+export interface MonthlyRuleDefinition extends DateRuleCommon {
+  readonly kind: 'monthly';
+  readonly on?: DaySelector | readonly DaySelector[];
+  readonly every?: number;
+  readonly anchor?: DateInput;
+  readonly months?: readonly number[];
+  readonly keepMonthEnd?: boolean;
+}
+
+/** Two days in each month, such as `[15, 'last']` (days past 28 need `whenShort`). */
+export interface SemiMonthlyRuleDefinition extends DateRuleCommon {
+  readonly kind: 'semi-monthly';
+  readonly days: readonly (number | 'last')[];
+  readonly whenShort?: WhenShort;
+}
+
+/**
+ * Quarterly, half-yearly or yearly: one month in each quarter, half or year, fixed by `month` (the month of
+ * the year that belongs to the schedule, such as 3 for March, June, September and December) or by `anchor`.
+ * `every` counts quarters, halves or years (counting from `anchor` when more than 1).
+ */
+export interface AnchoredMonthRuleDefinition extends DateRuleCommon {
+  readonly kind: 'quarterly' | 'half-yearly' | 'yearly';
+  readonly month?: number;
+  readonly on?: DaySelector | readonly DaySelector[];
+  readonly every?: number;
+  readonly anchor?: DateInput;
+  readonly keepMonthEnd?: boolean;
+}
+
+/**
+ * Days picked by `on` in every `every`-th period of a unit from the period layer: a fiscal quarter, a 4-5-4
+ * period, a 52/53-week year. The period that holds `anchor` is period 0.
+ */
+export interface PeriodsRuleDefinition extends DateRuleCommon {
+  readonly kind: 'periods';
+  /** A compiled period unit, a unit definition, or a calendar unit name such as `"quarter"`. */
+  readonly unit: object | string;
+  readonly on: DaySelector | readonly DaySelector[];
+  readonly every?: number;
+  readonly anchor?: DateInput;
+}
+
+/**
+ * Every `every` minutes or hours in `zone`, counted from the wall-clock time `anchor`.
+ * - `clock: 'wall'`: steps of wall-clock time (09:00, 09:30, ... local). A wall time that a DST gap skips is
+ *   moved forward by the length of the gap (`skipped: 'shift-forward'`, as Temporal's `'compatible'`) or
+ *   dropped (`'drop'`); a wall time that an overlap repeats happens once, at its earlier instant
+ *   (`repeated: 'earlier'`), or twice (`'both'`).
+ * - `clock: 'elapsed'`: steps of absolute time from the anchor's instant; DST never moves or drops a step, so the
+ *   local times shift by the change of offset.
+ */
+export interface IntradayRuleDefinition {
+  readonly kind: 'intraday';
+  readonly zone: string | object;
+  readonly every: { readonly hours?: number; readonly minutes?: number };
+  readonly anchor: string;
+  readonly clock: 'wall' | 'elapsed';
+  readonly skipped?: 'shift-forward' | 'drop';
+  readonly repeated?: 'earlier' | 'both';
+  readonly start?: InstantInput;
+  readonly end?: InstantInput;
+  readonly count?: number;
+  readonly label?: string;
+}
+
+/** RFC 5545 frequency (the FREQ rule part), in lower case. */
+export type Rfc5545Frequency = 'yearly' | 'monthly' | 'weekly' | 'daily' | 'hourly' | 'minutely';
+
+/** One BYDAY entry: a weekday, with an optional ordinal (RFC 5545 `weekdaynum`, e.g. `-1SU`). */
+export interface Rfc5545WeekdayNum {
+  readonly weekday: WeekdayName;
+  readonly nth?: number;
+}
+
+/**
+ * An RFC 5545 recurrence rule (section 3.3.10) with its DTSTART, as data. `parseRecurrenceRule` produces this;
+ * the fields are the rule parts in our spelling.
+ */
+export interface Rfc5545RuleDefinition {
+  readonly kind: 'rfc5545';
+  readonly frequency: Rfc5545Frequency;
+  /** DTSTART: a date (`"1997-09-02"`) or a local date-time (`"1997-09-02T09:00:00"`). */
+  readonly start: string;
+  /** TZID of DTSTART (an IANA id), `"UTC"` for a DTSTART in UTC; absent for a date or a floating time. */
+  readonly zone?: string;
+  readonly interval?: number;
+  readonly count?: number;
+  /** UNTIL, inclusive: a date, or an instant (RFC 3339, UTC). */
+  readonly until?: string;
+  readonly byMonth?: readonly number[];
+  readonly byWeekNo?: readonly number[];
+  readonly byYearDay?: readonly number[];
+  readonly byMonthDay?: readonly number[];
+  readonly byDay?: readonly Rfc5545WeekdayNum[];
+  readonly bySetPos?: readonly number[];
+  readonly weekStart?: WeekdayName;
+  /** EXDATE values: dates or local date-times in the same form as `start`. */
+  readonly exclude?: readonly string[];
+  readonly label?: string;
+}
+
+/** Any rule definition. */
+export type RuleDefinition =
+  | DaysRuleDefinition
+  | BusinessDaysRuleDefinition
+  | WeeklyRuleDefinition
+  | MonthlyRuleDefinition
+  | SemiMonthlyRuleDefinition
+  | AnchoredMonthRuleDefinition
+  | PeriodsRuleDefinition
+  | IntradayRuleDefinition
+  | Rfc5545RuleDefinition;
+
+/** The kinds of rule. */
+export type RuleKind = RuleDefinition['kind'];
+
+/**
+ * A compiled, immutable rule. `values` says what its occurrences are: `'dates'` (day numbers) or `'instants'`
+ * (epoch milliseconds).
+ */
+export interface Rule {
+  readonly kind: RuleKind;
+  readonly values: 'dates' | 'instants';
+  /** The definition, frozen, as given (serialize it to store the rule). */
+  readonly definition: RuleDefinition;
+}
