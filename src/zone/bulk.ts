@@ -2,11 +2,14 @@
  * Bulk conversions over typed arrays: instants to local day numbers and to wall-clock ms, one pass, no
  * per-element allocation, no Intl call inside the loop.
  *
- * Method: one pass finds the input's range and checks every value; the zone's table is compiled for that range
- * first. When the range is not much wider than the input is long, a per-UTC-day lookup table of one byte a day
- * is built (the index of the day's offset, or a mark for the rare day with a transition inside), so each element
- * costs two floors and two loads from tables that stay in the first-level cache. Otherwise the loop keeps the
- * current transition interval and searches the compiled chunks on a miss.
+ * Method: a per-UTC-day lookup table of one byte a day (the index of the day's offset, or a mark for the rare day
+ * with a transition inside) turns each element into two floors and two loads from tables that stay in the
+ * first-level cache. The table is built when an instant first falls outside the zone's current table: the rest of
+ * the input is scanned once for its range, and the table is rebuilt to cover it (joined with the old range, plus a
+ * year's margin on each side). The last table of each zone is kept, so later calls over similar years neither scan
+ * nor build. When the input's range is much wider than the input is long, the loop asks the compiled chunks for
+ * each element instead. Invalid instants (NaN, infinities, out of range) fail the table's range test and are
+ * handled outside the hot loop; in 'throw' mode, elements before the first invalid one have been written to `out`.
  *
  * @module
  */
@@ -29,13 +32,7 @@ export const INVALID_DAY_NUMBER = -2147483648;
 
 type Input = Float64Array | readonly number[] | ArrayLike<number>;
 
-interface Scan {
-  readonly min: number;
-  readonly max: number;
-  readonly firstBad: number;
-}
-
-function scan(name: string, values: Input, options: BulkOptions | undefined): Scan {
+function checkInput(name: string, values: Input, options: BulkOptions | undefined): boolean {
   if (typeof values !== 'object' || values === null || typeof (values as { length?: unknown }).length !== 'number') {
     throw new KalendsTypeError(`${name}: expected a Float64Array or an array of epoch milliseconds, got ${describeValue(values)}`, {
       code: 'invalid-type',
@@ -46,38 +43,28 @@ function scan(name: string, values: Input, options: BulkOptions | undefined): Sc
   if (mode !== 'throw' && mode !== 'sentinel') {
     throw new KalendsRangeError(`options.invalid: expected 'throw' or 'sentinel', got ${describeValue(mode)}`, { code: 'out-of-range', received: mode });
   }
-  // Fast pass: NaN and infinities turn `probe` into NaN; NaN never wins a comparison.
+  return mode === 'sentinel';
+}
+
+function invalidInstant(name: string, i: number, v: number): never {
+  throw new KalendsRangeError(
+    `${name}[${i}]: expected epoch milliseconds from ${MIN_EPOCH_MS} to ${MAX_EPOCH_MS}, got ${describeValue(v)}; pass { invalid: 'sentinel' } to mark such elements instead`,
+    { code: 'out-of-range', received: v },
+  );
+}
+
+/** Smallest and largest valid instant in values[from..n) (Infinity / -Infinity when there is none). */
+function validRange(values: Input, from: number): { min: number; max: number } {
   let min = Infinity;
   let max = -Infinity;
-  let probe = 0;
-  const n = values.length;
-  for (let i = 0; i < n; i++) {
+  for (let i = from; i < values.length; i++) {
     const v = values[i] as number;
-    min = v < min ? v : min;
-    max = v > max ? v : max;
-    probe += v * 0;
-  }
-  let firstBad = -1;
-  if (probe !== 0 || min < MIN_EPOCH_MS || max > MAX_EPOCH_MS) {
-    min = Infinity;
-    max = -Infinity;
-    for (let i = 0; i < n; i++) {
-      const v = values[i] as number;
-      if (v >= MIN_EPOCH_MS && v <= MAX_EPOCH_MS) {
-        if (v < min) min = v;
-        if (v > max) max = v;
-      } else if (firstBad < 0) {
-        firstBad = i;
-        if (mode === 'throw') {
-          throw new KalendsRangeError(
-            `${name}[${i}]: expected epoch milliseconds from ${MIN_EPOCH_MS} to ${MAX_EPOCH_MS}, got ${describeValue(v)}; pass { invalid: 'sentinel' } to mark such elements instead`,
-            { code: 'out-of-range', received: v },
-          );
-        }
-      }
+    if (v >= MIN_EPOCH_MS && v <= MAX_EPOCH_MS) {
+      min = v < min ? v : min;
+      max = v > max ? v : max;
     }
   }
-  return { min, max, firstBad };
+  return { min, max };
 }
 
 /**
@@ -151,11 +138,41 @@ function dayTable(e: Engine, d0: number, days: number): DayTable | undefined {
   };
 }
 
-/** Largest day table built for one call (days); past it, and when the range is much wider than the input, the loop searches instead. */
+/** Largest day table built (days, about 2,900 years); past it, the loop asks the engine for each element. */
 const MAX_TABLE_DAYS = 1 << 20;
+/** Days added on each side of the input's range, so that nearby later calls reuse the table. */
+const TABLE_MARGIN_DAYS = 366;
 
-function useTable(n: number, days: number): boolean {
-  return days <= MAX_TABLE_DAYS && days <= 4 * n + 4096;
+/** A day table with the range it covers: UTC days [d0, d0 + days). */
+interface RangedTable extends DayTable {
+  readonly d0: number;
+  readonly days: number;
+}
+
+/** The last day table built for each engine; a later call whose instants fall inside it reuses it. */
+const tables = new WeakMap<Engine, RangedTable>();
+
+/**
+ * A table covering the valid instants of values[from..n), joined with the engine's current table when the union is
+ * not too wide; undefined when even the input's own range is too wide for a table (the caller then asks the engine
+ * per element). The input is scanned once here; a call that needs no new table scans nothing.
+ */
+function tableCovering(e: Engine, values: Input, from: number, current: RangedTable | undefined): RangedTable | undefined {
+  const { min, max } = validRange(values, from);
+  if (min > max) return current;
+  let lo = Math.floor(min / MS_PER_DAY) - TABLE_MARGIN_DAYS;
+  let hi = Math.floor(max / MS_PER_DAY) + TABLE_MARGIN_DAYS + 1;
+  const limit = Math.max(4096, 4 * (values.length - from));
+  if (hi - lo > MAX_TABLE_DAYS || hi - lo > limit + 2 * TABLE_MARGIN_DAYS) return undefined;
+  if (current && Math.min(lo, current.d0) + MAX_TABLE_DAYS >= Math.max(hi, current.d0 + current.days)) {
+    lo = Math.min(lo, current.d0);
+    hi = Math.max(hi, current.d0 + current.days);
+  }
+  const table = dayTable(e, lo, hi - lo);
+  if (!table) return undefined;
+  const ranged: RangedTable = { ...table, d0: lo, days: hi - lo };
+  tables.set(e, ranged);
+  return ranged;
 }
 
 function checkOut<T extends Int32Array | Float64Array>(name: string, out: T | undefined, n: number, make: (n: number) => T, kind: string): T {
@@ -182,52 +199,59 @@ function checkOut<T extends Int32Array | Float64Array>(name: string, out: T | un
  */
 export function dayNumberFromEpochMsBulk(zone: ZoneInput, epochMs: Input, out?: Int32Array, options?: BulkOptions): Int32Array {
   const e = engineOf(toZone(zone));
-  const s = scan('epochMs', epochMs, options);
+  const sentinel = checkInput('epochMs', epochMs, options);
   const n = epochMs.length;
   const result = checkOut('dayNumberFromEpochMsBulk', out, n, (k) => new Int32Array(k), 'Int32Array');
-  const bad = s.firstBad >= 0;
   if (e instanceof FixedEngine) {
     const off = e.offsetSeconds * 1000;
     for (let i = 0; i < n; i++) {
       const t = epochMs[i] as number;
-      result[i] = bad && !(t >= MIN_EPOCH_MS && t <= MAX_EPOCH_MS) ? INVALID_DAY_NUMBER : Math.floor((t + off) / MS_PER_DAY);
+      if (t >= MIN_EPOCH_MS && t <= MAX_EPOCH_MS) result[i] = Math.floor((t + off) / MS_PER_DAY);
+      else if (sentinel) result[i] = INVALID_DAY_NUMBER;
+      else invalidInstant('epochMs', i, t);
     }
     return result;
   }
-  if (n === 0 || s.min > s.max) {
-    for (let i = 0; i < n; i++) result[i] = INVALID_DAY_NUMBER;
-    return result;
-  }
-  const d0 = Math.floor(s.min / MS_PER_DAY);
-  const days = Math.floor(s.max / MS_PER_DAY) - d0 + 1;
-  const tab = useTable(n, days) ? dayTable(e, d0, days) : undefined;
-  if (tab) {
-    const { codes, offsets, changeIndex, changeAt, changeBefore, changeAfter } = tab;
-    for (let i = 0; i < n; i++) {
-      const t = epochMs[i] as number;
-      if (bad && !(t >= MIN_EPOCH_MS && t <= MAX_EPOCH_MS)) {
-        result[i] = INVALID_DAY_NUMBER;
-        continue;
+  let tab = tables.get(e);
+  let i = 0;
+  while (i < n) {
+    if (tab) {
+      // The hot loop: one table lookup per element. An instant outside the table (or NaN, which fails both
+      // comparisons) leaves the loop.
+      const { codes, offsets, changeIndex, changeAt, changeBefore, changeAfter, d0, days } = tab;
+      for (; i < n; i++) {
+        const t = epochMs[i] as number;
+        const k = Math.floor(t / MS_PER_DAY) - d0;
+        if (!(k >= 0 && k < days)) break;
+        const c = codes[k]!;
+        let off: number;
+        if (c < BUSY_DAY) off = offsets[c]!;
+        else if (c === CHANGE_DAY) {
+          const j = changeIndex[k]!;
+          off = t < changeAt[j]! ? changeBefore[j]! : changeAfter[j]!;
+        } else off = e.offsetAt(t) * 1000;
+        result[i] = Math.floor((t + off) / MS_PER_DAY);
       }
-      const d = Math.floor(t / MS_PER_DAY) - d0;
-      const c = codes[d]!;
-      let off: number;
-      if (c < BUSY_DAY) off = offsets[c]!;
-      else if (c === CHANGE_DAY) {
-        const k = changeIndex[d]!;
-        off = t < changeAt[k]! ? changeBefore[k]! : changeAfter[k]!;
-      } else off = e.offsetAt(t) * 1000;
-      result[i] = Math.floor((t + off) / MS_PER_DAY);
+      if (i >= n) break;
     }
-    return result;
-  }
-  for (let i = 0; i < n; i++) {
     const t = epochMs[i] as number;
-    if (bad && !(t >= MIN_EPOCH_MS && t <= MAX_EPOCH_MS)) {
-      result[i] = INVALID_DAY_NUMBER;
+    if (!(t >= MIN_EPOCH_MS && t <= MAX_EPOCH_MS)) {
+      if (!sentinel) invalidInstant('epochMs', i, t);
+      result[i++] = INVALID_DAY_NUMBER;
       continue;
     }
-    result[i] = Math.floor((t + e.offsetAt(t) * 1000) / MS_PER_DAY);
+    const wider = tableCovering(e, epochMs, i, tab);
+    if (wider && wider !== tab) {
+      tab = wider;
+      continue;
+    }
+    // The input's range is too wide for a table: ask the engine for each remaining element.
+    for (; i < n; i++) {
+      const v = epochMs[i] as number;
+      if (v >= MIN_EPOCH_MS && v <= MAX_EPOCH_MS) result[i] = Math.floor((v + e.offsetAt(v) * 1000) / MS_PER_DAY);
+      else if (sentinel) result[i] = INVALID_DAY_NUMBER;
+      else invalidInstant('epochMs', i, v);
+    }
   }
   return result;
 }
@@ -243,52 +267,56 @@ export function dayNumberFromEpochMsBulk(zone: ZoneInput, epochMs: Input, out?: 
  */
 export function wallMsFromEpochMsBulk(zone: ZoneInput, epochMs: Input, out?: Float64Array, options?: BulkOptions): Float64Array {
   const e = engineOf(toZone(zone));
-  const s = scan('epochMs', epochMs, options);
+  const sentinel = checkInput('epochMs', epochMs, options);
   const n = epochMs.length;
   const result = checkOut('wallMsFromEpochMsBulk', out, n, (k) => new Float64Array(k), 'Float64Array');
-  const bad = s.firstBad >= 0;
   if (e instanceof FixedEngine) {
     const off = e.offsetSeconds * 1000;
     for (let i = 0; i < n; i++) {
       const t = epochMs[i] as number;
-      result[i] = bad && !(t >= MIN_EPOCH_MS && t <= MAX_EPOCH_MS) ? NaN : t + off;
+      if (t >= MIN_EPOCH_MS && t <= MAX_EPOCH_MS) result[i] = t + off;
+      else if (sentinel) result[i] = NaN;
+      else invalidInstant('epochMs', i, t);
     }
     return result;
   }
-  if (n === 0 || s.min > s.max) {
-    for (let i = 0; i < n; i++) result[i] = NaN;
-    return result;
-  }
-  const d0 = Math.floor(s.min / MS_PER_DAY);
-  const days = Math.floor(s.max / MS_PER_DAY) - d0 + 1;
-  const tab = useTable(n, days) ? dayTable(e, d0, days) : undefined;
-  if (tab) {
-    const { codes, offsets, changeIndex, changeAt, changeBefore, changeAfter } = tab;
-    for (let i = 0; i < n; i++) {
-      const t = epochMs[i] as number;
-      if (bad && !(t >= MIN_EPOCH_MS && t <= MAX_EPOCH_MS)) {
-        result[i] = NaN;
-        continue;
+  let tab = tables.get(e);
+  let i = 0;
+  while (i < n) {
+    if (tab) {
+      const { codes, offsets, changeIndex, changeAt, changeBefore, changeAfter, d0, days } = tab;
+      for (; i < n; i++) {
+        const t = epochMs[i] as number;
+        const k = Math.floor(t / MS_PER_DAY) - d0;
+        if (!(k >= 0 && k < days)) break;
+        const c = codes[k]!;
+        let off: number;
+        if (c < BUSY_DAY) off = offsets[c]!;
+        else if (c === CHANGE_DAY) {
+          const j = changeIndex[k]!;
+          off = t < changeAt[j]! ? changeBefore[j]! : changeAfter[j]!;
+        } else off = e.offsetAt(t) * 1000;
+        result[i] = t + off;
       }
-      const d = Math.floor(t / MS_PER_DAY) - d0;
-      const c = codes[d]!;
-      let off: number;
-      if (c < BUSY_DAY) off = offsets[c]!;
-      else if (c === CHANGE_DAY) {
-        const k = changeIndex[d]!;
-        off = t < changeAt[k]! ? changeBefore[k]! : changeAfter[k]!;
-      } else off = e.offsetAt(t) * 1000;
-      result[i] = t + off;
+      if (i >= n) break;
     }
-    return result;
-  }
-  for (let i = 0; i < n; i++) {
     const t = epochMs[i] as number;
-    if (bad && !(t >= MIN_EPOCH_MS && t <= MAX_EPOCH_MS)) {
-      result[i] = NaN;
+    if (!(t >= MIN_EPOCH_MS && t <= MAX_EPOCH_MS)) {
+      if (!sentinel) invalidInstant('epochMs', i, t);
+      result[i++] = NaN;
       continue;
     }
-    result[i] = t + e.offsetAt(t) * 1000;
+    const wider = tableCovering(e, epochMs, i, tab);
+    if (wider && wider !== tab) {
+      tab = wider;
+      continue;
+    }
+    for (; i < n; i++) {
+      const v = epochMs[i] as number;
+      if (v >= MIN_EPOCH_MS && v <= MAX_EPOCH_MS) result[i] = v + e.offsetAt(v) * 1000;
+      else if (sentinel) result[i] = NaN;
+      else invalidInstant('epochMs', i, v);
+    }
   }
   return result;
 }

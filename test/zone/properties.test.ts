@@ -141,3 +141,54 @@ describe('bulk equals scalar', () => {
     expect(INVALID_DAY_NUMBER).toBe(-(2 ** 31));
   });
 });
+
+describe('bulk conversions reuse and extend their day table across calls', () => {
+  // The bulk loop keeps the last day table of each zone and rebuilds it when an instant falls outside; every
+  // sequence of calls must still equal the scalar conversions (which ask the compiled zone directly).
+  const zones = ['America/New_York', 'Europe/Dublin', 'Australia/Lord_Howe', 'Africa/Casablanca'];
+  const ranges: Array<[number, number]> = [
+    [Date.UTC(2000, 0, 1), Date.UTC(2001, 0, 1)],
+    [Date.UTC(1950, 0, 1), Date.UTC(1952, 0, 1)],
+    [Date.UTC(1800, 0, 1), Date.UTC(2200, 0, 1)],
+    [Date.UTC(2020, 2, 1), Date.UTC(2020, 3, 1)],
+  ];
+  it('matches scalar results for sequences of calls over shifting ranges, with NaN under the sentinel policy', () => {
+    fc.assert(
+      fc.property(
+        fc.constantFrom(...zones),
+        fc.array(fc.tuple(fc.integer({ min: 0, max: ranges.length - 1 }), fc.integer({ min: 1, max: 300 }), fc.integer({ min: 0, max: 1 << 30 })), { minLength: 1, maxLength: 5 }),
+        (id, calls) => {
+          for (const [r, n, seed] of calls) {
+            const [lo, hi] = ranges[r]!;
+            const xs = new Float64Array(n);
+            let s = seed;
+            for (let i = 0; i < n; i++) {
+              s = (s * 1103515245 + 12345) >>> 0;
+              xs[i] = lo + Math.floor((s / 4294967296) * (hi - lo));
+            }
+            if (n > 3) xs[n >> 1] = Number.NaN;
+            const days = dayNumberFromEpochMsBulk(id, xs, undefined, { invalid: 'sentinel' });
+            const walls = wallMsFromEpochMsBulk(id, xs, undefined, { invalid: 'sentinel' });
+            for (let i = 0; i < n; i++) {
+              const t = xs[i]!;
+              if (Number.isNaN(t)) {
+                expect(days[i]).toBe(INVALID_DAY_NUMBER);
+                expect(walls[i]).toBeNaN();
+              } else {
+                expect(days[i]).toBe(dayNumberFromEpochMs(id, t));
+                expect(walls[i]).toBe(wallMsFromEpochMs(id, t));
+              }
+            }
+          }
+        },
+      ),
+      { seed: 31, numRuns: 120 },
+    );
+  });
+
+  it('throws naming the first invalid index under the default policy', () => {
+    const xs = Float64Array.of(0, 86_400_000, Number.NaN, Number.POSITIVE_INFINITY);
+    expect(() => dayNumberFromEpochMsBulk('Europe/Dublin', xs)).toThrow(/epochMs\[2\]: .* got NaN/);
+    expect(() => wallMsFromEpochMsBulk('Europe/Dublin', [0, 9e15])).toThrow(/epochMs\[1\]: .* got 9000000000000000/);
+  });
+});
