@@ -8,7 +8,7 @@
 import { MAX_DAY_NUMBER, MIN_DAY_NUMBER } from '../bounds.js';
 import { KalendsRangeError, requireInteger } from '../errors.js';
 import { dayNumberFromYmdUnchecked } from '../civil/gregorian.js';
-import { type UnitCore, type UnitInput, coreOf, resolveUnit } from './units.js';
+import { type UnitCore, type UnitInput, coreOf, toUnit } from './units.js';
 
 /** Days added so that every supported day number gives a positive 400-year era (700 eras). */
 const BIAS_DAYS = 700 * 146097;
@@ -180,7 +180,7 @@ function monthsOrdinal(dn: number, monthsPer: number, startMonthIndex: number, s
  * ```
  */
 export function ordinalFromDayNumberBulk(unit: UnitInput, dayNumbers: ArrayLike<number>, out?: Int32Array): Int32Array {
-  const u = resolveUnit(unit);
+  const u = toUnit(unit);
   const core = coreOf(u)!;
   const n = dayNumbers.length;
   const result = requireOut(out, n, 'ordinalFromDayNumberBulk');
@@ -199,7 +199,7 @@ export function ordinalFromDayNumberBulk(unit: UnitInput, dayNumbers: ArrayLike<
  * ```
  */
 export function labelFromOrdinalBulk(unit: UnitInput, ordinals: ArrayLike<number>): string[] {
-  const u = resolveUnit(unit);
+  const u = toUnit(unit);
   const core = coreOf(u)!;
   const n = ordinals.length;
   const labels = new Array<string>(n);
@@ -220,7 +220,7 @@ export function labelFromOrdinalBulk(unit: UnitInput, ordinals: ArrayLike<number
  * ```
  */
 export function firstDayNumberFromOrdinalBulk(unit: UnitInput, ordinals: ArrayLike<number>, out?: Int32Array): Int32Array {
-  const u = resolveUnit(unit);
+  const u = toUnit(unit);
   const core = coreOf(u)!;
   const n = ordinals.length;
   const result = requireOut(out, n, 'firstDayNumberFromOrdinalBulk');

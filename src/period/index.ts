@@ -19,7 +19,7 @@ export {
   type UnitKind,
   type UnitInput,
   defineUnit,
-  resolveUnit,
+  toUnit,
   DAY_UNIT,
   ISO_WEEK_UNIT,
   MONTH_UNIT,

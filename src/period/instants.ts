@@ -16,7 +16,7 @@ import {
 } from '../zone/index.js';
 import { ordinalsFromDaysKernel } from './bulk.js';
 import { type Period, periodChecked, requirePeriod } from './period.js';
-import { type UnitInput, coreOf, resolveUnit } from './units.js';
+import { type UnitInput, coreOf, toUnit } from './units.js';
 
 /**
  * The period of `unit` that holds the instant `epochMs`, on the local calendar of `zone`.
@@ -29,7 +29,7 @@ import { type UnitInput, coreOf, resolveUnit } from './units.js';
  * ```
  */
 export function periodFromEpochMs(unit: UnitInput, zone: ZoneInput, epochMs: number): Period {
-  const u = resolveUnit(unit);
+  const u = toUnit(unit);
   return periodChecked(u, u.ordinalOfDayNumber(dayNumberFromEpochMs(zone, epochMs)), 'periodFromEpochMs');
 }
 
@@ -99,7 +99,7 @@ export function ordinalFromEpochMsBulk(
   out?: Int32Array,
   options?: BulkOptions,
 ): Int32Array {
-  const u = resolveUnit(unit);
+  const u = toUnit(unit);
   const core = coreOf(u)!;
   const n = epochMs.length;
   if (out !== undefined && (!(out instanceof Int32Array) || out.length < n)) {

@@ -6,7 +6,7 @@
  */
 import { MAX_DAY_NUMBER, MIN_DAY_NUMBER } from '../bounds.js';
 import { KalendsRangeError, KalendsTypeError, describeValue, requireInteger } from '../errors.js';
-import { type PeriodUnit, type UnitCore, type UnitInput, coreOf, resolveUnit } from './units.js';
+import { type PeriodUnit, type UnitCore, type UnitInput, coreOf, toUnit } from './units.js';
 
 /** A period: a compiled unit and the period's ordinal in it. Immutable. */
 export interface Period {
@@ -55,7 +55,7 @@ export function periodChecked(unit: PeriodUnit, ordinal: number, what: string): 
  * ```
  */
 export function periodFromOrdinal(unit: UnitInput, ordinal: number): Period {
-  const u = resolveUnit(unit);
+  const u = toUnit(unit);
   return make(u, requireInteger('ordinal', ordinal, u.minOrdinal, u.maxOrdinal));
 }
 
@@ -68,7 +68,7 @@ export function periodFromOrdinal(unit: UnitInput, ordinal: number): Period {
  * ```
  */
 export function periodFromDayNumber(unit: UnitInput, dayNumber: number): Period {
-  const u = resolveUnit(unit);
+  const u = toUnit(unit);
   return make(u, u.ordinalOfDayNumber(dayNumber));
 }
 
@@ -214,7 +214,7 @@ export function formatPeriod(p: Period): string {
  * ```
  */
 export function parsePeriod(unit: UnitInput, text: string): Period {
-  const u = resolveUnit(unit);
+  const u = toUnit(unit);
   return make(u, u.parseLabel(text));
 }
 
@@ -240,7 +240,7 @@ export function periodYearEarlier(p: Period): Period {
 
 function subPeriodRange(p: Period, unit: UnitInput): { sub: PeriodUnit; first: number; last: number; start: number; end: number } {
   const core = requirePeriod(p, 'p');
-  const sub = resolveUnit(unit, 'unit');
+  const sub = toUnit(unit, 'unit');
   const subCore = coreOf(sub)!;
   const start = core.firstDayOf(p.ordinal);
   const end = core.firstDayOf(p.ordinal + 1);
@@ -310,7 +310,7 @@ export function listOverlappingPeriods(p: Period, unit: UnitInput): Period[] {
  */
 export function periodContaining(p: Period, unit: UnitInput): Period {
   const core = requirePeriod(p, 'p');
-  const u = resolveUnit(unit, 'unit');
+  const u = toUnit(unit, 'unit');
   const first = Math.max(core.firstDayOf(p.ordinal), MIN_DAY_NUMBER);
   return make(u, coreOf(u)!.ordinalOf(first));
 }

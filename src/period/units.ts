@@ -636,9 +636,16 @@ export function defineUnit(definition: UnitDefinition | CalendarUnitName): Perio
 export type UnitInput = PeriodUnit | UnitDefinition | CalendarUnitName;
 
 /**
- * @internal Resolves a unit input to a compiled unit; `name` is the parameter's name for messages.
+ * The one coercion point for units: a compiled unit is returned as it is, a definition or a calendar unit name is
+ * compiled (through the bounded unit cache). `name` is the parameter's name shown in error messages.
+ *
+ * @example
+ * ```ts
+ * toUnit('month') === MONTH_UNIT; // true
+ * toUnit({ kind: 'fiscal-year', start: { month: 4, day: 6 }, naming: 'start-year' }).formatLabel(2025); // 'FY2025'
+ * ```
  */
-export function resolveUnit(input: UnitInput, name = 'unit'): PeriodUnit {
+export function toUnit(input: UnitInput, name = 'unit'): PeriodUnit {
   if (coreOf(input)) return input as PeriodUnit;
   if (typeof input === 'string' || (typeof input === 'object' && input !== null && 'kind' in input && !('ordinalOfDayNumber' in input))) {
     return defineUnit(input as UnitDefinition);

@@ -17,7 +17,7 @@ import {
   toEpochMs,
 } from '../instant/index.js';
 import { type Zone, offsetSecondsAt, toZone } from '../zone/index.js';
-import { type PeriodUnit, resolveUnit } from '../period/index.js';
+import { type PeriodUnit, toUnit } from '../period/index.js';
 import {
   type BusinessCalendar,
   adjustDayNumber,
@@ -73,7 +73,7 @@ export function businessOps(input: unknown, path: string): BusinessOps {
 
 /** A period unit from a compiled unit, a unit definition, or a calendar unit name such as "quarter". */
 export function periodOps(input: unknown, path: string): PeriodOps {
-  const unit = resolveUnit(input as never, path);
+  const unit = toUnit(input as never, path);
   return {
     id: unit.id,
     unit,

@@ -6,7 +6,7 @@
  */
 import { KalendsTypeError, describeValue } from '../errors.js';
 import { type Zone, type ZoneInput, dayNumberFromEpochMs, dayStartEpochMs, toZone } from '../zone/index.js';
-import { type PeriodUnit, type UnitInput, resolveUnit } from '../period/index.js';
+import { type PeriodUnit, type UnitInput, toUnit } from '../period/index.js';
 
 export type { Zone, ZoneInput, PeriodUnit, UnitInput };
 
@@ -29,7 +29,7 @@ export function requireUnit(unit: unknown, name: string): PeriodUnit {
       received: unit,
     });
   }
-  return resolveUnit(unit as UnitInput, name);
+  return toUnit(unit as UnitInput, name);
 }
 
 /** @internal The ordinal of the period of `unit` holding instant `epochMs` in `zone`. */
