@@ -465,3 +465,20 @@ export function nthBusinessDayOfPeriod(calendar: CalendarInput, period: PeriodLi
   const end = unit.firstDayNumberOf(period.ordinal + 1);
   return nthBusinessDayInRange(calendar, start, end, n);
 }
+
+/**
+ * @internal {@link nthBusinessDayInRange} without validation and without throwing: NaN when [start, end) holds
+ * fewer than |n| business days (or n = 0). `calendar` must be a compiled calendar, and start <= end integer day
+ * numbers with [start, end) inside its supported years. O(1) per 32 days walked from the end it counts from.
+ */
+export function nthBusinessDayInRangeUnchecked(calendar: BusinessCalendar, start: number, end: number, n: number): number {
+  return (calendar as Internal)[ENGINE].nthInRange(start, end, n);
+}
+
+/**
+ * @internal Pushes every business day in [start, end) to `out` in increasing order, without validation:
+ * `calendar` must be a compiled calendar and [start, end) inside its supported years.
+ */
+export function appendBusinessDaysUnchecked(calendar: BusinessCalendar, start: number, end: number, out: { push(dayNumber: number): void }): void {
+  (calendar as Internal)[ENGINE].appendBusinessDays(start, end, out);
+}

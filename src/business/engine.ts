@@ -44,6 +44,8 @@ export class Engine {
   private words = new Uint32Array(0);
   /** cum[w] = business days in the window before word w; cum[count * 12] is the window's total. */
   private cum = new Int32Array(1);
+  /** yearStarts[i] = day number of 1 January of year lo + i, for i in 0..count (the last is the day after the window). */
+  private yearStarts = new Int32Array(1);
 
   /** First supported day, and the day after the last one. */
   readonly firstDay: number;
@@ -92,6 +94,9 @@ export class Engine {
       acc += popcount32(words[w]!);
     }
     cum[n * WORDS] = acc;
+    const yearStarts = new Int32Array(n + 1);
+    for (let i = 0; i <= n; i++) yearStarts[i] = dayNumberFromYmdUnchecked(newLo + i, 1, 1);
+    this.yearStarts = yearStarts;
     this.lo = newLo;
     this.count = n;
     this.words = words;
@@ -212,6 +217,122 @@ export class Engine {
       if (emptyYears >= MAX_EMPTY_YEARS) throw this.noBusinessDay(dn, 'before');
     }
     return this.select(k);
+  }
+
+  /**
+   * @internal The nth business day in [a, b) (n = 1 the first, n = -1 the last), or NaN when the range holds
+   * fewer than |n| business days (or n = 0, or a >= b). Unchecked: a and b must be integer day numbers with
+   * firstDay <= a and b <= endDay. O(1) per 32 days of the range walked, never day by day: it reads the range's
+   * words from the end it counts from and picks the bit within one word.
+   */
+  nthInRange(a: number, b: number, n: number): number {
+    if (a >= b || n === 0) return Number.NaN;
+    if (this.count === 0 || a < this.yearStarts[0]! || b > this.yearStarts[this.count]!) {
+      const ya = yearOfDayNumberUnchecked(a);
+      const yb = yearOfDayNumberUnchecked(b - 1);
+      if (yb - ya + 1 > MAX_WINDOW_YEARS) return this.nthInLongRange(a, b, n);
+      this.ensure(ya, yb);
+    }
+    const words = this.words;
+    const ys = this.yearStarts;
+    if (n > 0) {
+      let yi = this.yearIndex(a);
+      let doy = a - ys[yi]!;
+      let w = yi * WORDS + (doy >> 5);
+      let x = words[w]! & (0xffffffff << (doy & 31));
+      let wordStart = a - (doy & 31);
+      let left = n;
+      for (;;) {
+        const c = popcount32(x);
+        if (c >= left) {
+          for (let r = left - 1; r > 0; r--) x &= x - 1;
+          const d = wordStart + (31 - Math.clz32(x & -x));
+          return d < b ? d : Number.NaN;
+        }
+        left -= c;
+        w++;
+        wordStart += 32;
+        // Past a year's last word: the next year's first word (the unused bits of a year's last word are zero).
+        if (w % WORDS === 0) wordStart = ys[++yi]!;
+        if (wordStart >= b) return Number.NaN;
+        x = words[w]!;
+      }
+    }
+    let yi = this.yearIndex(b - 1);
+    let doy = b - 1 - ys[yi]!;
+    let w = yi * WORDS + (doy >> 5);
+    let x = words[w]! & (0xffffffff >>> (31 - (doy & 31)));
+    let wordStart = b - 1 - (doy & 31);
+    let left = -n;
+    for (;;) {
+      const c = popcount32(x);
+      if (c >= left) {
+        for (let r = c - left; r > 0; r--) x &= x - 1;
+        const d = wordStart + (31 - Math.clz32(x & -x));
+        return d >= a ? d : Number.NaN;
+      }
+      left -= c;
+      if (wordStart <= a) return Number.NaN;
+      // Before a year's first word: the previous year's last word.
+      wordStart = w % WORDS === 0 ? ys[--yi]! + (WORDS - 1) * 32 : wordStart - 32;
+      w--;
+      x = words[w]!;
+    }
+  }
+
+  /** Index in the window of the year holding `dn` (which must be in the window). */
+  private yearIndex(dn: number): number {
+    const ys = this.yearStarts;
+    let yi = Math.min(((dn - ys[0]!) / 365.2425) | 0, this.count - 1);
+    while (ys[yi]! > dn) yi--;
+    while (ys[yi + 1]! <= dn) yi++;
+    return yi;
+  }
+
+  /** {@link nthInRange} for ranges longer than the window: counts, then shifts. */
+  private nthInLongRange(a: number, b: number, n: number): number {
+    const available = this.countBetween(a, b);
+    if (Math.abs(n) > available) return Number.NaN;
+    if (n > 0) {
+      const first = this.shift(a, 0);
+      return n === 1 ? first : this.shift(first, n - 1);
+    }
+    const last = this.isBusinessDay(b - 1) ? b - 1 : this.shift(b - 1, -1);
+    return n === -1 ? last : this.shift(last, n + 1);
+  }
+
+  /**
+   * @internal Pushes every business day in [a, b) to `out`, in increasing order. Unchecked: a and b must be
+   * integer day numbers with firstDay <= a and b <= endDay. Reads one word per 32 days and one bit scan per
+   * business day.
+   */
+  appendBusinessDays(a: number, b: number, out: { push(dayNumber: number): void }): void {
+    if (a >= b) return;
+    const ya = yearOfDayNumberUnchecked(a);
+    const yb = yearOfDayNumberUnchecked(b - 1);
+    for (let chunk = ya; chunk <= yb; chunk += MAX_WINDOW_YEARS) {
+      const chunkHi = Math.min(yb, chunk + MAX_WINDOW_YEARS - 1);
+      this.ensure(chunk, chunkHi);
+      const words = this.words;
+      for (let y = chunk; y <= chunkHi; y++) {
+        const jan1 = dayNumberFromYmdUnchecked(y, 1, 1);
+        const from = Math.max(a, jan1) - jan1;
+        const to = Math.min(b, dayNumberFromYmdUnchecked(y + 1, 1, 1)) - jan1; // exclusive, > from
+        const base = (y - this.lo) * WORDS;
+        const wLast = (to - 1) >> 5;
+        for (let wi = from >> 5; wi <= wLast; wi++) {
+          let x = words[base + wi]!;
+          if (wi === from >> 5) x &= 0xffffffff << (from & 31);
+          if (wi === wLast) x &= 0xffffffff >>> (31 - ((to - 1) & 31));
+          const start = jan1 + wi * 32;
+          while (x !== 0) {
+            const t = x & -x;
+            out.push(start + 31 - Math.clz32(t));
+            x ^= t;
+          }
+        }
+      }
+    }
   }
 
   /** Business days in [a, b), a <= b; b may be the first day after the last supported year. */

@@ -27,6 +27,7 @@ import {
   isBusinessDay,
   nthBusinessDayInRange,
 } from '../business/index.js';
+import { appendBusinessDaysUnchecked, nthBusinessDayInRangeUnchecked } from '../business/calendar.js';
 import type { BusinessOps, PeriodOps, ZoneOps } from './engine.js';
 
 export { formatInstant, formatPlainDate, formatPlainDateTime, parseInstant, parsePlainDate, parsePlainDateTime, toDayNumber, toEpochMs };
@@ -61,6 +62,8 @@ export function businessOps(input: unknown, path: string): BusinessOps {
     isBusinessDay: (dn) => isBusinessDay(cal, dn),
     adjust: (dn, convention) => adjustDayNumber(cal, dn, convention as never),
     countBusinessDays: (a, b) => countBusinessDays(cal, a, b),
+    nthInRangeUnchecked: (a, b, n) => nthBusinessDayInRangeUnchecked(cal, a, b, n),
+    appendBusinessDaysUnchecked: (a, b, out) => appendBusinessDaysUnchecked(cal, a, b, out),
     nthBusinessDayInRange: (a, b, n) => {
       try {
         return nthBusinessDayInRange(cal, a, b, n);

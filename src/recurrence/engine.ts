@@ -63,6 +63,14 @@ export interface BusinessOps {
   countBusinessDays(start: number, end: number): number;
   /** The n-th business day in [start, end) (n < 0 counts from the end), or undefined. For checks only. */
   nthBusinessDayInRange(start: number, end: number, n: number): number | undefined;
+  /**
+   * Fast path of the engines: the n-th business day in [start, end) (n < 0 counts from the end), or NaN when
+   * there are fewer than |n|. Unchecked: [start, end) must lie in [firstDay, endDay). Reads the compiled
+   * calendar's bitsets a word (32 days) at a time.
+   */
+  nthInRangeUnchecked(start: number, end: number, n: number): number;
+  /** Fast path of the engines: pushes the business days in [start, end) to `out`. Unchecked, as above. */
+  appendBusinessDaysUnchecked(start: number, end: number, out: Sink): void;
   /** The compiled calendar, for definitions that are serialized again. */
   readonly calendar: unknown;
 }
@@ -151,6 +159,12 @@ export function pickDay(s: Selector, first: number, end: number, business: Busin
     return d >= first ? d : NONE;
   }
   const cal = business!;
+  if (first >= cal.firstDay && end <= cal.endDay) {
+    const d = cal.nthInRangeUnchecked(first, end, s.n);
+    return d === d ? d : NONE;
+  }
+  // A period that reaches past the calendar's years: scan with the validated check, which reports the day
+  // outside them (unless the day is found first).
   let seen = 0;
   if (s.n > 0) {
     for (let d = first; d < end; d++) if (cal.isBusinessDay(d) && ++seen === s.n) return d;
@@ -209,18 +223,35 @@ export function daysEngine(anchor: number, step: number): Engine {
   };
 }
 
-/** Every `step` business days, counting the first business day on or after `anchor` as number 0. */
+/**
+ * Every `step` business days, counting the first business day on or after `anchor` as number 0. The business
+ * days come from the calendar's bitsets a word at a time (rule ranges lie inside the calendar's years: compile
+ * clips `rawStart`/`rawEnd` to them); a range outside them falls back to the validated check, which reports it.
+ */
 export function businessDaysEngine(cal: BusinessOps, anchor: number, step: number): Engine {
   return {
     stride: step * 1.4,
     maxGap: Number.POSITIVE_INFINITY,
     fill(lo, hi, out) {
+      if (lo >= hi) return;
+      const fast = lo >= cal.firstDay && hi <= cal.endDay;
       if (step === 1) {
-        for (let d = lo; d < hi; d++) if (cal.isBusinessDay(d)) out.push(d);
+        if (fast) cal.appendBusinessDaysUnchecked(lo, hi, out);
+        else for (let d = lo; d < hi; d++) if (cal.isBusinessDay(d)) out.push(d);
         return;
       }
       // Index (in business days from the anchor) of the first business day on or after lo.
       let index = lo >= anchor ? cal.countBusinessDays(anchor, lo) : -cal.countBusinessDays(lo, anchor);
+      if (fast) {
+        // Append all, then keep every step-th in place.
+        const from = out.length;
+        cal.appendBusinessDaysUnchecked(lo, hi, out);
+        const data = out.data;
+        let w = from;
+        for (let i = from; i < out.length; i++, index++) if (mod(index, step) === 0) data[w++] = data[i]!;
+        out.length = w;
+        return;
+      }
       for (let d = lo; d < hi; d++) {
         if (!cal.isBusinessDay(d)) continue;
         if (mod(index, step) === 0) out.push(d);
@@ -268,12 +299,34 @@ export function monthsEngine(
       if (lo >= hi) return;
       const miLo = Math.max(monthIndexOf(lo), MIN_MONTH_INDEX);
       const miHi = Math.min(monthIndexOf(hi - 1), MAX_MONTH_INDEX);
-      for (let mi = miLo + mod(phase - miLo, step); mi <= miHi; mi += step) {
-        const y = Math.floor(mi / 12);
-        const m = mi - y * 12 + 1;
-        if (monthMask !== 0 && ((monthMask >> m) & 1) === 0) continue;
-        const first = dayNumberFromYmdUnchecked(y, m, 1);
-        emitSelected(selectors, first, first + daysInMonthUnchecked(y, m), lo, hi, business, scratch, out);
+      let mi = miLo + mod(phase - miLo, step);
+      if (mi > miHi) return;
+      // Walk the months by year and month, carrying the first day forward (no division per month).
+      let y = Math.floor(mi / 12);
+      let m = mi - y * 12 + 1;
+      let first = dayNumberFromYmdUnchecked(y, m, 1);
+      const one = selectors.length === 1 ? selectors[0]! : undefined;
+      for (;;) {
+        const end = first + daysInMonthUnchecked(y, m);
+        if (monthMask === 0 || ((monthMask >> m) & 1) !== 0) {
+          if (one !== undefined) {
+            const d = pickDay(one, first, end, business);
+            if (d !== NONE && d >= lo && d < hi) out.push(d);
+          } else emitSelected(selectors, first, end, lo, hi, business, scratch, out);
+        }
+        mi += step;
+        if (mi > miHi) return;
+        if (step === 1) {
+          first = end;
+          if (++m > 12) {
+            m = 1;
+            y++;
+          }
+        } else {
+          y = Math.floor(mi / 12);
+          m = mi - y * 12 + 1;
+          first = dayNumberFromYmdUnchecked(y, m, 1);
+        }
       }
     },
   };
