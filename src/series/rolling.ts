@@ -24,6 +24,7 @@ import {
 import { type AggregationName, compileAggregations } from './aggregate.js';
 import { type ZoneInput, resolveZone } from './deps.js';
 import { type Series, makeSeries, requireSeries } from './series.js';
+import { fixedLengthSums } from './rolling-fixed.js';
 
 /**
  * A calendar span: an ISO 8601 duration string (`'P30D'`, `'P1M'`, `'P1W'`, `'PT12H'`), the instant layer's
@@ -410,69 +411,6 @@ export function rollKernel(
     out[i] = head < tail && cnt >= minObs ? v[dq[head]!]! : Number.NaN;
   }
   return out;
-}
-
-/**
- * The common case on its own: a fixed-length window (t - L, t] over a column without missing values. Each step
- * gathers the change of the window sum (rows added minus rows removed) exactly, as a sum and its rounding error
- * (Knuth's TwoSum), then applies it to the running sum in one compensated (Neumaier) update: one dependent
- * addition per row instead of one per added or removed row. Up to two removals per step are branch-free (a
- * multiplication by 0 or 1), which keeps the unpredictable "how many rows left" decision out of the hot path.
- * Returns false at the first missing value; the general kernel then does the work.
- */
-function fixedLengthSums(t: Float64Array, v: Float64Array, lengthMs: number, what: 0 | 1 | 2, minObs: number, out: Float64Array): boolean {
-  const n = t.length;
-  let s = 0;
-  let c = 0;
-  let cnt = 0;
-  let l = 0;
-  let h = 0;
-  for (let i = 0; i < n; i++) {
-    const e = t[i]!;
-    const st = e - lengthMs;
-    let d = 0;
-    let de = 0;
-    while (h < n && t[h]! <= e) {
-      const x = v[h++]!;
-      if (x !== x) return false;
-      const y = d + x;
-      const b = y - d;
-      de += d - (y - b) + (x - b);
-      d = y;
-      cnt++;
-    }
-    // l <= i < h here. Rows before h were added, so their values are not NaN; when l + 1 = h (then l = i) the
-    // second test repeats the first, which is false: row i never leaves its own window. Both instants are
-    // loaded at once, so the two tests do not wait on each other.
-    const l1 = l + 1 < h ? l + 1 : l;
-    const m1 = +(t[l]! <= st);
-    const m2 = +(t[l1]! <= st);
-    let x = -v[l]! * m1;
-    let y = d + x;
-    let b = y - d;
-    de += d - (y - b) + (x - b);
-    d = y;
-    x = -v[l1]! * m2;
-    y = d + x;
-    b = y - d;
-    de += d - (y - b) + (x - b);
-    d = y;
-    cnt -= m1 + m2;
-    l += m1 + m2;
-    while (t[l]! <= st) {
-      x = -v[l++]!;
-      y = d + x;
-      b = y - d;
-      de += d - (y - b) + (x - b);
-      d = y;
-      cnt--;
-    }
-    const ys = s + d;
-    c += (Math.abs(s) >= Math.abs(d) ? s - ys + d : d - ys + s) + de;
-    s = ys;
-    out[i] = what === 0 ? cnt : cnt >= minObs ? (what === 2 ? (s + c) / cnt : s + c) : Number.NaN;
-  }
-  return true;
 }
 
 function readMinObservations(v: unknown): number {
