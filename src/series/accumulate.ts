@@ -142,9 +142,9 @@ export function createBucketAccumulator(options: BucketAccumulatorOptions): Buck
       case 'rows':
         return a.rows;
       case 'sum':
-        return a.s + a.c;
+        return a.s - a.s === 0 ? a.s + a.c : a.s;
       case 'mean':
-        return a.count > 0 ? (a.s + a.c) / a.count : NaN;
+        return a.count > 0 ? (a.s - a.s === 0 ? a.s + a.c : a.s) / a.count : NaN;
       case 'min':
       case 'low':
         return a.min;

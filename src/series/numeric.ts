@@ -26,7 +26,9 @@ export function compensatedSum(a: Float64Array, lo: number, hi: number, scratch:
     n++;
   }
   scratch[0] = n;
-  return s + c;
+  // An infinite addend makes the compensation NaN (Infinity - Infinity); the plain sum is then the answer
+  // (±Infinity, or NaN when both signs occurred).
+  return s - s === 0 ? s + c : s;
 }
 
 /**

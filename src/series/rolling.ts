@@ -276,9 +276,13 @@ export function rollKernel(
     if (fixedLengthSums(t, v, win.lengthMs, kind === 'count' ? 0 : kind === 'sum' ? 1 : 2, minObs, out)) return out;
   }
   if (kind === 'count' || kind === 'sum' || kind === 'mean') {
+    // Finite values go into a compensated running sum; infinite ones are counted apart (a running sum could not
+    // take an infinity back out: Infinity - Infinity is NaN), and decide the result while any is in the window.
     let s = 0;
     let c = 0;
     let cnt = 0;
+    let posInf = 0;
+    let negInf = 0;
     let L = 0;
     let H = 0;
     const what = kind === 'count' ? 0 : kind === 'sum' ? 1 : 2;
@@ -288,25 +292,38 @@ export function rollKernel(
       while (H < hiI) {
         const x = v[H++]!;
         if (x === x) {
+          cnt++;
+          if (x - x !== 0) {
+            if (x > 0) posInf++;
+            else negInf++;
+            continue;
+          }
           const y = s + x;
           if (Math.abs(s) >= Math.abs(x)) c += s - y + x;
           else c += x - y + s;
           s = y;
-          cnt++;
         }
       }
       const loI = cur.lo;
       while (L < loI) {
         const x = -v[L++]!;
         if (x === x) {
-          const y = s + x;
-          if (Math.abs(s) >= Math.abs(x)) c += s - y + x;
-          else c += x - y + s;
-          s = y;
+          if (x - x !== 0) {
+            if (x < 0) posInf--;
+            else negInf--;
+          } else {
+            const y = s + x;
+            if (Math.abs(s) >= Math.abs(x)) c += s - y + x;
+            else c += x - y + s;
+            s = y;
+          }
           if (--cnt === 0) s = c = 0;
         }
       }
-      out[i] = what === 0 ? cnt : cnt >= minObs ? (what === 2 ? (s + c) / cnt : s + c) : Number.NaN;
+      let total = s + c;
+      if (posInf > 0) total = negInf > 0 ? Number.NaN : Number.POSITIVE_INFINITY;
+      else if (negInf > 0) total = Number.NEGATIVE_INFINITY;
+      out[i] = what === 0 ? cnt : cnt >= minObs ? (what === 2 ? total / cnt : total) : Number.NaN;
     }
     return out;
   }

@@ -189,3 +189,26 @@ describe('bucketSeries: zones, ranges and empty periods', () => {
     expect(b({ unit: 'fortnight' })).toThrow(/unit/);
   });
 });
+
+describe('infinite values in buckets (IEEE 754 arithmetic: x + Infinity = Infinity, Infinity + -Infinity = NaN)', () => {
+  const day = 86_400_000;
+  const cases: Array<[string, number[], number, number]> = [
+    ['one +Infinity', [1, Infinity, 2], Infinity, Infinity],
+    ['one -Infinity', [1, -Infinity], -Infinity, -Infinity],
+    ['both signs', [Infinity, 5, -Infinity], Number.NaN, Number.NaN],
+    ['finite only', [1.5, 2.5], 4, 2],
+  ];
+  for (const [name, values, sum, mean] of cases) {
+    it(`${name}: sum ${sum}, mean ${mean}, in bucketSeries and in the streaming accumulator`, () => {
+      const times = values.map((_, i) => day + i * 1000);
+      const table = bucketSeries(seriesFromColumns(times, { v: values }), { unit: 'day', zone: 'UTC', aggregations: ['sum', 'mean'] });
+      expect(table.columns.sum![0]).toBe(sum);
+      expect(table.columns.mean![0]).toBe(mean);
+      const acc = createBucketAccumulator({ unit: 'day', zone: 'UTC', aggregations: ['sum', 'mean'] });
+      values.forEach((v, i) => acc.add(times[i]!, v));
+      const streamed = acc.finish();
+      expect(streamed.columns.sum![0]).toBe(sum);
+      expect(streamed.columns.mean![0]).toBe(mean);
+    });
+  }
+});
