@@ -175,6 +175,35 @@ function tableCovering(e: Engine, values: Input, from: number, current: RangedTa
   return ranged;
 }
 
+/**
+ * The hot loop of {@link dayNumberFromEpochMsBulk}: converts from index `i` while each instant's UTC day is inside
+ * the table and holds one offset all day; returns the index of the first element it did not convert (n when done).
+ */
+function dayNumbersKernel(src: Input, dst: Int32Array, i: number, n: number, codes: Uint8Array, offsets: Float64Array, d0: number, days: number): number {
+  for (; i < n; i++) {
+    const t = src[i] as number;
+    const k = Math.floor(t / MS_PER_DAY) - d0;
+    if (!(k >= 0 && k < days)) return i;
+    const c = codes[k]!;
+    if (c >= BUSY_DAY) return i;
+    dst[i] = Math.floor((t + offsets[c]!) / MS_PER_DAY);
+  }
+  return i;
+}
+
+/** The hot loop of {@link wallMsFromEpochMsBulk}; the same contract as {@link dayNumbersKernel}. */
+function wallMsKernel(src: Input, dst: Float64Array, i: number, n: number, codes: Uint8Array, offsets: Float64Array, d0: number, days: number): number {
+  for (; i < n; i++) {
+    const t = src[i] as number;
+    const k = Math.floor(t / MS_PER_DAY) - d0;
+    if (!(k >= 0 && k < days)) return i;
+    const c = codes[k]!;
+    if (c >= BUSY_DAY) return i;
+    dst[i] = t + offsets[c]!;
+  }
+  return i;
+}
+
 function checkOut<T extends Int32Array | Float64Array>(name: string, out: T | undefined, n: number, make: (n: number) => T, kind: string): T {
   if (out === undefined) return make(n);
   if (!(out instanceof (kind === 'Int32Array' ? Int32Array : Float64Array))) {
@@ -216,21 +245,22 @@ export function dayNumberFromEpochMsBulk(zone: ZoneInput, epochMs: Input, out?: 
   let i = 0;
   while (i < n) {
     if (tab) {
-      // The hot loop: one table lookup per element. An instant outside the table (or NaN, which fails both
-      // comparisons) leaves the loop.
+      // The hot loop runs in a small kernel of its own (V8 optimizes it far better than a loop inside this
+      // function); it stops at an instant outside the table (or NaN) and at a day with a transition inside.
       const { codes, offsets, changeIndex, changeAt, changeBefore, changeAfter, d0, days } = tab;
-      for (; i < n; i++) {
+      while (i < n) {
+        i = dayNumbersKernel(epochMs, result, i, n, codes, offsets, d0, days);
+        if (i >= n) break;
         const t = epochMs[i] as number;
         const k = Math.floor(t / MS_PER_DAY) - d0;
         if (!(k >= 0 && k < days)) break;
         const c = codes[k]!;
         let off: number;
-        if (c < BUSY_DAY) off = offsets[c]!;
-        else if (c === CHANGE_DAY) {
+        if (c === CHANGE_DAY) {
           const j = changeIndex[k]!;
           off = t < changeAt[j]! ? changeBefore[j]! : changeAfter[j]!;
         } else off = e.offsetAt(t) * 1000;
-        result[i] = Math.floor((t + off) / MS_PER_DAY);
+        result[i++] = Math.floor((t + off) / MS_PER_DAY);
       }
       if (i >= n) break;
     }
@@ -285,18 +315,19 @@ export function wallMsFromEpochMsBulk(zone: ZoneInput, epochMs: Input, out?: Flo
   while (i < n) {
     if (tab) {
       const { codes, offsets, changeIndex, changeAt, changeBefore, changeAfter, d0, days } = tab;
-      for (; i < n; i++) {
+      while (i < n) {
+        i = wallMsKernel(epochMs, result, i, n, codes, offsets, d0, days);
+        if (i >= n) break;
         const t = epochMs[i] as number;
         const k = Math.floor(t / MS_PER_DAY) - d0;
         if (!(k >= 0 && k < days)) break;
         const c = codes[k]!;
         let off: number;
-        if (c < BUSY_DAY) off = offsets[c]!;
-        else if (c === CHANGE_DAY) {
+        if (c === CHANGE_DAY) {
           const j = changeIndex[k]!;
           off = t < changeAt[j]! ? changeBefore[j]! : changeAfter[j]!;
         } else off = e.offsetAt(t) * 1000;
-        result[i] = t + off;
+        result[i++] = t + off;
       }
       if (i >= n) break;
     }
