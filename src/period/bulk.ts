@@ -1,7 +1,8 @@
 /**
  * Bulk conversions: day numbers to ordinals over typed arrays in one pass, with a loop specialized for each
- * kind of unit (a division for weeks and cycles, a packed civil computation for month-based units, a cached
- * per-week table for 52/53-week fiscal units). No per-element allocation.
+ * kind of unit (a division for weeks and cycles; for month-based and 52/53-week units, a dense day-to-ordinal
+ * table over the input's days, built from a packed civil computation or a cached per-week table). No per-element
+ * allocation.
  *
  * @module
  */
@@ -95,26 +96,106 @@ function cycleTableOf(core: UnitCore, perYear: number): CycleTable {
   return t;
 }
 
-/** @internal Converts validated day numbers with the unit's kernel into `out`. `src` may be `out`. */
+/** Days added on each side of the input's range when a dense day table is built, so nearby later calls reuse it. */
+const DENSE_MARGIN_DAYS = 366;
+/** Largest dense day table (days, about 2,900 years). */
+const DENSE_MAX_DAYS = 1 << 20;
+
+/** A dense table of ordinals for the days [lo, lo + ordinals.length). */
+interface DenseTable {
+  readonly lo: number;
+  readonly ordinals: Int32Array;
+}
+/** The last dense table built for each unit; later calls over similar days reuse it. */
+const denseTables = new WeakMap<UnitCore, DenseTable>();
+
+/**
+ * A dense table covering the day numbers src[from..n), joined with the unit's current table when the union is not
+ * too wide; undefined when the input's own range is too wide (then the unit's arithmetic serves each element).
+ */
+function denseCovering(core: UnitCore, src: ArrayLike<number>, from: number, n: number, current: DenseTable | undefined): DenseTable | undefined {
+  let min = Infinity;
+  let max = -Infinity;
+  for (let i = from; i < n; i++) {
+    const d = src[i]!;
+    min = d < min ? d : min;
+    max = d > max ? d : max;
+  }
+  let lo = Math.max(MIN_DAY_NUMBER, min - DENSE_MARGIN_DAYS);
+  let hi = Math.min(MAX_DAY_NUMBER + 1, max + DENSE_MARGIN_DAYS + 1);
+  if (hi - lo > DENSE_MAX_DAYS || hi - lo > 4 * (n - from) + 4096 + 2 * DENSE_MARGIN_DAYS) return undefined;
+  if (current && Math.max(hi, current.lo + current.ordinals.length) - Math.min(lo, current.lo) <= DENSE_MAX_DAYS) {
+    hi = Math.max(hi, current.lo + current.ordinals.length);
+    lo = Math.min(lo, current.lo);
+  }
+  const days = new Int32Array(hi - lo);
+  for (let k = 0; k < days.length; k++) days[k] = lo + k;
+  const ordinals = new Int32Array(days.length);
+  computeOrdinals(core, days, ordinals, 0, days.length);
+  const table = { lo, ordinals };
+  denseTables.set(core, table);
+  return table;
+}
+
+/** The hot loop over a dense table: converts from `i` while the day is inside it; returns where it stopped. */
+function denseKernel(src: ArrayLike<number>, out: Int32Array, i: number, n: number, ordinals: Int32Array, lo: number): number {
+  const len = ordinals.length;
+  for (; i < n; i++) {
+    const k = src[i]! - lo;
+    if (!(k >= 0 && k < len)) return i;
+    out[i] = ordinals[k]!;
+  }
+  return i;
+}
+
+/**
+ * @internal Converts validated day numbers with the unit's kernel into `out`. `src` may be `out`. Units of fixed
+ * length (days, weeks, cycles) divide; month-based and 52/53-week units look each day up in a dense table of
+ * ordinals built over the input's days (one load per element), falling back to their arithmetic when the input's
+ * range is far wider than the input is long.
+ */
 export function ordinalsFromDaysKernel(core: UnitCore, src: ArrayLike<number>, out: Int32Array, n: number): void {
+  if (core.kernel.type === 'linear' || n < WEEK_TABLE_MIN_ELEMENTS) {
+    computeOrdinals(core, src, out, 0, n);
+    return;
+  }
+  let tab = denseTables.get(core);
+  let i = 0;
+  while (i < n) {
+    if (tab) {
+      i = denseKernel(src, out, i, n, tab.ordinals, tab.lo);
+      if (i >= n) break;
+    }
+    const wider = denseCovering(core, src, i, n, tab);
+    if (wider && wider !== tab) {
+      tab = wider;
+      continue;
+    }
+    computeOrdinals(core, src, out, i, n);
+    break;
+  }
+}
+
+/** Computes the ordinals of validated day numbers src[from..n) into `out` with the unit's own arithmetic. */
+function computeOrdinals(core: UnitCore, src: ArrayLike<number>, out: Int32Array, from: number, n: number): void {
   const k = core.kernel;
   if (k.type === 'linear') {
     const origin = k.origin;
     const length = k.length;
     if (length === 1) {
-      for (let i = 0; i < n; i++) out[i] = src[i]! - origin;
+      for (let i = from; i < n; i++) out[i] = src[i]! - origin;
     } else if (length === 7) {
       const shift = WEEK_BIAS - origin;
       const back = WEEK_BIAS / 7;
-      for (let i = 0; i < n; i++) out[i] = (((src[i]! + shift) / 7) | 0) - back;
+      for (let i = from; i < n; i++) out[i] = (((src[i]! + shift) / 7) | 0) - back;
     } else {
-      for (let i = 0; i < n; i++) out[i] = Math.floor((src[i]! - origin) / length);
+      for (let i = from; i < n; i++) out[i] = Math.floor((src[i]! - origin) / length);
     }
     return;
   }
-  if (k.type === 'weeks' && n < WEEK_TABLE_MIN_ELEMENTS) {
+  if (k.type === 'weeks' && n - from < WEEK_TABLE_MIN_ELEMENTS) {
     const ordinalOf = core.ordinalOf;
-    for (let i = 0; i < n; i++) out[i] = ordinalOf(src[i]!);
+    for (let i = from; i < n; i++) out[i] = ordinalOf(src[i]!);
     return;
   }
   if (k.type === 'weeks') {
@@ -124,7 +205,7 @@ export function ordinalsFromDaysKernel(core: UnitCore, src: ArrayLike<number>, o
     const ordinalOf = core.ordinalOf;
     const shift = WEEK_BIAS - origin;
     const back = WEEK_BIAS / 7 + firstWeek;
-    for (let i = 0; i < n; i++) {
+    for (let i = from; i < n; i++) {
       const dn = src[i]!;
       const idx = (((dn + shift) / 7) | 0) - back;
       out[i] = idx >= 0 && idx < size ? ordinals[idx]! : ordinalOf(dn);
@@ -133,7 +214,7 @@ export function ordinalsFromDaysKernel(core: UnitCore, src: ArrayLike<number>, o
   }
   const { base, perCycle, offsets } = cycleTableOf(core, 12 / k.monthsPer);
   const { monthsPer, startMonthIndex, startDay, addend } = k;
-  for (let i = 0; i < n; i++) {
+  for (let i = from; i < n; i++) {
     const dn = src[i]!;
     const z = dn - CYCLE_ORIGIN;
     if (z >= 0 && z < CYCLE_WINDOW) {

@@ -171,6 +171,38 @@ describe('period: properties', () => {
     );
   });
 
+  it('bulk equals scalar across calls whose days move around (dense day tables are reused, widened, or skipped when too wide)', () => {
+    const spans: Array<[number, number]> = [
+      [dayNumberFromYmd(2000, 1, 1), dayNumberFromYmd(2040, 1, 1)],
+      [dayNumberFromYmd(1950, 1, 1), dayNumberFromYmd(1955, 1, 1)],
+      [dayNumberFromYmd(-5000, 1, 1), dayNumberFromYmd(9000, 1, 1)],
+      [dayNumberFromYmd(2024, 2, 1), dayNumberFromYmd(2024, 3, 1)],
+    ];
+    fc.assert(
+      fc.property(
+        fc.oneof(monthFiscalDef, weekFiscalDef),
+        fc.array(fc.tuple(fc.integer({ min: 0, max: spans.length - 1 }), fc.integer({ min: 0, max: 1 << 30 })), { minLength: 1, maxLength: 4 }),
+        (def, calls) => {
+          const u = defineUnit(def);
+          for (const [k, seed] of calls) {
+            const [lo, hi] = spans[k]!;
+            const days = new Int32Array(2500);
+            let x = seed;
+            for (let i = 0; i < days.length; i++) {
+              x = (x * 1103515245 + 12345) >>> 0;
+              days[i] = lo + Math.floor((x / 4294967296) * (hi - lo));
+            }
+            const ords = ordinalFromDayNumberBulk(u, days);
+            for (let i = 0; i < days.length; i++) {
+              if (ords[i] !== u.ordinalOfDayNumber(days[i]!)) expect.fail(`${u.id}: day ${days[i]} gave ${ords[i]}`);
+            }
+          }
+        },
+      ),
+      { seed: SEED, numRuns: 60 },
+    );
+  });
+
   it('year earlier moves back one year (365..371 days for whole-year steps) and stays in range', () => {
     fc.assert(
       fc.property(anyDef, fc.integer({ min: dayNumberFromYmd(1850, 1, 1), max: dayNumberFromYmd(2250, 1, 1) }), (def, dn) => {
