@@ -49,34 +49,35 @@ function consume(v: unknown): void {
   else if (v && typeof v === 'object' && 'length' in v) sink += (v as { length: number }).length;
 }
 
-/** Times one case: one warm-up run, then `rounds` timed runs; returns the median ns per element. */
-export function measure(c: BenchCase, elements: number, rounds: number): CaseResult {
-  const n = c.elements ?? elements;
-  consume(c.run());
-  const samples: number[] = [];
-  for (let r = 0; r < rounds; r++) {
-    const g = (globalThis as { gc?: () => void }).gc;
-    if (g) g();
-    const t0 = now();
-    consume(c.run());
-    samples.push(((now() - t0) * 1e6) / n);
-  }
-  return { name: c.name, nsPerElement: median(samples), samples };
-}
-
 function fmtNs(ns: number): string {
   if (ns >= 1e6) return `${(ns / 1e6).toFixed(2)} ms`;
   if (ns >= 1e3) return `${(ns / 1e3).toFixed(2)} µs`;
   return `${ns.toFixed(2)} ns`;
 }
 
-/** Runs a benchmark and prints a table: case, median time per element, and its ratio to ours. */
+/**
+ * Runs a benchmark and prints a table: case, median time per element, and its ratio to ours. The rounds are
+ * interleaved (ours, then each baseline, then ours again, ...) so that the machine's slow and fast phases fall on
+ * every case alike; the ratios are what the figures mean.
+ */
 export function runBenchmark(b: Benchmark, print: (line: string) => void): CaseResult[] {
   const rounds = b.rounds ?? 5;
   print(`\n## ${b.name}: ${b.description}`);
-  print(`   ${b.elements.toLocaleString('en-US')} ${b.unit ?? 'elements'}, median of ${rounds} rounds`);
-  const ours = measure(b.ours, b.elements, rounds);
-  const results = [ours, ...b.baselines.map((c) => measure(c, b.elements, rounds))];
+  print(`   ${b.elements.toLocaleString('en-US')} ${b.unit ?? 'elements'}, median of ${rounds} interleaved rounds`);
+  const cases = [b.ours, ...b.baselines];
+  for (const c of cases) consume(c.run()); // warm-up
+  const samples: number[][] = cases.map(() => []);
+  for (let r = 0; r < rounds; r++) {
+    cases.forEach((c, k) => {
+      const g = (globalThis as { gc?: () => void }).gc;
+      if (g) g();
+      const t0 = now();
+      consume(c.run());
+      samples[k]!.push(((now() - t0) * 1e6) / (c.elements ?? b.elements));
+    });
+  }
+  const results: CaseResult[] = cases.map((c, k) => ({ name: c.name, nsPerElement: median(samples[k]!), samples: samples[k]! }));
+  const ours = results[0]!;
   const width = Math.max(...results.map((r) => r.name.length));
   for (const r of results) {
     const ratio = r === ours ? 'ours' : describeRatio(r.nsPerElement / ours.nsPerElement);
