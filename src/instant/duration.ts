@@ -112,7 +112,15 @@ export function negateDuration(duration: Duration): Duration {
   return durationFromFields(out);
 }
 
-/** Total of the exact parts (hours, minutes, seconds, milliseconds) in ms, signed. */
+/**
+ * Total of the exact parts (hours, minutes, seconds, milliseconds) in ms, signed; calendar parts are ignored.
+ *
+ * @example
+ * ```ts
+ * exactMsOfDuration(parseDuration('PT1H30M')); // 5400000
+ * exactMsOfDuration(parseDuration('-P1DT2S')); // -2000 (the day is a calendar part)
+ * ```
+ */
 export function exactMsOfDuration(duration: Duration): number {
   const d = requireDuration('exactMsOfDuration', duration);
   return d.hours * MS_PER_HOUR + d.minutes * MS_PER_MINUTE + d.seconds * 1000 + d.milliseconds;

@@ -682,7 +682,16 @@ function formatWall(wallMs: number, digits: FractionDigits): string {
   return `${formatDayNumberUnchecked(dn)}T${formatTimeOfDay(wallMs - dn * MS_PER_DAY, digits)}`;
 }
 
-/** Formats an offset in seconds as `±HH:MM`, or `±HH:MM:SS` when it has seconds. */
+/**
+ * Formats an offset in seconds as `±HH:MM`, or `±HH:MM:SS` when it has seconds.
+ *
+ * @example
+ * ```ts
+ * formatOffset(19800);  // '+05:30'
+ * formatOffset(-12600); // '-03:30'
+ * formatOffset(19270);  // '+05:21:10'
+ * ```
+ */
 export function formatOffset(offsetSeconds: number): string {
   requireInteger('offsetSeconds', offsetSeconds, -MAX_OFFSET_SECONDS, MAX_OFFSET_SECONDS);
   const sign = offsetSeconds < 0 ? '-' : '+';

@@ -88,7 +88,15 @@ export function engineOf(zone: Zone): Engine {
   return (zone as ZoneWithEngine)[ENGINE];
 }
 
-/** Whether `value` is a zone made by this library. */
+/**
+ * Whether `value` is a zone made by this library.
+ *
+ * @example
+ * ```ts
+ * isZone(zoneFromId('Asia/Kolkata')); // true
+ * isZone('Asia/Kolkata');             // false (a name, not a zone)
+ * ```
+ */
 export function isZone(value: unknown): value is Zone {
   return typeof value === 'object' && value !== null && ENGINE in value;
 }
@@ -289,7 +297,14 @@ function cachePut(key: string, z: Zone): void {
   while (cache.size > ZONE_CACHE_LIMIT) cache.delete(cache.keys().next().value as string);
 }
 
-/** Empties the zone cache (compiled tables are released once no zone object refers to them). */
+/**
+ * Empties the zone cache (compiled tables are released once no zone object refers to them).
+ *
+ * @example
+ * ```ts
+ * clearZoneCache(); // the next zoneFromId('Europe/Dublin') compiles afresh
+ * ```
+ */
 export function clearZoneCache(): void {
   cache.clear();
 }
