@@ -8,8 +8,8 @@
 import { KalendsRangeError, KalendsTypeError, describeValue } from '../errors.js';
 import { MAX_EPOCH_MS, MIN_EPOCH_MS } from '../bounds.js';
 import { type Aggregation, type AggregationName, compileAggregations } from './aggregate.js';
-import { type BucketTable, type EmptyPolicy, type MissingPolicy, type PeriodRange, MAX_BUCKET_PERIODS } from './bucket.js';
-import { type UnitInput, type ZoneInput, ordinalAt, periodStartMs, requireUnit, resolveZone } from './deps.js';
+import { type BucketTable, type EmptyPolicy, type MissingPolicy, type PeriodRange, MAX_BUCKET_PERIODS, assembleBucketTable } from './bucket.js';
+import { type UnitInput, type ZoneInput, ordinalAt, requireUnit, resolveZone } from './deps.js';
 import { quantileOfSorted } from './numeric.js';
 import { makeSeries } from './series.js';
 
@@ -207,29 +207,7 @@ export function createBucketAccumulator(options: BucketAccumulatorOptions): Buck
         });
       }
     }
-    const startEpochMs = new Float64Array(n);
-    const endEpochMs = new Float64Array(n);
-    const labels: string[] = [];
-    for (let j = 0; j < n; j++) {
-      startEpochMs[j] = periodStartMs(unit, zone, ords[j]!);
-      endEpochMs[j] = periodStartMs(unit, zone, ords[j]! + 1);
-      labels.push(unit.formatLabel(ords[j]!));
-    }
-    const columns: Record<string, Float64Array> = Object.create(null) as Record<string, Float64Array>;
-    aggs.forEach((g, k) => {
-      columns[g.name] = cols[k]!;
-    });
-    return Object.freeze({
-      unit,
-      zone,
-      ordinals,
-      labels: Object.freeze(labels),
-      startEpochMs,
-      endEpochMs,
-      rowCounts,
-      columns: Object.freeze(columns),
-      columnNames: Object.freeze(aggs.map((g) => g.name)),
-      length: n,
+    return assembleBucketTable(unit, zone, ordinals, rowCounts, aggs, cols, {
       skippedMissing: propagate ? 0 : skipped,
       outsideRange: outside,
       emptyPeriods,

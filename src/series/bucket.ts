@@ -257,6 +257,27 @@ export function bucketSeries(series: Series, options: BucketOptions): BucketTabl
       }
     }
   }
+  return assembleBucketTable(unit, zone, ordinals, rowCounts, aggs, columns, {
+    skippedMissing: skipped,
+    outsideRange: t.length - (hi - lo),
+    emptyPeriods,
+  });
+}
+
+/**
+ * @internal Builds a bucket table from its ordinals, row counts and one column per aggregation: each period's start
+ * and end instants in the zone (a period's end is the next one's start, so consecutive periods share it) and label.
+ * Shared by {@link bucketSeries} and the streaming accumulator.
+ */
+export function assembleBucketTable(
+  unit: PeriodUnit,
+  zone: Zone,
+  ordinals: Int32Array,
+  rowCounts: Int32Array,
+  aggs: readonly { readonly name: string }[],
+  columns: readonly Float64Array[],
+  tallies: { readonly skippedMissing: number; readonly outsideRange: number; readonly emptyPeriods: number },
+): BucketTable {
   const n = ordinals.length;
   const startEpochMs = new Float64Array(n);
   const endEpochMs = new Float64Array(n);
@@ -282,11 +303,10 @@ export function bucketSeries(series: Series, options: BucketOptions): BucketTabl
     columns: Object.freeze(byName),
     columnNames: Object.freeze(aggs.map((a) => a.name)),
     length: n,
-    skippedMissing: skipped,
-    outsideRange: t.length - (hi - lo),
-    emptyPeriods,
+    ...tallies,
   });
 }
+
 
 function emptyValue(a: CompiledAggregation, policy: EmptyPolicy, out: Float64Array, j: number): number {
   if (a.kind === 'count' || a.kind === 'rows') return 0;

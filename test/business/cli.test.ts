@@ -6,21 +6,8 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import type { CliIo } from '../../src/cli/kit.js';
-import { runCli } from '../../src/cli/main.js';
+import { cli } from '../cli/helpers.js';
 
-async function cli(argv: string[], stdin?: string): Promise<{ code: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const io: CliIo = {
-    stdin: stdin === undefined ? undefined : (async function* () { yield stdin; })(),
-    stdout: (t) => { out += t; },
-    stderr: (t) => { err += t; },
-    stderrIsTty: false,
-  };
-  const code = await runCli(argv, io);
-  return { code, out, err };
-}
 const lines = (s: string) => s.trim().split('\n').map((l) => JSON.parse(l) as Record<string, unknown>);
 
 describe('kalends holidays', () => {

@@ -1,31 +1,9 @@
 import { describe, expect, it } from 'vitest';
+import { cli as run } from '../cli/helpers.js';
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { runCli } from '../../src/cli/main.js';
-import type { CliIo } from '../../src/cli/kit.js';
 
-async function run(argv: string[], stdinText?: string): Promise<{ code: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const io: CliIo = {
-    stdin:
-      stdinText === undefined
-        ? undefined
-        : (async function* () {
-            yield stdinText;
-          })(),
-    stdout: (t) => {
-      out += t;
-    },
-    stderr: (t) => {
-      err += t;
-    },
-    stderrIsTty: false,
-  };
-  const code = await runCli(argv, io);
-  return { code, out, err };
-}
 
 const US_FY = JSON.stringify({ kind: 'fiscal-quarter', start: { month: 10, day: 1 }, naming: 'end-year' });
 const RETAIL = { kind: 'fiscal-period', yearEnd: { weekday: 'saturday', month: 1, rule: 'nearest' }, naming: 'start-year', layout: '4-5-4' };

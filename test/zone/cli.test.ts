@@ -1,20 +1,7 @@
 /** The zone commands, run in-process through runCli. Expected values follow IANA tz data (see facts.test.ts). */
 import { describe, expect, it } from 'vitest';
-import { runCli } from '../../src/cli/main.js';
-import type { CliIo } from '../../src/cli/kit.js';
+import { cli as run } from '../cli/helpers.js';
 
-async function run(argv: string[], stdin?: string): Promise<{ code: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const io: CliIo = {
-    stdin: stdin === undefined ? undefined : (async function* () { yield stdin; })(),
-    stdout: (t) => { out += t; },
-    stderr: (t) => { err += t; },
-    stderrIsTty: false,
-  };
-  const code = await runCli(argv, io);
-  return { code, out, err };
-}
 
 const lines = (s: string) => s.trim().split('\n').map((l) => JSON.parse(l) as Record<string, unknown>);
 
