@@ -2,9 +2,8 @@
  * Bulk conversions over typed arrays: instants to local day numbers and to wall-clock ms, one pass, no
  * per-element allocation, no Intl call inside the loop.
  *
- * Method: a per-UTC-day lookup table of one byte a day (the index of the day's offset, or a mark for the rare day
- * with a transition inside) turns each element into two floors and two loads from tables that stay in the
- * first-level cache. The table is built when an instant first falls outside the zone's current table: the rest of
+ * Method: a per-UTC-day lookup table (the day's offset in ms, or NaN for the rare day with a transition inside,
+ * whose one-byte code then says how to resolve it) turns each element into two floors and one load. The table is built when an instant first falls outside the zone's current table: the rest of
  * the input is scanned once for its range, and the table is rebuilt to cover it (joined with the old range, plus a
  * year's margin on each side). The last table of each zone is kept, so later calls over similar years neither scan
  * nor build. When the input's range is much wider than the input is long, the loop asks the compiled chunks for
@@ -76,6 +75,11 @@ function validRange(values: Input, from: number): { min: number; max: number } {
 interface DayTable {
   readonly codes: Uint8Array;
   readonly offsets: Float64Array;
+  /**
+   * The offset (ms) of each day that holds one offset all day, NaN for the days with a transition inside: the
+   * kernels read it directly (one load, no indirection through `codes`).
+   */
+  readonly dayOffsets: Float64Array;
   readonly changeIndex: Int32Array;
   readonly changeAt: Float64Array;
   readonly changeBefore: Float64Array;
@@ -123,14 +127,17 @@ function dayTable(e: Engine, d0: number, days: number): DayTable | undefined {
         cAfter.push(cur);
       }
     } else {
+      if (!(Math.abs(cur) < MS_PER_DAY)) return undefined;
       const k = index(cur);
       if (k >= BUSY_DAY) return undefined;
       codes[d] = k;
     }
   }
+  const offsetList = [...distinct.keys()];
   return {
     codes,
-    offsets: Float64Array.from(distinct.keys()),
+    offsets: Float64Array.from(offsetList),
+    dayOffsets: Float64Array.from(codes, (c) => (c >= BUSY_DAY ? NaN : offsetList[c]!)),
     changeIndex,
     changeAt: Float64Array.from(cAt),
     changeBefore: Float64Array.from(cBefore),
@@ -179,27 +186,27 @@ function tableCovering(e: Engine, values: Input, from: number, current: RangedTa
  * The hot loop of {@link dayNumberFromEpochMsBulk}: converts from index `i` while each instant's UTC day is inside
  * the table and holds one offset all day; returns the index of the first element it did not convert (n when done).
  */
-function dayNumbersKernel(src: Input, dst: Int32Array, i: number, n: number, codes: Uint8Array, offsets: Float64Array, d0: number, days: number): number {
+function dayNumbersKernel(src: Input, dst: Int32Array, i: number, n: number, dayOffsets: Float64Array, d0: number, days: number): number {
   for (; i < n; i++) {
     const t = src[i] as number;
     const k = Math.floor(t / MS_PER_DAY) - d0;
     if (!(k >= 0 && k < days)) return i;
-    const c = codes[k]!;
-    if (c >= BUSY_DAY) return i;
-    dst[i] = Math.floor((t + offsets[c]!) / MS_PER_DAY);
+    const off = dayOffsets[k]!;
+    if (off !== off) return i;
+    dst[i] = Math.floor((t + off) / MS_PER_DAY);
   }
   return i;
 }
 
 /** The hot loop of {@link wallMsFromEpochMsBulk}; the same contract as {@link dayNumbersKernel}. */
-function wallMsKernel(src: Input, dst: Float64Array, i: number, n: number, codes: Uint8Array, offsets: Float64Array, d0: number, days: number): number {
+function wallMsKernel(src: Input, dst: Float64Array, i: number, n: number, dayOffsets: Float64Array, d0: number, days: number): number {
   for (; i < n; i++) {
     const t = src[i] as number;
     const k = Math.floor(t / MS_PER_DAY) - d0;
     if (!(k >= 0 && k < days)) return i;
-    const c = codes[k]!;
-    if (c >= BUSY_DAY) return i;
-    dst[i] = t + offsets[c]!;
+    const off = dayOffsets[k]!;
+    if (off !== off) return i;
+    dst[i] = t + off;
   }
   return i;
 }
@@ -247,9 +254,9 @@ export function dayNumberFromEpochMsBulk(zone: ZoneInput, epochMs: Input, out?: 
     if (tab) {
       // The hot loop runs in a small kernel of its own (V8 optimizes it far better than a loop inside this
       // function); it stops at an instant outside the table (or NaN) and at a day with a transition inside.
-      const { codes, offsets, changeIndex, changeAt, changeBefore, changeAfter, d0, days } = tab;
+      const { codes, dayOffsets, changeIndex, changeAt, changeBefore, changeAfter, d0, days } = tab;
       while (i < n) {
-        i = dayNumbersKernel(epochMs, result, i, n, codes, offsets, d0, days);
+        i = dayNumbersKernel(epochMs, result, i, n, dayOffsets, d0, days);
         if (i >= n) break;
         const t = epochMs[i] as number;
         const k = Math.floor(t / MS_PER_DAY) - d0;
@@ -314,9 +321,9 @@ export function wallMsFromEpochMsBulk(zone: ZoneInput, epochMs: Input, out?: Flo
   let i = 0;
   while (i < n) {
     if (tab) {
-      const { codes, offsets, changeIndex, changeAt, changeBefore, changeAfter, d0, days } = tab;
+      const { codes, dayOffsets, changeIndex, changeAt, changeBefore, changeAfter, d0, days } = tab;
       while (i < n) {
-        i = wallMsKernel(epochMs, result, i, n, codes, offsets, d0, days);
+        i = wallMsKernel(epochMs, result, i, n, dayOffsets, d0, days);
         if (i >= n) break;
         const t = epochMs[i] as number;
         const k = Math.floor(t / MS_PER_DAY) - d0;
