@@ -350,13 +350,33 @@ function fiscalLabel(kind: FiscalKindName, year: number, index: number): string 
   return kind === 'fiscal-period' || kind === 'fiscal-week' ? `${y}-${letter}${pad2(index)}` : `${y}-${letter}${index}`;
 }
 
+/**
+ * Labels of a fiscal unit with a fixed number of periods a year, whose ordinal is `year * perYear + index - 1`:
+ * formatting, parsing (the index checked against `perYear`) and the same period one year earlier.
+ */
+function indexedFiscalLabels(kind: FiscalKindName, perYear: number): Pick<UnitCore, 'format' | 'parse' | 'yearEarlier'> {
+  const { re, form, shape } = fiscalForm(kind, perYear);
+  return {
+    format: (o) => {
+      const y = floorDiv(o, perYear);
+      return fiscalLabel(kind, y, o - perYear * y + 1);
+    },
+    parse: (text) => {
+      const { year, index } = parseFiscal(text, kind, re, form, shape);
+      if (index < 1 || index > perYear) throw rangeError('label', text, `names ${FISCAL_LETTER[kind]}${index}; this fiscal unit has ${perYear} per year`);
+      return year * perYear + index - 1;
+    },
+    yearEarlier: (o) => o - perYear,
+  };
+}
+
 function monthFiscalCore(kind: Exclude<FiscalKindName, 'fiscal-week'>, startMonth: number, startDay: number, naming: string): UnitCore {
   const perYear = kind === 'fiscal-year' ? 1 : kind === 'fiscal-half' ? 2 : kind === 'fiscal-quarter' ? 4 : 12;
   const monthsPer = 12 / perYear;
   // A fiscal year that starts on 1 January ends in the same calendar year; any other ends in the next.
   const shift = naming === 'end-year' && !(startMonth === 1 && startDay === 1) ? 1 : 0;
   const s0 = startMonth - 1;
-  const { re, form, shape } = fiscalForm(kind, perYear);
+  const { form } = fiscalForm(kind, perYear);
   /** Continuous fiscal-month index: 12 * (fiscal start year) + (fiscal month - 1). */
   const fiscalMonthIndex = (dn: number) => {
     const p = packedYmdUnchecked(dn);
@@ -376,16 +396,7 @@ function monthFiscalCore(kind: Exclude<FiscalKindName, 'fiscal-week'>, startMont
   return {
     ordinalOf: (dn) => floorDiv(fiscalMonthIndex(dn), monthsPer) + perYear * shift,
     firstDayOf,
-    format: (o) => {
-      const y = floorDiv(o, perYear);
-      return fiscalLabel(kind, y, o - perYear * y + 1);
-    },
-    parse: (text) => {
-      const { year, index } = parseFiscal(text, kind, re, form, shape);
-      if (index < 1 || index > perYear) throw rangeError('label', text, `names ${FISCAL_LETTER[kind]}${index}; this fiscal unit has ${perYear} per year`);
-      return year * perYear + index - 1;
-    },
-    yearEarlier: (o) => o - perYear,
+    ...indexedFiscalLabels(kind, perYear),
     kernel: { type: 'months', monthsPer, startMonthIndex: s0, startDay, addend: perYear * shift },
     labelForm: form,
   };
@@ -503,7 +514,7 @@ function weekFiscalCore(
     map52[w] = i52;
     map53[w] = i53;
   }
-  const { re, form, shape } = fiscalForm(kind, perYear);
+  const { form } = fiscalForm(kind, perYear);
   const ordinalOf = (dn: number) => {
     const a = anchorYearOf(dn);
     const start = yearStart(a);
@@ -522,16 +533,7 @@ function weekFiscalCore(
   return {
     ordinalOf,
     firstDayOf,
-    format: (o) => {
-      const y = floorDiv(o, perYear);
-      return fiscalLabel(kind, y, o - perYear * y + 1);
-    },
-    parse: (text) => {
-      const { year, index } = parseFiscal(text, kind, re, form, shape);
-      if (index < 1 || index > perYear) throw rangeError('label', text, `names ${FISCAL_LETTER[kind]}${index}; this fiscal unit has ${perYear} per year`);
-      return year * perYear + index - 1;
-    },
-    yearEarlier: (o) => o - perYear,
+    ...indexedFiscalLabels(kind, perYear),
     kernel: { type: 'weeks', origin },
     labelForm: form,
   };

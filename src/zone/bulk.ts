@@ -211,6 +211,74 @@ function wallMsKernel(src: Input, dst: Float64Array, i: number, n: number, dayOf
   return i;
 }
 
+/** A hot loop over the day table: converts from `i` and returns the index of the first element it left alone. */
+type Kernel<T> = (src: Input, dst: T, i: number, n: number, dayOffsets: Float64Array, d0: number, days: number) => number;
+
+/**
+ * The driver shared by both bulk conversions. It runs `kernel` over the zone's day table and resolves, outside
+ * the hot loop, each element the kernel stops at: a day with a transition inside (from the table's change
+ * entries), an instant outside the table (rebuilding the table over the rest of the input), or an invalid instant
+ * (thrown, or written as `invalid` under the sentinel policy). When the input's range is too wide for a table it
+ * asks the engine for each remaining element. `local(t, offsetMs)` is the output for one resolved element.
+ */
+function fillFromDayTable<T extends Int32Array | Float64Array>(
+  e: Engine,
+  epochMs: Input,
+  result: T,
+  sentinel: boolean,
+  kernel: Kernel<T>,
+  local: (t: number, offsetMs: number) => number,
+  invalid: number,
+): T {
+  const n = epochMs.length;
+  let tab = tables.get(e);
+  let i = 0;
+  while (i < n) {
+    if (tab) {
+      // The hot loop runs in a small kernel of its own (V8 optimizes it far better than a loop inside this
+      // function); it stops at an instant outside the table (or NaN) and at a day with a transition inside.
+      const { codes, dayOffsets, changeIndex, changeAt, changeBefore, changeAfter, d0, days } = tab;
+      while (i < n) {
+        i = kernel(epochMs, result, i, n, dayOffsets, d0, days);
+        if (i >= n) break;
+        const t = epochMs[i] as number;
+        const k = Math.floor(t / MS_PER_DAY) - d0;
+        if (!(k >= 0 && k < days)) break;
+        const c = codes[k]!;
+        let off: number;
+        if (c === CHANGE_DAY) {
+          const j = changeIndex[k]!;
+          off = t < changeAt[j]! ? changeBefore[j]! : changeAfter[j]!;
+        } else off = e.offsetAt(t) * 1000;
+        result[i++] = local(t, off);
+      }
+      if (i >= n) break;
+    }
+    const t = epochMs[i] as number;
+    if (!(t >= MIN_EPOCH_MS && t <= MAX_EPOCH_MS)) {
+      if (!sentinel) invalidInstant('epochMs', i, t);
+      result[i++] = invalid;
+      continue;
+    }
+    const wider = tableCovering(e, epochMs, i, tab);
+    if (wider && wider !== tab) {
+      tab = wider;
+      continue;
+    }
+    // The input's range is too wide for a table: ask the engine for each remaining element.
+    for (; i < n; i++) {
+      const v = epochMs[i] as number;
+      if (v >= MIN_EPOCH_MS && v <= MAX_EPOCH_MS) result[i] = local(v, e.offsetAt(v) * 1000);
+      else if (sentinel) result[i] = invalid;
+      else invalidInstant('epochMs', i, v);
+    }
+  }
+  return result;
+}
+
+const localDayNumber = (t: number, offsetMs: number): number => Math.floor((t + offsetMs) / MS_PER_DAY);
+const localWallMs = (t: number, offsetMs: number): number => t + offsetMs;
+
 function checkOut<T extends Int32Array | Float64Array>(name: string, out: T | undefined, n: number, make: (n: number) => T, kind: string): T {
   if (out === undefined) return make(n);
   if (!(out instanceof (kind === 'Int32Array' ? Int32Array : Float64Array))) {
@@ -248,49 +316,7 @@ export function dayNumberFromEpochMsBulk(zone: ZoneInput, epochMs: Input, out?: 
     }
     return result;
   }
-  let tab = tables.get(e);
-  let i = 0;
-  while (i < n) {
-    if (tab) {
-      // The hot loop runs in a small kernel of its own (V8 optimizes it far better than a loop inside this
-      // function); it stops at an instant outside the table (or NaN) and at a day with a transition inside.
-      const { codes, dayOffsets, changeIndex, changeAt, changeBefore, changeAfter, d0, days } = tab;
-      while (i < n) {
-        i = dayNumbersKernel(epochMs, result, i, n, dayOffsets, d0, days);
-        if (i >= n) break;
-        const t = epochMs[i] as number;
-        const k = Math.floor(t / MS_PER_DAY) - d0;
-        if (!(k >= 0 && k < days)) break;
-        const c = codes[k]!;
-        let off: number;
-        if (c === CHANGE_DAY) {
-          const j = changeIndex[k]!;
-          off = t < changeAt[j]! ? changeBefore[j]! : changeAfter[j]!;
-        } else off = e.offsetAt(t) * 1000;
-        result[i++] = Math.floor((t + off) / MS_PER_DAY);
-      }
-      if (i >= n) break;
-    }
-    const t = epochMs[i] as number;
-    if (!(t >= MIN_EPOCH_MS && t <= MAX_EPOCH_MS)) {
-      if (!sentinel) invalidInstant('epochMs', i, t);
-      result[i++] = INVALID_DAY_NUMBER;
-      continue;
-    }
-    const wider = tableCovering(e, epochMs, i, tab);
-    if (wider && wider !== tab) {
-      tab = wider;
-      continue;
-    }
-    // The input's range is too wide for a table: ask the engine for each remaining element.
-    for (; i < n; i++) {
-      const v = epochMs[i] as number;
-      if (v >= MIN_EPOCH_MS && v <= MAX_EPOCH_MS) result[i] = Math.floor((v + e.offsetAt(v) * 1000) / MS_PER_DAY);
-      else if (sentinel) result[i] = INVALID_DAY_NUMBER;
-      else invalidInstant('epochMs', i, v);
-    }
-  }
-  return result;
+  return fillFromDayTable(e, epochMs, result, sentinel, dayNumbersKernel, localDayNumber, INVALID_DAY_NUMBER);
 }
 
 /**
@@ -317,44 +343,5 @@ export function wallMsFromEpochMsBulk(zone: ZoneInput, epochMs: Input, out?: Flo
     }
     return result;
   }
-  let tab = tables.get(e);
-  let i = 0;
-  while (i < n) {
-    if (tab) {
-      const { codes, dayOffsets, changeIndex, changeAt, changeBefore, changeAfter, d0, days } = tab;
-      while (i < n) {
-        i = wallMsKernel(epochMs, result, i, n, dayOffsets, d0, days);
-        if (i >= n) break;
-        const t = epochMs[i] as number;
-        const k = Math.floor(t / MS_PER_DAY) - d0;
-        if (!(k >= 0 && k < days)) break;
-        const c = codes[k]!;
-        let off: number;
-        if (c === CHANGE_DAY) {
-          const j = changeIndex[k]!;
-          off = t < changeAt[j]! ? changeBefore[j]! : changeAfter[j]!;
-        } else off = e.offsetAt(t) * 1000;
-        result[i++] = t + off;
-      }
-      if (i >= n) break;
-    }
-    const t = epochMs[i] as number;
-    if (!(t >= MIN_EPOCH_MS && t <= MAX_EPOCH_MS)) {
-      if (!sentinel) invalidInstant('epochMs', i, t);
-      result[i++] = NaN;
-      continue;
-    }
-    const wider = tableCovering(e, epochMs, i, tab);
-    if (wider && wider !== tab) {
-      tab = wider;
-      continue;
-    }
-    for (; i < n; i++) {
-      const v = epochMs[i] as number;
-      if (v >= MIN_EPOCH_MS && v <= MAX_EPOCH_MS) result[i] = v + e.offsetAt(v) * 1000;
-      else if (sentinel) result[i] = NaN;
-      else invalidInstant('epochMs', i, v);
-    }
-  }
-  return result;
+  return fillFromDayTable(e, epochMs, result, sentinel, wallMsKernel, localWallMs, NaN);
 }
