@@ -9,6 +9,7 @@
 import { MAX_DAY_NUMBER, MIN_DAY_NUMBER } from '../bounds.js';
 import { KalendsRangeError, requireInteger } from '../errors.js';
 import { dayNumberFromYmdUnchecked } from '../civil/gregorian.js';
+import type { LocalDayFunction } from '../zone/bulk.js';
 import { type UnitCore, type UnitInput, coreOf, toUnit } from './units.js';
 
 /** Days added so that every supported day number gives a positive 400-year era (700 eras). */
@@ -24,6 +25,8 @@ const WEEK_TABLE_LAST_YEAR = 2400;
 
 /** Below this many elements the table is not worth building; each element takes the scalar path. */
 const WEEK_TABLE_MIN_ELEMENTS = 2048;
+/** @internal Below this many instants, instants to ordinals go through day numbers rather than a per-UTC-day table. */
+export const BULK_TABLE_MIN_ELEMENTS = 2048;
 
 interface WeekTable {
   readonly firstWeek: number;
@@ -121,9 +124,21 @@ function denseCovering(core: UnitCore, src: ArrayLike<number>, from: number, n: 
     min = d < min ? d : min;
     max = d > max ? d : max;
   }
-  let lo = Math.max(MIN_DAY_NUMBER, min - DENSE_MARGIN_DAYS);
-  let hi = Math.min(MAX_DAY_NUMBER + 1, max + DENSE_MARGIN_DAYS + 1);
-  if (hi - lo > DENSE_MAX_DAYS || hi - lo > 4 * (n - from) + 4096 + 2 * DENSE_MARGIN_DAYS) return undefined;
+  const lo = min - DENSE_MARGIN_DAYS;
+  const hi = max + DENSE_MARGIN_DAYS + 1;
+  if (hi - lo > 4 * (n - from) + 4096 + 2 * DENSE_MARGIN_DAYS) return undefined;
+  return denseOver(core, lo, hi, current);
+}
+
+/**
+ * A dense table over the days [lo, hi) (clipped to the supported range), joined with the unit's current table when
+ * the union is not too wide; undefined when [lo, hi) itself is too wide.
+ */
+function denseOver(core: UnitCore, lo: number, hi: number, current: DenseTable | undefined): DenseTable | undefined {
+  lo = Math.max(MIN_DAY_NUMBER, lo);
+  hi = Math.min(MAX_DAY_NUMBER + 1, hi);
+  if (hi - lo > DENSE_MAX_DAYS) return undefined;
+  if (current && current.lo <= lo && current.lo + current.ordinals.length >= hi) return current;
   if (current && Math.max(hi, current.lo + current.ordinals.length) - Math.min(lo, current.lo) <= DENSE_MAX_DAYS) {
     hi = Math.max(hi, current.lo + current.ordinals.length);
     lo = Math.min(lo, current.lo);
@@ -135,6 +150,27 @@ function denseCovering(core: UnitCore, src: ArrayLike<number>, from: number, n: 
   const table = { lo, ordinals };
   denseTables.set(core, table);
   return table;
+}
+
+const dayFunctions = new WeakMap<UnitCore, LocalDayFunction>();
+
+/**
+ * @internal The ordinal of a unit as a function of the local day, for the zone layer's one-pass conversion of
+ * instants (one long-lived object per unit, since the zone layer caches its tables by it).
+ */
+export function ordinalDayFunction(core: UnitCore): LocalDayFunction {
+  let f = dayFunctions.get(core);
+  if (!f) {
+    f = {
+      valuesCovering: (lo, hi) => {
+        const t = denseOver(core, lo, hi, denseTables.get(core));
+        return t && { start: t.lo, values: t.ordinals };
+      },
+      valueOf: core.ordinalOf,
+    };
+    dayFunctions.set(core, f);
+  }
+  return f;
 }
 
 /** The hot loop over a dense table: converts from `i` while the day is inside it; returns where it stopped. */

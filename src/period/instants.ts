@@ -14,7 +14,8 @@ import {
   dayNumberFromEpochMsBulk,
   dayStartEpochMs,
 } from '../zone/index.js';
-import { ordinalsFromDaysKernel } from './bulk.js';
+import { localDayFunctionBulk } from '../zone/bulk.js';
+import { BULK_TABLE_MIN_ELEMENTS, ordinalDayFunction, ordinalsFromDaysKernel } from './bulk.js';
 import { type Period, periodChecked, requirePeriod } from './period.js';
 import { type UnitInput, coreOf, toUnit } from './units.js';
 
@@ -107,6 +108,11 @@ export function ordinalFromEpochMsBulk(
       code: 'length-mismatch',
       received: out,
     });
+  }
+  // Large inputs in a zone with rules: one pass over a per-UTC-day table of the unit's ordinals.
+  if (n >= BULK_TABLE_MIN_ELEMENTS) {
+    const direct = localDayFunctionBulk(zone, epochMs, out, options, ordinalDayFunction(core), INVALID_ORDINAL);
+    if (direct) return direct;
   }
   const days = dayNumberFromEpochMsBulk(zone, epochMs, out, options);
   if (options?.invalid !== 'sentinel') {

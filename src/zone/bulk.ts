@@ -3,7 +3,8 @@
  * per-element allocation, no Intl call inside the loop.
  *
  * Method: a per-UTC-day lookup table (the day's offset in ms, or NaN for the rare day with a transition inside,
- * whose one-byte code then says how to resolve it) turns each element into two floors and one load. The table is built when an instant first falls outside the zone's current table: the rest of
+ * whose one-byte code then says how to resolve it) turns each element into a multiplication, a division, two
+ * floors and one load. The table is built when an instant first falls outside the zone's current table: the rest of
  * the input is scanned once for its range, and the table is rebuilt to cover it (joined with the old range, plus a
  * year's margin on each side). The last table of each zone is kept, so later calls over similar years neither scan
  * nor build. When the input's range is much wider than the input is long, the loop asks the compiled chunks for
@@ -89,6 +90,16 @@ interface DayTable {
 const CHANGE_DAY = 255;
 const BUSY_DAY = 254;
 
+/*
+ * The kernels find an instant's UTC day as Math.floor(t * 1.1574074074074074e-8), the double nearest to
+ * 1 / 86,400,000, instead of dividing (a division costs several times more than a multiplication). That is exactly
+ * Math.floor(t / 86_400_000) for every double t of the supported range: test/zone/day-division.test.ts checks both
+ * sides of every one of the 200,000,001 UTC midnights from -8.64e15 to 8.64e15 (the midnight itself and the double
+ * just below it), and a rounded multiplication by a positive constant never decreases as t grows, so no instant
+ * between two midnights can land on another day. The constants are written as literals: the bundler turns module
+ * constants into module variables, which V8 reloads on every element, while a literal is folded into the code.
+ */
+
 function dayTable(e: Engine, d0: number, days: number): DayTable | undefined {
   const at: number[] = [];
   const after: number[] = [];
@@ -167,10 +178,12 @@ const tables = new WeakMap<Engine, RangedTable>();
 function tableCovering(e: Engine, values: Input, from: number, current: RangedTable | undefined): RangedTable | undefined {
   const { min, max } = validRange(values, from);
   if (min > max) return current;
-  let lo = Math.floor(min / MS_PER_DAY) - TABLE_MARGIN_DAYS;
-  let hi = Math.floor(max / MS_PER_DAY) + TABLE_MARGIN_DAYS + 1;
+  // The margins stop at the supported range (the engine is never asked about instants past it).
+  let lo = Math.max(Math.floor(min / MS_PER_DAY) - TABLE_MARGIN_DAYS, MIN_EPOCH_MS / MS_PER_DAY);
+  let hi = Math.min(Math.floor(max / MS_PER_DAY) + TABLE_MARGIN_DAYS + 1, MAX_EPOCH_MS / MS_PER_DAY);
   const limit = Math.max(4096, 4 * (values.length - from));
   if (hi - lo > MAX_TABLE_DAYS || hi - lo > limit + 2 * TABLE_MARGIN_DAYS) return undefined;
+  if (current && current.d0 <= lo && current.d0 + current.days >= hi) return current;
   if (current && Math.min(lo, current.d0) + MAX_TABLE_DAYS >= Math.max(hi, current.d0 + current.days)) {
     lo = Math.min(lo, current.d0);
     hi = Math.max(hi, current.d0 + current.days);
@@ -189,11 +202,11 @@ function tableCovering(e: Engine, values: Input, from: number, current: RangedTa
 function dayNumbersKernel(src: Input, dst: Int32Array, i: number, n: number, dayOffsets: Float64Array, d0: number, days: number): number {
   for (; i < n; i++) {
     const t = src[i] as number;
-    const k = Math.floor(t / MS_PER_DAY) - d0;
+    const k = Math.floor(t * 1.1574074074074074e-8) - d0;
     if (!(k >= 0 && k < days)) return i;
     const off = dayOffsets[k]!;
     if (off !== off) return i;
-    dst[i] = Math.floor((t + off) / MS_PER_DAY);
+    dst[i] = Math.floor((t + off) / 86_400_000);
   }
   return i;
 }
@@ -202,7 +215,7 @@ function dayNumbersKernel(src: Input, dst: Int32Array, i: number, n: number, day
 function wallMsKernel(src: Input, dst: Float64Array, i: number, n: number, dayOffsets: Float64Array, d0: number, days: number): number {
   for (; i < n; i++) {
     const t = src[i] as number;
-    const k = Math.floor(t / MS_PER_DAY) - d0;
+    const k = Math.floor(t * 1.1574074074074074e-8) - d0;
     if (!(k >= 0 && k < days)) return i;
     const off = dayOffsets[k]!;
     if (off !== off) return i;
@@ -211,23 +224,34 @@ function wallMsKernel(src: Input, dst: Float64Array, i: number, n: number, dayOf
   return i;
 }
 
-/** A hot loop over the day table: converts from `i` and returns the index of the first element it left alone. */
-type Kernel<T> = (src: Input, dst: T, i: number, n: number, dayOffsets: Float64Array, d0: number, days: number) => number;
+/**
+ * What a bulk conversion computes, as module-level functions (never closures made per call: V8 inlines the
+ * functions it sees at a call site and throws that code away when a call brings a new closure):
+ * - `prepare` gives what the kernel needs besides the zone table (once per table);
+ * - `run` is the hot loop over the table: it converts from `i` and returns the index of the first element it left
+ *   alone (n when done);
+ * - `local` is the output for one element resolved outside the loop, from its instant and offset.
+ */
+interface Conversion<T, C, A> {
+  prepare(e: Engine, tab: RangedTable, context: C): A;
+  run(src: Input, dst: T, i: number, n: number, tab: RangedTable, prepared: A): number;
+  local(t: number, offsetMs: number, context: C): number;
+}
 
 /**
- * The driver shared by both bulk conversions. It runs `kernel` over the zone's day table and resolves, outside
+ * The driver shared by the bulk conversions. It runs a kernel over the zone's day table and resolves, outside
  * the hot loop, each element the kernel stops at: a day with a transition inside (from the table's change
  * entries), an instant outside the table (rebuilding the table over the rest of the input), or an invalid instant
  * (thrown, or written as `invalid` under the sentinel policy). When the input's range is too wide for a table it
- * asks the engine for each remaining element. `local(t, offsetMs)` is the output for one resolved element.
+ * asks the engine for each remaining element.
  */
-function fillFromDayTable<T extends Int32Array | Float64Array>(
+function fillFromDayTable<T extends Int32Array | Float64Array, C, A>(
   e: Engine,
   epochMs: Input,
   result: T,
   sentinel: boolean,
-  kernel: Kernel<T>,
-  local: (t: number, offsetMs: number) => number,
+  conversion: Conversion<T, C, A>,
+  context: C,
   invalid: number,
 ): T {
   const n = epochMs.length;
@@ -237,20 +261,22 @@ function fillFromDayTable<T extends Int32Array | Float64Array>(
     if (tab) {
       // The hot loop runs in a small kernel of its own (V8 optimizes it far better than a loop inside this
       // function); it stops at an instant outside the table (or NaN) and at a day with a transition inside.
-      const { codes, dayOffsets, changeIndex, changeAt, changeBefore, changeAfter, d0, days } = tab;
+      const { codes, offsets, changeIndex, changeAt, changeBefore, changeAfter, d0, days } = tab;
+      const prepared = conversion.prepare(e, tab, context);
       while (i < n) {
-        i = kernel(epochMs, result, i, n, dayOffsets, d0, days);
+        i = conversion.run(epochMs, result, i, n, tab, prepared);
         if (i >= n) break;
         const t = epochMs[i] as number;
         const k = Math.floor(t / MS_PER_DAY) - d0;
         if (!(k >= 0 && k < days)) break;
         const c = codes[k]!;
         let off: number;
-        if (c === CHANGE_DAY) {
+        if (c < BUSY_DAY) off = offsets[c]!;
+        else if (c === CHANGE_DAY) {
           const j = changeIndex[k]!;
           off = t < changeAt[j]! ? changeBefore[j]! : changeAfter[j]!;
         } else off = e.offsetAt(t) * 1000;
-        result[i++] = local(t, off);
+        result[i++] = conversion.local(t, off, context);
       }
       if (i >= n) break;
     }
@@ -261,14 +287,18 @@ function fillFromDayTable<T extends Int32Array | Float64Array>(
       continue;
     }
     const wider = tableCovering(e, epochMs, i, tab);
-    if (wider && wider !== tab) {
+    if (wider) {
+      const k = Math.floor(t / MS_PER_DAY) - wider.d0;
       tab = wider;
+      if (k >= 0 && k < wider.days) continue;
+      // An instant no table holds (the last day of the supported range): ask the engine for it alone.
+      result[i++] = conversion.local(t, e.offsetAt(t) * 1000, context);
       continue;
     }
     // The input's range is too wide for a table: ask the engine for each remaining element.
     for (; i < n; i++) {
       const v = epochMs[i] as number;
-      if (v >= MIN_EPOCH_MS && v <= MAX_EPOCH_MS) result[i] = local(v, e.offsetAt(v) * 1000);
+      if (v >= MIN_EPOCH_MS && v <= MAX_EPOCH_MS) result[i] = conversion.local(v, e.offsetAt(v) * 1000, context);
       else if (sentinel) result[i] = invalid;
       else invalidInstant('epochMs', i, v);
     }
@@ -276,8 +306,126 @@ function fillFromDayTable<T extends Int32Array | Float64Array>(
   return result;
 }
 
-const localDayNumber = (t: number, offsetMs: number): number => Math.floor((t + offsetMs) / MS_PER_DAY);
-const localWallMs = (t: number, offsetMs: number): number => t + offsetMs;
+const DAY_NUMBERS: Conversion<Int32Array, undefined, undefined> = {
+  prepare: () => undefined,
+  run: (src, dst, i, n, tab) => dayNumbersKernel(src, dst, i, n, tab.dayOffsets, tab.d0, tab.days),
+  local: (t, offsetMs) => Math.floor((t + offsetMs) / MS_PER_DAY),
+};
+
+const WALL_MS: Conversion<Float64Array, undefined, undefined> = {
+  prepare: () => undefined,
+  run: (src, dst, i, n, tab) => wallMsKernel(src, dst, i, n, tab.dayOffsets, tab.d0, tab.days),
+  local: (t, offsetMs) => t + offsetMs,
+};
+
+/**
+ * @internal A function of the local day that a caller wants for many instants at once, such as the ordinal of
+ * the period that holds the day. Its values never decrease and step by at most one from a day to the next (a
+ * period ordinal does, since periods are runs of whole days); the object itself is the cache key of the tables
+ * built for it, so each function has one long-lived object.
+ */
+export interface LocalDayFunction {
+  /**
+   * Values for the local days [lo, hi), `values[d - start]` for day d (days the table leaves out, such as days
+   * past the supported range, take the exact path); undefined when the range is too wide for a table.
+   */
+  valuesCovering(lo: number, hi: number): { readonly start: number; readonly values: Int32Array } | undefined;
+  /** The value for one local day (days outside the tables). */
+  valueOf(day: number): number;
+}
+
+/**
+ * A per-UTC-day table of a {@link LocalDayFunction} in one zone, over the days of one zone day table: the value at
+ * the start of each UTC day, and the instant inside the day where the value steps up by one (Infinity when it does
+ * not; NaN on the days the exact path resolves: transition days, and any day the zone table marks). An element then
+ * costs one multiplication, two loads and a comparison, and no local day is computed at all.
+ */
+interface StepTable {
+  readonly zoneTable: RangedTable;
+  readonly first: Int32Array;
+  readonly step: Float64Array;
+}
+const stepTables = new WeakMap<Engine, WeakMap<LocalDayFunction, StepTable>>();
+
+function stepTableOf(e: Engine, tab: RangedTable, f: LocalDayFunction): StepTable | undefined {
+  let perEngine = stepTables.get(e);
+  const cached = perEngine?.get(f);
+  if (cached && cached.zoneTable === tab) return cached;
+  const { d0, days, dayOffsets } = tab;
+  // Local days of UTC days [d0, d0 + days) lie within one day of them (offsets are below a day).
+  const cover = f.valuesCovering(d0 - 1, d0 + days + 1);
+  if (!cover) return undefined;
+  const { start, values } = cover;
+  const first = new Int32Array(days);
+  const step = new Float64Array(days);
+  for (let k = 0; k < days; k++) {
+    const off = dayOffsets[k]!;
+    if (off !== off) {
+      step[k] = NaN;
+      continue;
+    }
+    const u = d0 + k;
+    const day = Math.floor((u * MS_PER_DAY + off) / MS_PER_DAY);
+    if (!(day >= start && day + 1 < start + values.length)) {
+      step[k] = NaN;
+      continue;
+    }
+    const a = values[day - start]!;
+    const b = values[day + 1 - start]!;
+    const next = (day + 1) * MS_PER_DAY - off; // the next local midnight
+    first[k] = a;
+    if (b === a || next >= (u + 1) * MS_PER_DAY) step[k] = Infinity;
+    else step[k] = b === a + 1 ? next : NaN;
+  }
+  const table = { zoneTable: tab, first, step };
+  if (!perEngine) stepTables.set(e, (perEngine = new WeakMap()));
+  perEngine.set(f, table);
+  return table;
+}
+
+/** The hot loop of {@link localDayFunctionBulk}. */
+function stepKernel(src: Input, dst: Int32Array, i: number, n: number, first: Int32Array, step: Float64Array, d0: number, days: number): number {
+  for (; i < n; i++) {
+    const t = src[i] as number;
+    const k = Math.floor(t * 1.1574074074074074e-8) - d0;
+    if (!(k >= 0 && k < days)) return i;
+    const s = step[k]!;
+    if (s !== s) return i;
+    dst[i] = first[k]! + +(t >= s);
+  }
+  return i;
+}
+
+/** No step table (the range is too wide for the function's values): every element takes the exact path. */
+const NO_STEPS: StepTable | undefined = undefined;
+
+const DAY_FUNCTION: Conversion<Int32Array, LocalDayFunction, StepTable | undefined> = {
+  prepare: (e, tab, f) => stepTableOf(e, tab, f) ?? NO_STEPS,
+  run: (src, dst, i, n, tab, st) => (st ? stepKernel(src, dst, i, n, st.first, st.step, tab.d0, tab.days) : i),
+  local: (t, offsetMs, f) => f.valueOf(Math.floor((t + offsetMs) / MS_PER_DAY)),
+};
+
+/**
+ * @internal `out[i] = f.valueOf(dayNumberFromEpochMs(zone, epochMs[i]))` for many instants, in one pass over a
+ * table of f per UTC day (see {@link StepTable}); the same options and errors as {@link dayNumberFromEpochMsBulk},
+ * with `invalid` written for invalid instants under the sentinel policy. Undefined for a fixed-offset zone (the
+ * caller converts to day numbers and maps those, which is as fast there).
+ */
+export function localDayFunctionBulk(
+  zone: ZoneInput,
+  epochMs: Input,
+  out: Int32Array | undefined,
+  options: BulkOptions | undefined,
+  f: LocalDayFunction,
+  invalid: number,
+): Int32Array | undefined {
+  const e = engineOf(toZone(zone));
+  if (e instanceof FixedEngine) return undefined;
+  const sentinel = checkInput('epochMs', epochMs, options);
+  const n = epochMs.length;
+  const result = checkOut('localDayFunctionBulk', out, n, (k) => new Int32Array(k), 'Int32Array');
+  return fillFromDayTable(e, epochMs, result, sentinel, DAY_FUNCTION, f, invalid);
+}
 
 function checkOut<T extends Int32Array | Float64Array>(name: string, out: T | undefined, n: number, make: (n: number) => T, kind: string): T {
   if (out === undefined) return make(n);
@@ -316,7 +464,7 @@ export function dayNumberFromEpochMsBulk(zone: ZoneInput, epochMs: Input, out?: 
     }
     return result;
   }
-  return fillFromDayTable(e, epochMs, result, sentinel, dayNumbersKernel, localDayNumber, INVALID_DAY_NUMBER);
+  return fillFromDayTable(e, epochMs, result, sentinel, DAY_NUMBERS, undefined, INVALID_DAY_NUMBER);
 }
 
 /**
@@ -343,5 +491,5 @@ export function wallMsFromEpochMsBulk(zone: ZoneInput, epochMs: Input, out?: Flo
     }
     return result;
   }
-  return fillFromDayTable(e, epochMs, result, sentinel, wallMsKernel, localWallMs, NaN);
+  return fillFromDayTable(e, epochMs, result, sentinel, WALL_MS, undefined, NaN);
 }
