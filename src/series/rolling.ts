@@ -512,17 +512,20 @@ export function rollBulk(epochMs: Float64Array, values: Float64Array, options: R
       received: out,
     });
   }
+  let previous = -Infinity;
   for (let i = 0; i < n; i++) {
     const x = epochMs[i]!;
-    if (!(x >= (i > 0 ? epochMs[i - 1]! : -Infinity))) {
-      throw x !== x
-        ? new KalendsRangeError(`epochMs[${i}]: expected an instant, got NaN`, { code: 'out-of-range', received: x })
-        : new KalendsRangeError(`epochMs: expected ascending instants, but [${i}] (${x}) comes before [${i - 1}] (${epochMs[i - 1]})`, {
-            code: 'unsorted',
-            received: x,
-            path: `epochMs[${i}]`,
-          });
+    if (x >= previous) {
+      previous = x;
+      continue;
     }
+    throw x !== x
+      ? new KalendsRangeError(`epochMs[${i}]: expected an instant, got NaN`, { code: 'out-of-range', received: x })
+      : new KalendsRangeError(`epochMs: expected ascending instants, but [${i}] (${x}) comes before [${i - 1}] (${epochMs[i - 1]})`, {
+          code: 'unsorted',
+          received: x,
+          path: `epochMs[${i}]`,
+        });
   }
   const series = makeSeries(epochMs, ['value'], [values]);
   const [agg] = compileAggregations(series, [options?.aggregation as never], 'options.aggregation', ROLLING_NAMES);
