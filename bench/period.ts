@@ -59,6 +59,7 @@ function bench(name: string, description: string, unit: PeriodUnit, perElement: 
       description,
       elements: N,
       unit: 'instant',
+      rounds: 9,
       ours: { name: 'kalends ordinalFromEpochMsBulk', run: () => ordinalFromEpochMsBulk(unit, ZONE, data, out)[N - 1] },
       baselines: baselines(data, new Int32Array(N), perElement),
     };
