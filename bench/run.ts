@@ -3,7 +3,8 @@
  * and prints median time per element with ratios to the baselines of the same run.
  *
  * Each benchmark runs in a child process of its own, so that the JIT state one benchmark leaves behind (functions
- * seen with other argument types, a heap full of another benchmark's data) never colours the next one's figures.
+ * seen with other argument types, a heap full of another benchmark's data) never colours the next one's figures,
+ * and with the garbage collector on the main thread only (see below).
  */
 import { spawnSync } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
@@ -29,7 +30,10 @@ if (only !== undefined) {
   console.log(`kalends benchmarks, Node ${process.version}, ${new Date().toISOString().slice(0, 10)}, one process per benchmark`);
   const script = fileURLToPath(import.meta.url);
   for (let k = 0; k < all.length; k++) {
-    const r = spawnSync(process.execPath, ['--expose-gc', script, filter, '--only-index', String(k)], { stdio: 'inherit' });
+    // --single-threaded-gc: the harness collects garbage before every measured round, and on a 2-core machine the
+    // collector's background threads (concurrent sweeping after a heavy baseline such as the per-element Temporal
+    // loops) would otherwise still be running during the next round and slow whichever case it is.
+    const r = spawnSync(process.execPath, ['--expose-gc', '--single-threaded-gc', script, filter, '--only-index', String(k)], { stdio: 'inherit' });
     if (r.status !== 0) process.exitCode = 1;
   }
 }

@@ -3,9 +3,9 @@
  * per-element allocation, no Intl call inside the loop.
  *
  * Method: a per-UTC-day lookup table (the day's offset in ms, or NaN for the rare day with a transition inside,
- * whose one-byte code then says how to resolve it) turns each element into a multiplication, a division, two
- * floors and one load. The table is built when an instant first falls outside the zone's current table: the rest of
- * the input is scanned once for its range, and the table is rebuilt to cover it (joined with the old range, plus a
+ * whose one-byte code then says how to resolve it) turns each element into two multiplications, two floors and
+ * one load, with no division. The table is built when an instant first falls outside the zone's current table: the
+ * rest of the input is scanned once for its range, and the table is rebuilt to cover it (joined with the old range, plus a
  * year's margin on each side). The last table of each zone is kept, so later calls over similar years neither scan
  * nor build. When the input's range is much wider than the input is long, the loop asks the compiled chunks for
  * each element instead. Invalid instants (NaN, infinities, out of range) fail the table's range test and are
@@ -91,13 +91,14 @@ const CHANGE_DAY = 255;
 const BUSY_DAY = 254;
 
 /*
- * The kernels find an instant's UTC day as Math.floor(t * 1.1574074074074074e-8), the double nearest to
- * 1 / 86,400,000, instead of dividing (a division costs several times more than a multiplication). That is exactly
- * Math.floor(t / 86_400_000) for every double t of the supported range: test/zone/day-division.test.ts checks both
- * sides of every one of the 200,000,001 UTC midnights from -8.64e15 to 8.64e15 (the midnight itself and the double
- * just below it), and a rounded multiplication by a positive constant never decreases as t grows, so no instant
- * between two midnights can land on another day. The constants are written as literals: the bundler turns module
- * constants into module variables, which V8 reloads on every element, while a literal is folded into the code.
+ * The kernels find an instant's UTC day, and its local day from its wall-clock time, as
+ * Math.floor(x * 1.1574074074074074e-8) (the double nearest to 1 / 86,400,000) instead of dividing (a division
+ * costs several times more than a multiplication). That is exactly Math.floor(x / 86_400_000) for every double x
+ * within two days of the supported range: test/zone/day-division.test.ts checks both sides of every one of the
+ * 200,000,005 midnights from 8.64e15 ms plus two days before the epoch to as many after it (the midnight itself
+ * and the double just below it), and a rounded multiplication by a positive constant never decreases as x grows,
+ * so no value between two midnights can land on another day. The constants are written as literals: the bundler
+ * turns module constants into module variables, which V8 reloads on every element, while a literal is folded in.
  */
 
 function dayTable(e: Engine, d0: number, days: number): DayTable | undefined {
@@ -206,7 +207,7 @@ function dayNumbersKernel(src: Input, dst: Int32Array, i: number, n: number, day
     if (!(k >= 0 && k < days)) return i;
     const off = dayOffsets[k]!;
     if (off !== off) return i;
-    dst[i] = Math.floor((t + off) / 86_400_000);
+    dst[i] = Math.floor((t + off) * 1.1574074074074074e-8);
   }
   return i;
 }
