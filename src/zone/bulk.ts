@@ -116,7 +116,7 @@ function dayTable(e: Engine, d0: number, days: number): DayTable | undefined {
     return k;
   };
   const codes = new Uint8Array(days);
-  const changeIndex = new Int32Array(days);
+  const changeIndex = new Int32Array(days).fill(-1); // -1: no single transition inside the day
   const cAt: number[] = [];
   const cBefore: number[] = [];
   const cAfter: number[] = [];
@@ -198,28 +198,64 @@ function tableCovering(e: Engine, values: Input, from: number, current: RangedTa
 
 /**
  * The hot loop of {@link dayNumberFromEpochMsBulk}: converts from index `i` while each instant's UTC day is inside
- * the table and holds one offset all day; returns the index of the first element it did not convert (n when done).
+ * the table; returns the index of the first element it did not convert (n when done).
  */
-function dayNumbersKernel(src: Input, dst: Int32Array, i: number, n: number, dayOffsets: Float64Array, d0: number, days: number): number {
+function dayNumbersKernel(src: Input, dst: Int32Array, i: number, n: number, tab: RangedTable): number {
+  const { dayOffsets, d0, days, changeIndex, changeAt, changeBefore, changeAfter } = tab;
   for (; i < n; i++) {
     const t = src[i] as number;
     const k = Math.floor(t * 1.1574074074074074e-8) - d0;
     if (!(k >= 0 && k < days)) return i;
-    const off = dayOffsets[k]!;
-    if (off !== off) return i;
+    let off = dayOffsets[k]!;
+    if (off !== off) {
+      // A transition day: which side of its one transition t is on (a day with several stops the loop).
+      const j = changeIndex[k]!;
+      if (j < 0) return i;
+      off = t < changeAt[j]! ? changeBefore[j]! : changeAfter[j]!;
+    }
     dst[i] = Math.floor((t + off) * 1.1574074074074074e-8);
   }
   return i;
 }
 
+/**
+ * {@link dayNumbersKernel} for a table that starts at least one day after the epoch (d0 >= 1), where every instant
+ * it converts, and its wall-clock time, is positive: there truncation (`| 0`, and the Int32Array store) equals the
+ * floor and costs less. An instant before the table (negative ones included, and NaN, whose truncation is 0) gets
+ * k = -d0 or less and stops the loop as before.
+ */
+function dayNumbersKernelAfterEpoch(src: Input, dst: Int32Array, i: number, n: number, tab: RangedTable): number {
+  const { dayOffsets, d0, days, changeIndex, changeAt, changeBefore, changeAfter } = tab;
+  for (; i < n; i++) {
+    const t = src[i] as number;
+    const k = ((t * 1.1574074074074074e-8) | 0) - d0;
+    if (!(k >= 0 && k < days)) return i;
+    let off = dayOffsets[k]!;
+    if (off !== off) {
+      // A transition day: which side of its one transition t is on (a day with several stops the loop).
+      const j = changeIndex[k]!;
+      if (j < 0) return i;
+      off = t < changeAt[j]! ? changeBefore[j]! : changeAfter[j]!;
+    }
+    dst[i] = (t + off) * 1.1574074074074074e-8;
+  }
+  return i;
+}
+
 /** The hot loop of {@link wallMsFromEpochMsBulk}; the same contract as {@link dayNumbersKernel}. */
-function wallMsKernel(src: Input, dst: Float64Array, i: number, n: number, dayOffsets: Float64Array, d0: number, days: number): number {
+function wallMsKernel(src: Input, dst: Float64Array, i: number, n: number, tab: RangedTable): number {
+  const { dayOffsets, d0, days, changeIndex, changeAt, changeBefore, changeAfter } = tab;
   for (; i < n; i++) {
     const t = src[i] as number;
     const k = Math.floor(t * 1.1574074074074074e-8) - d0;
     if (!(k >= 0 && k < days)) return i;
-    const off = dayOffsets[k]!;
-    if (off !== off) return i;
+    let off = dayOffsets[k]!;
+    if (off !== off) {
+      // A transition day: which side of its one transition t is on (a day with several stops the loop).
+      const j = changeIndex[k]!;
+      if (j < 0) return i;
+      off = t < changeAt[j]! ? changeBefore[j]! : changeAfter[j]!;
+    }
     dst[i] = t + off;
   }
   return i;
@@ -233,9 +269,16 @@ function wallMsKernel(src: Input, dst: Float64Array, i: number, n: number, dayOf
  *   alone (n when done);
  * - `local` is the output for one element resolved outside the loop, from its instant and offset.
  */
+/*
+ * The `run` functions call their kernel through Reflect.apply. Called directly, the kernel was inlined into the
+ * driver once the driver had run about a dozen times, and the inlined loop ran at 1.5 to 1.7 times the kernel's own
+ * time, from that call on (so that, in a benchmark's process, a later round could take the slow mode and keep it).
+ * Through Reflect.apply V8 keeps the call, and the kernel keeps its own optimized code. The argument array is one
+ * per kernel call (about one per bulk call), not one per element.
+ */
 interface Conversion<T, C, A> {
   prepare(e: Engine, tab: RangedTable, context: C): A;
-  run(src: Input, dst: T, i: number, n: number, tab: RangedTable, prepared: A): number;
+  run(src: Input, dst: T, i: number, n: number, tab: RangedTable, prepared: A, e: Engine, context: C): number;
   local(t: number, offsetMs: number, context: C): number;
 }
 
@@ -261,11 +304,12 @@ function fillFromDayTable<T extends Int32Array | Float64Array, C, A>(
   while (i < n) {
     if (tab) {
       // The hot loop runs in a small kernel of its own (V8 optimizes it far better than a loop inside this
-      // function); it stops at an instant outside the table (or NaN) and at a day with a transition inside.
+      // function); it stops at an instant outside the table (or NaN). Elements it leaves inside the table (a
+      // conversion without a table of its own) are resolved here.
       const { codes, offsets, changeIndex, changeAt, changeBefore, changeAfter, d0, days } = tab;
       const prepared = conversion.prepare(e, tab, context);
       while (i < n) {
-        i = conversion.run(epochMs, result, i, n, tab, prepared);
+        i = conversion.run(epochMs, result, i, n, tab, prepared, e, context);
         if (i >= n) break;
         const t = epochMs[i] as number;
         const k = Math.floor(t / MS_PER_DAY) - d0;
@@ -309,13 +353,13 @@ function fillFromDayTable<T extends Int32Array | Float64Array, C, A>(
 
 const DAY_NUMBERS: Conversion<Int32Array, undefined, undefined> = {
   prepare: () => undefined,
-  run: (src, dst, i, n, tab) => dayNumbersKernel(src, dst, i, n, tab.dayOffsets, tab.d0, tab.days),
+  run: (src, dst, i, n, tab) => Reflect.apply(tab.d0 >= 1 ? dayNumbersKernelAfterEpoch : dayNumbersKernel, undefined, [src, dst, i, n, tab]) as number,
   local: (t, offsetMs) => Math.floor((t + offsetMs) / MS_PER_DAY),
 };
 
 const WALL_MS: Conversion<Float64Array, undefined, undefined> = {
   prepare: () => undefined,
-  run: (src, dst, i, n, tab) => wallMsKernel(src, dst, i, n, tab.dayOffsets, tab.d0, tab.days),
+  run: (src, dst, i, n, tab) => Reflect.apply(wallMsKernel, undefined, [src, dst, i, n, tab]) as number,
   local: (t, offsetMs) => t + offsetMs,
 };
 
@@ -338,13 +382,21 @@ export interface LocalDayFunction {
 /**
  * A per-UTC-day table of a {@link LocalDayFunction} in one zone, over the days of one zone day table: the value at
  * the start of each UTC day, and the instant inside the day where the value steps up by one (Infinity when it does
- * not; NaN on the days the exact path resolves: transition days, and any day the zone table marks). An element then
- * costs one multiplication, two loads and a comparison, and no local day is computed at all.
+ * not). An element then costs one multiplication, two loads and a comparison, and no local day is computed at all.
+ * A day with one transition inside is NaN in `step`; its entry in the zone table's change arrays (index j) has the
+ * same pair for each side of the transition here (`firstBefore[j]`, `stepBefore[j]` for instants before it, and
+ * `firstAfter[j]`, `stepAfter[j]`), so that the kernel resolves it without a call: each side has one offset and
+ * lasts under a day, so it holds at most one local midnight. A NaN step there (or a day with several transitions)
+ * stops the kernel, and the driver resolves the element.
  */
 interface StepTable {
   readonly zoneTable: RangedTable;
   readonly first: Int32Array;
   readonly step: Float64Array;
+  readonly firstBefore: Int32Array;
+  readonly stepBefore: Float64Array;
+  readonly firstAfter: Int32Array;
+  readonly stepAfter: Float64Array;
 }
 const stepTables = new WeakMap<Engine, WeakMap<LocalDayFunction, StepTable>>();
 
@@ -357,42 +409,87 @@ function stepTableOf(e: Engine, tab: RangedTable, f: LocalDayFunction): StepTabl
   const cover = f.valuesCovering(d0 - 1, d0 + days + 1);
   if (!cover) return undefined;
   const { start, values } = cover;
+  /**
+   * The value at instant `from` (offset `off` from there on) and the instant before `end` where it steps up by
+   * one: Infinity when it does not step, NaN when the values do not cover the day or step by more than one.
+   */
+  const side = (from: number, end: number, off: number): [number, number] => {
+    const day = Math.floor((from + off) / MS_PER_DAY);
+    if (!(day >= start && day + 1 < start + values.length)) return [0, NaN];
+    const a = values[day - start]!;
+    const b = values[day + 1 - start]!;
+    const next = (day + 1) * MS_PER_DAY - off; // the next local midnight
+    if (b === a || next >= end) return [a, Infinity];
+    return [a, b === a + 1 ? next : NaN];
+  };
   const first = new Int32Array(days);
   const step = new Float64Array(days);
   for (let k = 0; k < days; k++) {
     const off = dayOffsets[k]!;
-    if (off !== off) {
-      step[k] = NaN;
-      continue;
-    }
-    const u = d0 + k;
-    const day = Math.floor((u * MS_PER_DAY + off) / MS_PER_DAY);
-    if (!(day >= start && day + 1 < start + values.length)) {
-      step[k] = NaN;
-      continue;
-    }
-    const a = values[day - start]!;
-    const b = values[day + 1 - start]!;
-    const next = (day + 1) * MS_PER_DAY - off; // the next local midnight
-    first[k] = a;
-    if (b === a || next >= (u + 1) * MS_PER_DAY) step[k] = Infinity;
-    else step[k] = b === a + 1 ? next : NaN;
+    const u = (d0 + k) * MS_PER_DAY;
+    if (off === off) [first[k], step[k]] = side(u, u + MS_PER_DAY, off);
+    else step[k] = NaN;
   }
-  const table = { zoneTable: tab, first, step };
+  const changes = tab.changeAt.length;
+  const firstBefore = new Int32Array(changes);
+  const stepBefore = new Float64Array(changes);
+  const firstAfter = new Int32Array(changes);
+  const stepAfter = new Float64Array(changes);
+  for (let j = 0; j < changes; j++) {
+    const c = tab.changeAt[j]!;
+    const u = Math.floor(c / MS_PER_DAY) * MS_PER_DAY;
+    [firstBefore[j], stepBefore[j]] = side(u, c, tab.changeBefore[j]!);
+    [firstAfter[j], stepAfter[j]] = side(c, u + MS_PER_DAY, tab.changeAfter[j]!);
+  }
+  const table = { zoneTable: tab, first, step, firstBefore, stepBefore, firstAfter, stepAfter };
   if (!perEngine) stepTables.set(e, (perEngine = new WeakMap()));
   perEngine.set(f, table);
   return table;
 }
 
-/** The hot loop of {@link localDayFunctionBulk}. */
-function stepKernel(src: Input, dst: Int32Array, i: number, n: number, first: Int32Array, step: Float64Array, d0: number, days: number): number {
+/** The hot loop of {@link localDayFunctionBulk}; the same contract as {@link dayNumbersKernel}. */
+function stepKernel(src: Input, dst: Int32Array, i: number, n: number, st: StepTable, tab: RangedTable): number {
+  const { first, step, firstBefore, stepBefore, firstAfter, stepAfter } = st;
+  const { d0, days, changeIndex, changeAt } = tab;
   for (; i < n; i++) {
     const t = src[i] as number;
     const k = Math.floor(t * 1.1574074074074074e-8) - d0;
     if (!(k >= 0 && k < days)) return i;
     const s = step[k]!;
-    if (s !== s) return i;
-    dst[i] = first[k]! + +(t >= s);
+    if (s === s) dst[i] = first[k]! + +(t >= s);
+    else {
+      const j = changeIndex[k]!;
+      if (j < 0) return i;
+      const before = t < changeAt[j]!;
+      const s2 = before ? stepBefore[j]! : stepAfter[j]!;
+      if (s2 !== s2) return i;
+      dst[i] = (before ? firstBefore[j]! : firstAfter[j]!) + +(t >= s2);
+    }
+  }
+  return i;
+}
+
+/**
+ * {@link stepKernel} for a table that starts at least one day after the epoch (see {@link dayNumbersKernelAfterEpoch}).
+ * A copy on purpose: one kernel with a flag choosing between truncation and floor measured 20% slower.
+ */
+function stepKernelAfterEpoch(src: Input, dst: Int32Array, i: number, n: number, st: StepTable, tab: RangedTable): number {
+  const { first, step, firstBefore, stepBefore, firstAfter, stepAfter } = st;
+  const { d0, days, changeIndex, changeAt } = tab;
+  for (; i < n; i++) {
+    const t = src[i] as number;
+    const k = ((t * 1.1574074074074074e-8) | 0) - d0;
+    if (!(k >= 0 && k < days)) return i;
+    const s = step[k]!;
+    if (s === s) dst[i] = first[k]! + +(t >= s);
+    else {
+      const j = changeIndex[k]!;
+      if (j < 0) return i;
+      const before = t < changeAt[j]!;
+      const s2 = before ? stepBefore[j]! : stepAfter[j]!;
+      if (s2 !== s2) return i;
+      dst[i] = (before ? firstBefore[j]! : firstAfter[j]!) + +(t >= s2);
+    }
   }
   return i;
 }
@@ -402,7 +499,7 @@ const NO_STEPS: StepTable | undefined = undefined;
 
 const DAY_FUNCTION: Conversion<Int32Array, LocalDayFunction, StepTable | undefined> = {
   prepare: (e, tab, f) => stepTableOf(e, tab, f) ?? NO_STEPS,
-  run: (src, dst, i, n, tab, st) => (st ? stepKernel(src, dst, i, n, st.first, st.step, tab.d0, tab.days) : i),
+  run: (src, dst, i, n, tab, st) => (!st ? i : Reflect.apply(tab.d0 >= 1 ? stepKernelAfterEpoch : stepKernel, undefined, [src, dst, i, n, st, tab]) as number),
   local: (t, offsetMs, f) => f.valueOf(Math.floor((t + offsetMs) / MS_PER_DAY)),
 };
 
