@@ -57,8 +57,9 @@ function fmtNs(ns: number): string {
 
 /**
  * Runs a benchmark and prints a table: case, median time per element, and its ratio to ours. The rounds are
- * interleaved (ours, then each baseline, then ours again, ...) so that the machine's slow and fast phases fall on
- * every case alike; the ratios are what the figures mean.
+ * interleaved (ours, then each baseline, then ours again, ..., each round starting one case later) so that the
+ * machine's slow and fast phases, and the cold caches after a slow baseline, fall on every case alike; the ratios
+ * are what the figures mean.
  */
 export function runBenchmark(b: Benchmark, print: (line: string) => void): CaseResult[] {
   const rounds = b.rounds ?? 5;
@@ -70,14 +71,18 @@ export function runBenchmark(b: Benchmark, print: (line: string) => void): CaseR
   // the fourth call; one warm-up run left the first rounds of ours in the median.
   for (let w = 0; w < 3; w++) for (const c of cases) consume(c.run());
   const samples: number[][] = cases.map(() => []);
+  // Each round starts with a different case (round r with case r mod the number of cases), so that no case always
+  // runs right after the slow per-element baselines, whose memory churn leaves the caches cold for whatever follows.
   for (let r = 0; r < rounds; r++) {
-    cases.forEach((c, k) => {
+    for (let m = 0; m < cases.length; m++) {
+      const k = (r + m) % cases.length;
+      const c = cases[k]!;
       const g = (globalThis as { gc?: () => void }).gc;
       if (g) g();
       const t0 = now();
       consume(c.run());
       samples[k]!.push(((now() - t0) * 1e6) / (c.elements ?? b.elements));
-    });
+    }
   }
   const results: CaseResult[] = cases.map((c, k) => ({ name: c.name, nsPerElement: median(samples[k]!), samples: samples[k]! }));
   const ours = results[0]!;
