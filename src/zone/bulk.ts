@@ -3,13 +3,14 @@
  * per-element allocation, no Intl call inside the loop.
  *
  * Method: a per-UTC-day lookup table (the day's offset in ms, or NaN for the rare day with a transition inside,
- * whose one-byte code then says how to resolve it) turns each element into two multiplications, two floors and
- * one load, with no division. The table is built when an instant first falls outside the zone's current table: the
- * rest of the input is scanned once for its range, and the table is rebuilt to cover it (joined with the old range, plus a
- * year's margin on each side). The last table of each zone is kept, so later calls over similar years neither scan
- * nor build. When the input's range is much wider than the input is long, the loop asks the compiled chunks for
- * each element instead. Invalid instants (NaN, infinities, out of range) fail the table's range test and are
- * handled outside the hot loop; in 'throw' mode, elements before the first invalid one have been written to `out`.
+ * where the kernel reads the transition's instant and the offsets on both sides) turns each element into two
+ * multiplications, two floors and one load, with no division. The table is built when an instant first falls
+ * outside the zone's current table: the rest of the input is scanned once for its range, and the table is rebuilt
+ * to cover it (joined with the old range, plus a year's margin on each side, within the supported range). The last
+ * table of each zone is kept, so later calls over similar years neither scan nor build. When the input's range is
+ * much wider than the input is long, the loop asks the compiled chunks for each element instead. Invalid instants
+ * (NaN, infinities, out of range) fail the table's range test and are handled outside the hot loop; in 'throw'
+ * mode, elements before the first invalid one have been written to `out`.
  *
  * @module
  */
@@ -198,7 +199,8 @@ function tableCovering(e: Engine, values: Input, from: number, current: RangedTa
 
 /**
  * The hot loop of {@link dayNumberFromEpochMsBulk}: converts from index `i` while each instant's UTC day is inside
- * the table; returns the index of the first element it did not convert (n when done).
+ * the table and has at most one transition; returns the index of the first element it did not convert (n when
+ * done).
  */
 function dayNumbersKernel(src: Input, dst: Int32Array, i: number, n: number, tab: RangedTable): number {
   const { dayOffsets, d0, days, changeIndex, changeAt, changeBefore, changeAfter } = tab;
@@ -283,11 +285,11 @@ interface Conversion<T, C, A> {
 }
 
 /**
- * The driver shared by the bulk conversions. It runs a kernel over the zone's day table and resolves, outside
- * the hot loop, each element the kernel stops at: a day with a transition inside (from the table's change
- * entries), an instant outside the table (rebuilding the table over the rest of the input), or an invalid instant
- * (thrown, or written as `invalid` under the sentinel policy). When the input's range is too wide for a table it
- * asks the engine for each remaining element.
+ * The driver shared by the bulk conversions. It runs a kernel over the zone's day table (the kernel itself
+ * resolves days with one transition inside) and resolves, outside the hot loop, each element the kernel stops at:
+ * a day with several transitions (from the engine), an instant outside the table (rebuilding the table over the
+ * rest of the input), or an invalid instant (thrown, or written as `invalid` under the sentinel policy). When the
+ * input's range is too wide for a table it asks the engine for each remaining element.
  */
 function fillFromDayTable<T extends Int32Array | Float64Array, C, A>(
   e: Engine,
