@@ -65,6 +65,7 @@ function bench(name: string, description: string, unit: PeriodUnit, perElement: 
       elements: N,
       unit: 'instant',
       rounds: 9,
+      processes: 3,
       ours: { name: 'kalends ordinalFromEpochMsBulk', run: () => ordinalFromEpochMsBulk(unit, ZONE, data, out)[N - 1] },
       baselines: baselines(data, new Int32Array(N), perElement),
     };

@@ -28,6 +28,7 @@ function localDayNumbers(): Benchmark {
     elements: N,
     unit: 'instant',
     rounds: 9,
+    processes: 3,
     ours: {
       name: 'kalends dayNumberFromEpochMsBulk',
       run: () => dayNumberFromEpochMsBulk(ZONE, instants, out)[N - 1],
