@@ -23,9 +23,10 @@ const MARCH_BASED_LENGTHS = Int32Array.of(31, 30, 31, 30, 31, 31, 30, 31, 30, 31
 const WEEK_TABLE_FIRST_YEAR = 1800;
 const WEEK_TABLE_LAST_YEAR = 2400;
 
-/** Below this many elements the table is not worth building; each element takes the scalar path. */
-const WEEK_TABLE_MIN_ELEMENTS = 2048;
-/** @internal Below this many instants, instants to ordinals go through day numbers rather than a per-UTC-day table. */
+/**
+ * @internal Below this many elements a table is not worth building: day numbers take the scalar path instead of
+ * the week and dense tables, and instants go through day numbers instead of the zone layer's per-UTC-day table.
+ */
 export const BULK_TABLE_MIN_ELEMENTS = 2048;
 
 interface WeekTable {
@@ -191,7 +192,7 @@ function denseKernel(src: ArrayLike<number>, out: Int32Array, i: number, n: numb
  * range is far wider than the input is long.
  */
 export function ordinalsFromDaysKernel(core: UnitCore, src: ArrayLike<number>, out: Int32Array, n: number): void {
-  if (core.kernel.type === 'linear' || n < WEEK_TABLE_MIN_ELEMENTS) {
+  if (core.kernel.type === 'linear' || n < BULK_TABLE_MIN_ELEMENTS) {
     computeOrdinals(core, src, out, 0, n);
     return;
   }
@@ -229,7 +230,7 @@ function computeOrdinals(core: UnitCore, src: ArrayLike<number>, out: Int32Array
     }
     return;
   }
-  if (k.type === 'weeks' && n - from < WEEK_TABLE_MIN_ELEMENTS) {
+  if (k.type === 'weeks' && n - from < BULK_TABLE_MIN_ELEMENTS) {
     const ordinalOf = core.ordinalOf;
     for (let i = from; i < n; i++) out[i] = ordinalOf(src[i]!);
     return;

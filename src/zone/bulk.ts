@@ -496,11 +496,9 @@ function stepKernelAfterEpoch(src: Input, dst: Int32Array, i: number, n: number,
   return i;
 }
 
-/** No step table (the range is too wide for the function's values): every element takes the exact path. */
-const NO_STEPS: StepTable | undefined = undefined;
-
 const DAY_FUNCTION: Conversion<Int32Array, LocalDayFunction, StepTable | undefined> = {
-  prepare: (e, tab, f) => stepTableOf(e, tab, f) ?? NO_STEPS,
+  // No step table (the range is too wide for the function's values): the driver resolves every element.
+  prepare: (e, tab, f) => stepTableOf(e, tab, f),
   run: (src, dst, i, n, tab, st) => (!st ? i : Reflect.apply(tab.d0 >= 1 ? stepKernelAfterEpoch : stepKernel, undefined, [src, dst, i, n, st, tab]) as number),
   local: (t, offsetMs, f) => f.valueOf(Math.floor((t + offsetMs) / MS_PER_DAY)),
 };
