@@ -1,5 +1,6 @@
 import { bucketSeries, rollBulk, rollSeries, seriesFromColumns, type Series } from '../src/index.js';
 import { type Benchmark, seededRandom } from './harness.js';
+import { windowStartBound } from './window-bound.js';
 
 const N = 10_000_000;
 const YEAR_MS = 365.2425 * 86_400_000;
@@ -137,5 +138,14 @@ function rollingCalendar(): Benchmark {
   };
 }
 
+/**
+ * The measured lower bound behind the rolling goal: only the window starts of the 30-day window, no sums (see
+ * window-bound.ts), in plain JavaScript and in WebAssembly, against the same floor.
+ */
+function rollingBound(): Benchmark {
+  const s = tenMillionPoints();
+  return windowStartBound(s, 30 * 86_400_000, floorCase(s));
+}
+
 /** Benchmarks of this layer. Each is a factory so that its data is made only when it runs. */
-export const benchmarks: readonly (() => Benchmark)[] = [bucketMonthly, rolling30Days, rollingCalendar];
+export const benchmarks: readonly (() => Benchmark)[] = [bucketMonthly, rolling30Days, rollingBound, rollingCalendar];
