@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { KalendsRangeError, rollSeries, seriesFromColumns } from '../../src/index.js';
+import { KalendsRangeError, KalendsTypeError, rollBulk, rollSeries, seriesFromColumns } from '../../src/index.js';
 import { reference, relativeError, rowsArb, same, valid, valueArb } from './reference.js';
 
 type Row = [number, number];
@@ -214,5 +214,58 @@ describe('rolling windows against brute force (fast-check, seeded)', () => {
     expect(() => rollSeries(s, { window: { rows: 2 }, aggregations: ['median' as never] })).toThrow(/unknown aggregation "median"; valid names are count, sum, mean, min, max, variance, stddev/);
     expect(() => rollSeries(s, { window: { rows: 2 }, aggregations: ['maen' as never] })).toThrow(/did you mean "mean"/);
     expect(() => rollSeries(s, { window: { weeks: 2 } as never, aggregations: ['sum'] })).toThrow(/options.window: expected one of/);
+  });
+});
+
+describe('rollBulk (bare typed arrays, one aggregation)', () => {
+  it('matches brute force for every aggregation, window kind and edge rule, with and without an out array (fast-check, seeded)', () => {
+    // Same brute force as above (windowRows over every row); count, min and max exact, sum and mean within 1e-12
+    // relative of the exact sums. Half the cases pass a longer out array, whose extra element must stay untouched.
+    const names = ['count', 'sum', 'mean', 'min', 'max'] as const;
+    fc.assert(
+      fc.property(rowsArb(90, 1500), specArb, fc.constantFrom(...names), fc.boolean(), fc.boolean(), fc.integer({ min: 0, max: 3 }), fc.boolean(), (rows, spec, name, startInc, endInc, minObs, giveOut) => {
+        const t = Float64Array.from(rows, (r) => r[0]);
+        const v = Float64Array.from(rows, (r) => r[1]);
+        const given = giveOut ? new Float64Array(rows.length + 1).fill(-7) : undefined;
+        const out = rollBulk(t, v, { window: spec, aggregation: name, minObservations: minObs, startInclusive: startInc, endInclusive: endInc }, given);
+        if (given) {
+          expect(out).toBe(given);
+          expect(given[rows.length]).toBe(-7);
+        } else expect(out.length).toBe(rows.length);
+        rows.forEach((_, i) => {
+          const w = valid(windowRows(rows, i, spec, startInc, endInc));
+          if (name === 'count') {
+            expect(out[i]).toBe(w.length);
+            return;
+          }
+          const want = w.length >= minObs ? reference[name](w) : NaN;
+          if (name === 'min' || name === 'max') expect(same(out[i]!, want)).toBe(true);
+          else expect(relativeError(out[i]!, want)).toBeLessThan(1e-12);
+        });
+      }),
+      { seed: 7104, numRuns: 250 },
+    );
+  });
+
+  it('rejects bad input with a typed error that names the value', () => {
+    const t = Float64Array.from([0, 10, 20]);
+    const v = Float64Array.from([1, 2, 3]);
+    const opts = { window: { lengthMs: 15 }, aggregation: 'mean' } as const;
+    expect(() => rollBulk([0, 10, 20] as never, v, opts)).toThrow(KalendsTypeError);
+    expect(() => rollBulk([0, 10, 20] as never, v, opts)).toThrow(/expected two Float64Arrays, got/);
+    expect(() => rollBulk(t, Float64Array.from([1, 2]), opts)).toThrow(/values: expected 3 values \(one per instant\), got 2/);
+    expect(() => rollBulk(t, v, opts, new Float64Array(2))).toThrow(/out: expected a Float64Array of at least 3 elements/);
+    expect(() => rollBulk(Float64Array.from([0, 20, 10]), v, opts)).toThrow(/epochMs: expected ascending instants, but \[2\] \(10\) comes before \[1\] \(20\)/);
+    expect(() => rollBulk(Float64Array.from([0, NaN, 10]), v, opts)).toThrow(/epochMs\[1\]: expected an instant, got NaN/);
+    expect(() => rollBulk(t, v, { window: { lengthMs: 0 }, aggregation: 'mean' })).toThrow(KalendsRangeError);
+    expect(() => rollBulk(t, v, { window: { rows: -1 }, aggregation: 'sum' })).toThrow(/got -1/);
+    expect(() => rollBulk(t, v, { window: { rows: 2 }, aggregation: 'median' as never })).toThrow(/unknown aggregation "median"/);
+    let caught: unknown;
+    try {
+      rollBulk(Float64Array.from([0, 20, 10]), v, opts);
+    } catch (e) {
+      caught = e;
+    }
+    expect(caught).toMatchObject({ code: 'unsorted', received: 10, path: 'epochMs[2]' });
   });
 });
