@@ -20,7 +20,8 @@ export type ErrorCode =
   | 'limit-exceeded'
   | 'unsorted'
   | 'length-mismatch'
-  | 'unsupported';
+  | 'unsupported'
+  | 'unknown-name';
 
 /** Fields shared by every kalends error. */
 export interface KalendsErrorFields {

@@ -2,18 +2,18 @@ import {
   defineUnit,
   formatPeriod,
   formatPlainDate,
-  labelFromOrdinalBulk,
+  formatOrdinalBulk,
   listSubPeriods,
   ordinalFromEpochMsBulk,
   parsePeriod,
-  periodFirstDayNumber,
+  firstDayNumberOfPeriod,
   periodFromEpochMs,
-  periodLastDayNumber,
-  periodLengthDays,
-  periodStartEpochMs,
+  lastDayNumberOfPeriod,
+  lengthDaysOfPeriod,
+  firstEpochMsOfPeriod,
   periodYearEarlier,
   formatInstant,
-  offsetSecondsAt,
+  offsetSecondsFromEpochMs,
 } from '../../src/index.js';
 import type { DemoSection } from '../demo.js';
 import { BOOKING_ZONE, inventedSales } from '../scenario.js';
@@ -46,8 +46,8 @@ export const section: DemoSection = {
 
     // The shops' FY2024 (a 52-week year) and its periods.
     const fy = parsePeriod(retailYear, 'FY2024');
-    print(`Shops' ${formatPeriod(fy)}: ${formatPlainDate(periodFirstDayNumber(fy))} to ${formatPlainDate(periodLastDayNumber(fy))}, ${periodLengthDays(fy) / 7} weeks;`);
-    print(`  it starts at ${formatInstant(periodStartEpochMs(fy, BOOKING_ZONE), { offsetSeconds: offsetSecondsAt(BOOKING_ZONE, periodStartEpochMs(fy, BOOKING_ZONE)) })} in ${BOOKING_ZONE}.`);
+    print(`Shops' ${formatPeriod(fy)}: ${formatPlainDate(firstDayNumberOfPeriod(fy))} to ${formatPlainDate(lastDayNumberOfPeriod(fy))}, ${lengthDaysOfPeriod(fy) / 7} weeks;`);
+    print(`  it starts at ${formatInstant(firstEpochMsOfPeriod(fy, BOOKING_ZONE), { offsetSeconds: offsetSecondsFromEpochMs(BOOKING_ZONE, firstEpochMsOfPeriod(fy, BOOKING_ZONE)) })} in ${BOOKING_ZONE}.`);
 
     // Invented sales for two retail years, bucketed into retail months in one pass, then compared year over year.
     const startMs = Date.parse('2023-01-29T06:00:00Z');
@@ -58,13 +58,13 @@ export const section: DemoSection = {
     ordinals.forEach((o, i) => totals.set(o, (totals.get(o) ?? 0) + sales[i]!.amount));
     print(`${sales.length} invented sales bucketed into ${totals.size} retail months; FY2024 against the year before:`);
     const months = listSubPeriods(fy, retailMonth);
-    const labels = labelFromOrdinalBulk(retailMonth, months.map((p) => p.ordinal));
+    const labels = formatOrdinalBulk(retailMonth, months.map((p) => p.ordinal));
     months.forEach((p, i) => {
       const prior = periodYearEarlier(p);
       const now = totals.get(p.ordinal) ?? 0;
       const before = totals.get(prior.ordinal) ?? 0;
       const change = before > 0 ? `${(((now - before) / before) * 100).toFixed(1).padStart(6)}%` : '     -';
-      print(`  ${labels[i]} (${periodLengthDays(p) / 7} wk)  $${now.toFixed(2).padStart(10)}  vs ${formatPeriod(prior)} (${periodLengthDays(prior) / 7} wk) $${before.toFixed(2).padStart(10)}  ${change}`);
+      print(`  ${labels[i]} (${lengthDaysOfPeriod(p) / 7} wk)  $${now.toFixed(2).padStart(10)}  vs ${formatPeriod(prior)} (${lengthDaysOfPeriod(prior) / 7} wk) $${before.toFixed(2).padStart(10)}  ${change}`);
     });
     print('(FY2023 had 53 weeks: its P12 is five weeks long, so the January comparison is five weeks against four.)');
   },

@@ -1,5 +1,5 @@
 import {
-  buildSchedule,
+  defineSchedule,
   defineCalendar,
   defineRule,
   describeRule,
@@ -7,7 +7,7 @@ import {
   formatPlainDate,
   formatRecurrenceRule,
   listOccurrences,
-  offsetSecondsAt,
+  offsetSecondsFromEpochMs,
   weekdayOfDayNumber,
 } from '../../src/index.js';
 import type { DemoSection } from '../demo.js';
@@ -48,7 +48,7 @@ export const section: DemoSection = {
     print(`  ${listOccurrences(salaried, '2026-11-01', '2027-01-01').map(day).join(', ')}`);
 
     // The company's (invented) term loan: quarterly interest periods rolled back from maturity, short front stub.
-    const loan = buildSchedule({
+    const loan = defineSchedule({
       start: '2026-02-10',
       end: '2027-06-30',
       step: { months: 3 },
@@ -66,7 +66,7 @@ export const section: DemoSection = {
     const ovens = defineRule({ kind: 'intraday', zone: BOOKING_ZONE, every: { minutes: 30 }, anchor: '2026-03-08T00:00', clock: 'wall', skipped: 'drop' });
     print(describeRule(ovens));
     const times = listOccurrences(ovens, '2026-03-08T07:00:00Z', '2026-03-08T09:30:00Z');
-    print(`  ${times.map((t) => formatInstant(t, { offsetSeconds: offsetSecondsAt(BOOKING_ZONE, t) }).slice(11)).join(', ')}`);
+    print(`  ${times.map((t) => formatInstant(t, { offsetSeconds: offsetSecondsFromEpochMs(BOOKING_ZONE, t) }).slice(11)).join(', ')}`);
     print('  (holiday calendars change by proclamation: verify payment dates against the official calendar)');
   },
 };

@@ -12,7 +12,7 @@ import {
   defineUnit,
   formatPlainDate,
   joinAsOf,
-  periodChange,
+  periodChangeFromBuckets,
   rollSeries,
   seriesFromBuckets,
   seriesFromColumns,
@@ -54,14 +54,14 @@ export function salesChartSpec(sales: Series = salesSeries()): Record<string, un
   const { weekly, rolling } = weeklySales(sales);
   const rows = Array.from({ length: weekly.length }, (_, i) => ({
     week: weekly.labels[i],
-    start: formatPlainDate(retailWeek.firstDayNumberOf(weekly.ordinals[i]!)),
+    start: formatPlainDate(retailWeek.firstDayNumberFromOrdinal(weekly.ordinals[i]!)),
     sales: Math.round(weekly.columns.sum![i]! * 100) / 100,
     mean: Number.isNaN(rolling.columns.mean![i]!) ? null : Math.round(rolling.columns.mean![i]! * 100) / 100,
   }));
-  const firstQuarter = retailQuarter.parseLabel('FY2024-Q1');
+  const firstQuarter = retailQuarter.parseOrdinal('FY2024-Q1');
   const quarters = Array.from({ length: 8 }, (_, k) => ({
-    start: formatPlainDate(retailQuarter.firstDayNumberOf(firstQuarter + k)),
-    label: retailQuarter.formatLabel(firstQuarter + k),
+    start: formatPlainDate(retailQuarter.firstDayNumberFromOrdinal(firstQuarter + k)),
+    label: retailQuarter.formatOrdinal(firstQuarter + k),
   }));
   return {
     $schema: 'https://vega.github.io/schema/vega-lite/v5.json',
@@ -131,9 +131,9 @@ export const section: DemoSection = {
     print(`By fiscal week: ${weekly.length} weeks from ${weekly.labels[0]} to ${weekly.labels[weekly.length - 1]}; the busiest is ${weekly.labels[busiest]} ($${weekly.columns.sum![busiest]!.toFixed(2)}), 4-week mean then $${rolling.columns.mean![busiest]!.toFixed(2)}.`);
 
     const quarterly = bucketSeries(sales, { unit: retailQuarter, zone: BOOKING_ZONE, aggregations: ['sum'] });
-    const yoy = periodChange(quarterly, { against: 'year-earlier' });
+    const yoy = periodChangeFromBuckets(quarterly, { against: 'year-earlier' });
     for (let i = 4; i < yoy.length; i++) {
-      print(`  ${yoy.labels[i]} vs ${retailQuarter.formatLabel(yoy.baseOrdinals[i]!)}: ${(yoy.relativeChange[i]! * 100).toFixed(1)} %`);
+      print(`  ${yoy.labels[i]} vs ${retailQuarter.formatOrdinal(yoy.baseOrdinals[i]!)}: ${(yoy.relativeChange[i]! * 100).toFixed(1)} %`);
     }
 
     const daily = seriesFromBuckets(bucketSeries(sales, { unit: 'day', zone: BOOKING_ZONE, aggregations: ['sum'] }));

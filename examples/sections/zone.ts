@@ -1,5 +1,5 @@
 import {
-  dayLengthMs,
+  lengthMsOfDayNumber,
   dayNumberFromEpochMsBulk,
   dayNumberFromYmd,
   epochMsFromWallFields,
@@ -8,7 +8,7 @@ import {
   formatPlainDate,
   formatPlainDateTime,
   listTransitions,
-  offsetSecondsAt,
+  offsetSecondsFromEpochMs,
   resolveWallMs,
   wallMsFromEpochMs,
 } from '../../src/index.js';
@@ -22,7 +22,7 @@ export const section: DemoSection = {
     const standUp = epochMsFromWallFields('America/Chicago', { year: 2026, month: 3, day: 30, hour: 9 });
     print(`Stand-up at ${formatInstant(standUp)} (09:00 in Chicago, Monday 2026-03-30):`);
     for (const o of OFFICES) {
-      const off = offsetSecondsAt(o.zone, standUp);
+      const off = offsetSecondsFromEpochMs(o.zone, standUp);
       print(`  ${o.city.padEnd(9)} ${formatPlainDateTime(wallMsFromEpochMs(o.zone, standUp)).slice(0, 16)}  (UTC${formatOffset(off)}, ${o.zone})`);
     }
     // The nightly stock count at 02:30 Chicago time does not exist on the spring-forward day.
@@ -35,7 +35,7 @@ export const section: DemoSection = {
       const changes = listTransitions(o.zone, Date.UTC(2026, 0, 1), Date.UTC(2027, 0, 1));
       const days = changes.map((t) => {
         const dn = Math.floor((t.epochMs + t.offsetAfterSeconds * 1000) / 86_400_000);
-        return `${formatPlainDate(dn)} (${dayLengthMs(o.zone, dn) / 3_600_000} h)`;
+        return `${formatPlainDate(dn)} (${lengthMsOfDayNumber(o.zone, dn) / 3_600_000} h)`;
       });
       print(`  ${o.city}: clock changes in 2026 on ${days.join(' and ')}`);
     }

@@ -401,10 +401,10 @@ export function listHolidays(calendar: CalendarInput, start: number, end: number
  *
  * @example
  * ```ts
- * nthBusinessDayInRange('us-federal', dayNumberFromYmd(2025, 5, 1), dayNumberFromYmd(2025, 6, 1), -1); // 2025-05-30
+ * nthBusinessDayOfRange('us-federal', dayNumberFromYmd(2025, 5, 1), dayNumberFromYmd(2025, 6, 1), -1); // 2025-05-30
  * ```
  */
-export function nthBusinessDayInRange(calendar: CalendarInput, start: number, end: number, n: number): number {
+export function nthBusinessDayOfRange(calendar: CalendarInput, start: number, end: number, n: number): number {
   const e = engineOf(calendar);
   requireDay(e, start, 'start', 1);
   requireDay(e, end, 'end', 1);
@@ -438,14 +438,14 @@ export function nthBusinessDayInRange(calendar: CalendarInput, start: number, en
 
 /** What {@link nthBusinessDayOfPeriod} needs of a period: its unit's first-day mapping and its ordinal. */
 export interface PeriodLike {
-  readonly unit: { firstDayNumberOf(ordinal: number): number };
+  readonly unit: { firstDayNumberFromOrdinal(ordinal: number): number };
   readonly ordinal: number;
 }
 
 /**
  * The nth business day of a period of the period layer (a month, a quarter, a fiscal year, a 4-4-5 period):
- * n = 1 is the first, n = -1 the last. The period is [unit.firstDayNumberOf(ordinal),
- * unit.firstDayNumberOf(ordinal + 1)).
+ * n = 1 is the first, n = -1 the last. The period is [unit.firstDayNumberFromOrdinal(ordinal),
+ * unit.firstDayNumberFromOrdinal(ordinal + 1)).
  *
  * @example
  * ```ts
@@ -455,19 +455,19 @@ export interface PeriodLike {
  */
 export function nthBusinessDayOfPeriod(calendar: CalendarInput, period: PeriodLike, n: number): number {
   const unit = typeof period === 'object' && period !== null ? period.unit : undefined;
-  if (!unit || typeof unit.firstDayNumberOf !== 'function' || typeof period.ordinal !== 'number') {
+  if (!unit || typeof unit.firstDayNumberFromOrdinal !== 'function' || typeof period.ordinal !== 'number') {
     throw new KalendsTypeError(`period: expected a period { unit, ordinal } of the period layer, got ${describeValue(period)}`, {
       code: 'invalid-type',
       received: period,
     });
   }
-  const start = unit.firstDayNumberOf(period.ordinal);
-  const end = unit.firstDayNumberOf(period.ordinal + 1);
-  return nthBusinessDayInRange(calendar, start, end, n);
+  const start = unit.firstDayNumberFromOrdinal(period.ordinal);
+  const end = unit.firstDayNumberFromOrdinal(period.ordinal + 1);
+  return nthBusinessDayOfRange(calendar, start, end, n);
 }
 
 /**
- * @internal {@link nthBusinessDayInRange} without validation and without throwing: NaN when [start, end) holds
+ * @internal {@link nthBusinessDayOfRange} without validation and without throwing: NaN when [start, end) holds
  * fewer than |n| business days (or n = 0). `calendar` must be a compiled calendar, and start <= end integer day
  * numbers with [start, end) inside its supported years. O(1) per 32 days walked from the end it counts from.
  */

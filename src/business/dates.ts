@@ -5,7 +5,7 @@
  * @module
  */
 import { MAX_YEAR, MIN_YEAR } from '../bounds.js';
-import { daysInMonthUnchecked, dayNumberFromYmdUnchecked, packedYmdUnchecked } from '../civil/gregorian.js';
+import { dayCountOfMonthUnchecked, dayNumberFromYmdUnchecked, packedYmdUnchecked } from '../civil/gregorian.js';
 
 const DATE_RE = /^([+-]\d{6}|\d{4})-(\d{2})-(\d{2})$/;
 
@@ -19,7 +19,7 @@ export function dayNumberFromIsoDate(text: string): number | string {
   if (m[1] === '-000000') return `expected an ISO 8601 date (year -000000 is not allowed), got ${JSON.stringify(text)}`;
   if (year < MIN_YEAR || year > MAX_YEAR) return `expected a year from ${MIN_YEAR} to ${MAX_YEAR}, got ${JSON.stringify(text)}`;
   if (month < 1 || month > 12) return `expected a month from 01 to 12, got ${JSON.stringify(text)}`;
-  const dim = daysInMonthUnchecked(year, month);
+  const dim = dayCountOfMonthUnchecked(year, month);
   if (day < 1 || day > dim) return `expected a day from 01 to ${dim} for ${m[1]}-${m[2]}, got ${JSON.stringify(text)}`;
   return dayNumberFromYmdUnchecked(year, month, day);
 }

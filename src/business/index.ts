@@ -31,7 +31,7 @@ export {
   countBusinessDays,
   adjustDayNumber,
   listHolidays,
-  nthBusinessDayInRange,
+  nthBusinessDayOfRange,
   nthBusinessDayOfPeriod,
 } from './calendar.js';
 export {

@@ -5,10 +5,10 @@
  * @module
  */
 import { MAX_YEAR, MIN_YEAR } from '../bounds.js';
-import { EASTER_MIN_YEAR, JULIAN_EASTER_MIN_YEAR, easterDayNumber, julianEasterDayNumber } from '../civil/easter.js';
+import { EASTER_MIN_YEAR, JULIAN_EASTER_MIN_YEAR, easterDayNumberOfYear, julianEasterDayNumberOfYear } from '../civil/easter.js';
 import {
   dayNumberFromYmdUnchecked,
-  daysInMonthUnchecked,
+  dayCountOfMonthUnchecked,
   isLeapYearUnchecked,
   weekdayOfDayNumberUnchecked,
 } from '../civil/gregorian.js';
@@ -50,7 +50,7 @@ export function actualDate(r: NormRule, year: number, dates: Float64Array): numb
       if (r.month === 2 && r.day === 29 && !isLeapYearUnchecked(year)) return NaN;
       return dayNumberFromYmdUnchecked(year, r.month, r.day);
     case KIND_NTH: {
-      const dim = daysInMonthUnchecked(year, r.month);
+      const dim = dayCountOfMonthUnchecked(year, r.month);
       if (r.nth > 0) {
         const first = dayNumberFromYmdUnchecked(year, r.month, 1);
         const d = 1 + ((r.weekday - weekdayOfDayNumberUnchecked(first) + 7) % 7) + 7 * (r.nth - 1);
@@ -68,7 +68,7 @@ export function actualDate(r: NormRule, year: number, dates: Float64Array): numb
     }
     case KIND_EASTER:
       if (r.julian ? year < JULIAN_EASTER_MIN_YEAR : year < EASTER_MIN_YEAR) return NaN;
-      return (r.julian ? julianEasterDayNumber(year) : easterDayNumber(year)) + r.offset;
+      return (r.julian ? julianEasterDayNumberOfYear(year) : easterDayNumberOfYear(year)) + r.offset;
     case KIND_RELATIVE:
       return dates[r.ref]! + r.offset;
     default:

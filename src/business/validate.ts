@@ -6,7 +6,7 @@
  */
 import { MAX_YEAR, MIN_YEAR } from '../bounds.js';
 import { EASTER_MIN_YEAR, JULIAN_EASTER_MIN_YEAR } from '../civil/easter.js';
-import { daysInMonthUnchecked } from '../civil/gregorian.js';
+import { dayCountOfMonthUnchecked } from '../civil/gregorian.js';
 import { type DefinitionIssue, describeValue } from '../errors.js';
 import { type CalendarDefinition, type ObservanceShift, WEEKDAY_NAMES } from './definition.js';
 import { dayNumberFromIsoDate } from './dates.js';
@@ -255,7 +255,7 @@ function parseRule(v: unknown, path: string, c: Collector): RawRule | undefined 
   }
   if (kind === KIND_FIXED || kind === KIND_ON_OR_AFTER || kind === KIND_ON_OR_BEFORE) {
     if (month >= 1) {
-      const max = month === 2 ? 29 : daysInMonthUnchecked(2001, month);
+      const max = month === 2 ? 29 : dayCountOfMonthUnchecked(2001, month);
       const d = v['day'];
       if (typeof d === 'number' && Number.isInteger(d) && d >= 1 && d <= max) day = d;
       else c.add(join(path, 'day'), `expected 1..${max} for month ${month}${month === 2 ? ' (29 gives a date in leap years only)' : ''}, got ${describeValue(d)}`);

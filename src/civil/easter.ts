@@ -22,10 +22,10 @@ export const JULIAN_EASTER_MIN_YEAR = 326;
  *
  * @example
  * ```ts
- * ymdFromDayNumber(easterDayNumber(2025)); // { year: 2025, month: 4, day: 20 }
+ * ymdFromDayNumber(easterDayNumberOfYear(2025)); // { year: 2025, month: 4, day: 20 }
  * ```
  */
-export function easterDayNumber(year: number): number {
+export function easterDayNumberOfYear(year: number): number {
   requireInteger('year', year, EASTER_MIN_YEAR, MAX_YEAR);
   const a = year % 19;
   const b = Math.floor(year / 100);
@@ -50,11 +50,11 @@ export function easterDayNumber(year: number): number {
  *
  * @example
  * ```ts
- * ymdFromDayNumber(julianEasterDayNumber(2025)); // { year: 2025, month: 4, day: 20 }
- * ymdFromDayNumber(julianEasterDayNumber(2024)); // { year: 2024, month: 5, day: 5 }
+ * ymdFromDayNumber(julianEasterDayNumberOfYear(2025)); // { year: 2025, month: 4, day: 20 }
+ * ymdFromDayNumber(julianEasterDayNumberOfYear(2024)); // { year: 2024, month: 5, day: 5 }
  * ```
  */
-export function julianEasterDayNumber(year: number): number {
+export function julianEasterDayNumberOfYear(year: number): number {
   requireInteger('year', year, JULIAN_EASTER_MIN_YEAR, MAX_YEAR);
   const a = year % 4;
   const b = year % 7;

@@ -44,17 +44,17 @@ export function isLeapYearUnchecked(year: number): boolean {
  *
  * @example
  * ```ts
- * daysInMonth(2024, 2); // 29
+ * dayCountOfMonth(2024, 2); // 29
  * ```
  */
-export function daysInMonth(year: number, month: number): number {
+export function dayCountOfMonth(year: number, month: number): number {
   requireYear(year);
   requireInteger('month', month, 1, 12);
-  return daysInMonthUnchecked(year, month);
+  return dayCountOfMonthUnchecked(year, month);
 }
 
 /** @internal */
-export function daysInMonthUnchecked(year: number, month: number): number {
+export function dayCountOfMonthUnchecked(year: number, month: number): number {
   if (month === 2) return isLeapYearUnchecked(year) ? 29 : 28;
   return month === 4 || month === 6 || month === 9 || month === 11 ? 30 : 31;
 }
@@ -64,10 +64,10 @@ export function daysInMonthUnchecked(year: number, month: number): number {
  *
  * @example
  * ```ts
- * daysInYear(2000); // 366
+ * dayCountOfYear(2000); // 366
  * ```
  */
-export function daysInYear(year: number): number {
+export function dayCountOfYear(year: number): number {
   requireYear(year);
   return isLeapYearUnchecked(year) ? 366 : 365;
 }
@@ -85,7 +85,7 @@ export function daysInYear(year: number): number {
 export function dayNumberFromYmd(year: number, month: number, day: number): number {
   requireYear(year);
   requireInteger('month', month, 1, 12);
-  requireInteger('day', day, 1, daysInMonthUnchecked(year, month));
+  requireInteger('day', day, 1, dayCountOfMonthUnchecked(year, month));
   return dayNumberFromYmdUnchecked(year, month, day);
 }
 
@@ -258,7 +258,7 @@ export function dayNumberFromYmdBulk(
     const d = days[i] as number;
     const valid =
       y >= MIN_YEAR && y <= MAX_YEAR && m >= 1 && m <= 12 && d >= 1 &&
-      (d <= 28 || d <= daysInMonthUnchecked(y, m)) &&
+      (d <= 28 || d <= dayCountOfMonthUnchecked(y, m)) &&
       y === Math.floor(y) && m === (m | 0) && d === (d | 0);
     if (!valid) dayNumberFromYmd(y, m, d); // throws with the field's name and value
     result[i] = dayNumberFromYmdUnchecked(y, m, d);

@@ -2,8 +2,8 @@
 export {
   type Ymd,
   isLeapYear,
-  daysInMonth,
-  daysInYear,
+  dayCountOfMonth,
+  dayCountOfYear,
   dayNumberFromYmd,
   ymdFromDayNumber,
   yearOfDayNumber,
@@ -17,8 +17,8 @@ export {
 } from './gregorian.js';
 export {
   type IsoWeekDate,
-  isoWeeksInYear,
+  isoWeekCountOfYear,
   isoWeekDateFromDayNumber,
   dayNumberFromIsoWeekDate,
 } from './isoweek.js';
-export { easterDayNumber, julianEasterDayNumber, EASTER_MIN_YEAR, JULIAN_EASTER_MIN_YEAR } from './easter.js';
+export { easterDayNumberOfYear, julianEasterDayNumberOfYear, EASTER_MIN_YEAR, JULIAN_EASTER_MIN_YEAR } from './easter.js';

@@ -36,11 +36,11 @@ export function isoWeekOneMonday(y: number): number {
  *
  * @example
  * ```ts
- * isoWeeksInYear(2020); // 53
- * isoWeeksInYear(2021); // 52
+ * isoWeekCountOfYear(2020); // 53
+ * isoWeekCountOfYear(2021); // 52
  * ```
  */
-export function isoWeeksInYear(weekYear: number): number {
+export function isoWeekCountOfYear(weekYear: number): number {
   requireYear(weekYear, 'weekYear');
   return isoWeeksInYearUnchecked(weekYear);
 }

@@ -7,7 +7,7 @@
  */
 import { MAX_DAY_NUMBER, MAX_YEAR, MIN_DAY_NUMBER, MIN_YEAR, MS_PER_DAY } from '../bounds.js';
 import { KalendsRangeError, KalendsTypeError, describeValue, requireInteger } from '../errors.js';
-import { daysInMonthUnchecked, dayNumberFromYmdUnchecked, packedYmdUnchecked, requireDayNumber } from '../civil/gregorian.js';
+import { dayCountOfMonthUnchecked, dayNumberFromYmdUnchecked, packedYmdUnchecked, requireDayNumber } from '../civil/gregorian.js';
 import { Scanner } from './scan.js';
 import { formatDayNumberUnchecked, formatPlainDateTime } from './text.js';
 
@@ -304,7 +304,7 @@ function shiftDays(fn: string, dayNumber: number, d: Duration, overflow: 'constr
         received: d,
       });
     }
-    const dim = daysInMonthUnchecked(ny, nm);
+    const dim = dayCountOfMonthUnchecked(ny, nm);
     if (day > dim) {
       if (overflow === 'reject') {
         throw new KalendsRangeError(

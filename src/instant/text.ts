@@ -10,7 +10,7 @@ import { MAX_DAY_NUMBER, MAX_EPOCH_MS, MAX_OFFSET_SECONDS, MIN_DAY_NUMBER, MIN_E
 import { KalendsRangeError, KalendsTypeError, describeValue, requireInteger } from '../errors.js';
 import {
   dayOfYearOfDayNumber,
-  daysInMonthUnchecked,
+  dayCountOfMonthUnchecked,
   dayNumberFromYmdUnchecked,
   isLeapYearUnchecked,
   packedYmdUnchecked,
@@ -125,7 +125,7 @@ function readCalendarDate(sc: Scanner): { year: number; month: number; day: numb
   sc.expectChar(45, 'a "-" after the month');
   const dayPos = sc.pos;
   const day = sc.digits(2, 'the day');
-  const dim = daysInMonthUnchecked(year, month);
+  const dim = dayCountOfMonthUnchecked(year, month);
   if (day < 1 || day > dim) {
     sc.fail(`day ${sc.text.slice(dayPos, dayPos + 2)} is out of range; ${formatYear(year)}-${pad2(month)} has days 01 to ${dim}`, dayPos, 'out-of-range');
   }
@@ -379,7 +379,7 @@ function checkLeapSecond(sc: Scanner, f: Fields, opts: ParseDateTimeOptions | un
     const y = Math.floor(p / 512) + MIN_YEAR;
     const m = (p >> 5) & 15;
     const d = p & 31;
-    if (utcMinuteOfDay !== 23 * 60 + 59 || d !== daysInMonthUnchecked(y, m)) {
+    if (utcMinuteOfDay !== 23 * 60 + 59 || d !== dayCountOfMonthUnchecked(y, m)) {
       sc.fail(
         'second 60 is a leap second, which occurs only at 23:59:60 UTC on the last day of a month (RFC 3339 section 5.7)',
         f.secondPos,

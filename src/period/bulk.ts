@@ -290,7 +290,7 @@ function monthsOrdinal(dn: number, monthsPer: number, startMonthIndex: number, s
 
 /**
  * The ordinal in `unit` of each day number, into an Int32Array (allocated, or `out`), in one pass with no
- * per-element allocation. Equal, element by element, to `unit.ordinalOfDayNumber`.
+ * per-element allocation. Equal, element by element, to `unit.ordinalFromDayNumber`.
  *
  * @example
  * ```ts
@@ -313,10 +313,10 @@ export function ordinalFromDayNumberBulk(unit: UnitInput, dayNumbers: ArrayLike<
  *
  * @example
  * ```ts
- * labelFromOrdinalBulk('quarter', Int32Array.of(8100, 8101)); // ['2025-Q1', '2025-Q2']
+ * formatOrdinalBulk('quarter', Int32Array.of(8100, 8101)); // ['2025-Q1', '2025-Q2']
  * ```
  */
-export function labelFromOrdinalBulk(unit: UnitInput, ordinals: ArrayLike<number>): string[] {
+export function formatOrdinalBulk(unit: UnitInput, ordinals: ArrayLike<number>): string[] {
   const u = toUnit(unit);
   const core = coreOf(u)!;
   const n = ordinals.length;

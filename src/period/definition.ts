@@ -5,7 +5,7 @@
  * @module
  */
 import { DefinitionError, type DefinitionIssue, describeValue } from '../errors.js';
-import { daysInMonthUnchecked } from '../civil/gregorian.js';
+import { dayCountOfMonthUnchecked } from '../civil/gregorian.js';
 import { parseDayLabel } from './labels.js';
 
 /** A weekday by its English name, lower case. */
@@ -244,7 +244,7 @@ export function validateUnitDefinition(
       } else startMonth = m;
       const d = start['day'];
       if (startMonth !== undefined) {
-        const max = daysInMonthUnchecked(2001, startMonth); // 28 for February: 29 February is rejected.
+        const max = dayCountOfMonthUnchecked(2001, startMonth); // 28 for February: 29 February is rejected.
         if (typeof d !== 'number' || !Number.isInteger(d) || d < 1 || d > max) {
           const hint =
             startMonth === 2 && d === 29

@@ -34,11 +34,11 @@ export {
   shiftPeriod,
   countPeriods,
   comparePeriods,
-  periodFirstDayNumber,
-  periodLastDayNumber,
-  periodEndDayNumber,
-  periodLengthDays,
-  periodContainsDayNumber,
+  firstDayNumberOfPeriod,
+  lastDayNumberOfPeriod,
+  firstDayNumberAfterPeriod,
+  lengthDaysOfPeriod,
+  isDayNumberInPeriod,
   formatPeriod,
   parsePeriod,
   periodYearEarlier,
@@ -46,12 +46,12 @@ export {
   listOverlappingPeriods,
   periodContaining,
 } from './period.js';
-export { ordinalFromDayNumberBulk, labelFromOrdinalBulk, firstDayNumberFromOrdinalBulk } from './bulk.js';
+export { ordinalFromDayNumberBulk, formatOrdinalBulk, firstDayNumberFromOrdinalBulk } from './bulk.js';
 export {
   periodFromEpochMs,
-  periodStartEpochMs,
-  periodEndEpochMs,
-  periodContainsEpochMs,
+  firstEpochMsOfPeriod,
+  firstEpochMsAfterPeriod,
+  isEpochMsInPeriod,
   ordinalFromEpochMsBulk,
   INVALID_ORDINAL,
 } from './instants.js';

@@ -12,7 +12,7 @@ import {
   type ZoneInput,
   dayNumberFromEpochMs,
   dayNumberFromEpochMsBulk,
-  dayStartEpochMs,
+  firstEpochMsOfDayNumber,
 } from '../zone/index.js';
 import { localDayFunctionBulk } from '../zone/bulk.js';
 import { BULK_TABLE_MIN_ELEMENTS, ordinalDayFunction, ordinalsFromDaysKernel } from './bulk.js';
@@ -31,7 +31,7 @@ import { type UnitInput, coreOf, toUnit } from './units.js';
  */
 export function periodFromEpochMs(unit: UnitInput, zone: ZoneInput, epochMs: number): Period {
   const u = toUnit(unit);
-  return periodChecked(u, u.ordinalOfDayNumber(dayNumberFromEpochMs(zone, epochMs)), 'periodFromEpochMs');
+  return periodChecked(u, u.ordinalFromDayNumber(dayNumberFromEpochMs(zone, epochMs)), 'periodFromEpochMs');
 }
 
 /**
@@ -39,27 +39,27 @@ export function periodFromEpochMs(unit: UnitInput, zone: ZoneInput, epochMs: num
  *
  * @example
  * ```ts
- * periodStartEpochMs(parsePeriod('month', '2025-03'), 'America/New_York'); // Date.parse('2025-03-01T05:00Z')
+ * firstEpochMsOfPeriod(parsePeriod('month', '2025-03'), 'America/New_York'); // Date.parse('2025-03-01T05:00Z')
  * ```
  */
-export function periodStartEpochMs(p: Period, zone: ZoneInput): number {
+export function firstEpochMsOfPeriod(p: Period, zone: ZoneInput): number {
   const core = requirePeriod(p, 'p');
-  return dayStartEpochMs(zone, core.firstDayOf(p.ordinal));
+  return firstEpochMsOfDayNumber(zone, core.firstDayOf(p.ordinal));
 }
 
 /**
  * The end of `p` in `zone`, exclusive: the first instant of the next period. The period's length in
- * milliseconds is `periodEndEpochMs(p, zone) - periodStartEpochMs(p, zone)`, DST changes included.
+ * milliseconds is `firstEpochMsAfterPeriod(p, zone) - firstEpochMsOfPeriod(p, zone)`, DST changes included.
  *
  * @example
  * ```ts
- * periodEndEpochMs(parsePeriod('month', '2025-03'), 'America/New_York'); // Date.parse('2025-04-01T04:00Z')
+ * firstEpochMsAfterPeriod(parsePeriod('month', '2025-03'), 'America/New_York'); // Date.parse('2025-04-01T04:00Z')
  * ```
  */
-export function periodEndEpochMs(p: Period, zone: ZoneInput): number {
+export function firstEpochMsAfterPeriod(p: Period, zone: ZoneInput): number {
   const core = requirePeriod(p, 'p');
   const end = core.firstDayOf(p.ordinal + 1);
-  return dayStartEpochMs(zone, end);
+  return firstEpochMsOfDayNumber(zone, end);
 }
 
 /**
@@ -67,10 +67,10 @@ export function periodEndEpochMs(p: Period, zone: ZoneInput): number {
  *
  * @example
  * ```ts
- * periodContainsEpochMs(parsePeriod('month', '2025-03'), 'America/New_York', Date.parse('2025-04-01T03:59Z')); // true
+ * isEpochMsInPeriod(parsePeriod('month', '2025-03'), 'America/New_York', Date.parse('2025-04-01T03:59Z')); // true
  * ```
  */
-export function periodContainsEpochMs(p: Period, zone: ZoneInput, epochMs: number): boolean {
+export function isEpochMsInPeriod(p: Period, zone: ZoneInput, epochMs: number): boolean {
   const core = requirePeriod(p, 'p');
   return core.ordinalOf(dayNumberFromEpochMs(zone, epochMs)) === p.ordinal;
 }

@@ -7,7 +7,7 @@
  */
 import { MAX_YEAR, MIN_YEAR } from '../bounds.js';
 import { KalendsRangeError, KalendsSyntaxError, describeValue } from '../errors.js';
-import { dayNumberFromYmdUnchecked, daysInMonthUnchecked, packedYmdUnchecked } from '../civil/gregorian.js';
+import { dayNumberFromYmdUnchecked, dayCountOfMonthUnchecked, packedYmdUnchecked } from '../civil/gregorian.js';
 
 /** @internal The year part of a label: `2025`, `0042`, `+012025`, `-000044`. */
 export function formatYearLabel(year: number): string {
@@ -73,7 +73,7 @@ export function parseDayLabel(text: string, name = 'label', yearSlack = 0): numb
   if (month < 1 || month > 12) {
     throw new KalendsRangeError(`${name}: month ${month} in ${describeValue(text)} is not 01..12`, { code: 'out-of-range', received: text });
   }
-  const dim = daysInMonthUnchecked(year, month);
+  const dim = dayCountOfMonthUnchecked(year, month);
   if (day < 1 || day > dim) {
     throw new KalendsRangeError(`${name}: day ${day} in ${describeValue(text)} is not 01..${dim} for that month`, {
       code: 'out-of-range',

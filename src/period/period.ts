@@ -69,7 +69,7 @@ export function periodFromOrdinal(unit: UnitInput, ordinal: number): Period {
  */
 export function periodFromDayNumber(unit: UnitInput, dayNumber: number): Period {
   const u = toUnit(unit);
-  return make(u, u.ordinalOfDayNumber(dayNumber));
+  return make(u, u.ordinalFromDayNumber(dayNumber));
 }
 
 /**
@@ -132,10 +132,10 @@ export function comparePeriods(a: Period, b: Period): -1 | 0 | 1 {
  *
  * @example
  * ```ts
- * periodFirstDayNumber(parsePeriod('month', '1970-02')); // 31
+ * firstDayNumberOfPeriod(parsePeriod('month', '1970-02')); // 31
  * ```
  */
-export function periodFirstDayNumber(p: Period): number {
+export function firstDayNumberOfPeriod(p: Period): number {
   return requirePeriod(p, 'p').firstDayOf(p.ordinal);
 }
 
@@ -144,22 +144,22 @@ export function periodFirstDayNumber(p: Period): number {
  *
  * @example
  * ```ts
- * periodEndDayNumber(parsePeriod('month', '1970-01')); // 31
+ * firstDayNumberAfterPeriod(parsePeriod('month', '1970-01')); // 31
  * ```
  */
-export function periodEndDayNumber(p: Period): number {
+export function firstDayNumberAfterPeriod(p: Period): number {
   return requirePeriod(p, 'p').firstDayOf(p.ordinal + 1);
 }
 
 /**
- * The last day of `p` (inclusive): `periodEndDayNumber(p) - 1`.
+ * The last day of `p` (inclusive): `firstDayNumberAfterPeriod(p) - 1`.
  *
  * @example
  * ```ts
- * periodLastDayNumber(parsePeriod('month', '1970-01')); // 30 (1970-01-31)
+ * lastDayNumberOfPeriod(parsePeriod('month', '1970-01')); // 30 (1970-01-31)
  * ```
  */
-export function periodLastDayNumber(p: Period): number {
+export function lastDayNumberOfPeriod(p: Period): number {
   return requirePeriod(p, 'p').firstDayOf(p.ordinal + 1) - 1;
 }
 
@@ -168,10 +168,10 @@ export function periodLastDayNumber(p: Period): number {
  *
  * @example
  * ```ts
- * periodLengthDays(parsePeriod('month', '2024-02')); // 29
+ * lengthDaysOfPeriod(parsePeriod('month', '2024-02')); // 29
  * ```
  */
-export function periodLengthDays(p: Period): number {
+export function lengthDaysOfPeriod(p: Period): number {
   const core = requirePeriod(p, 'p');
   return core.firstDayOf(p.ordinal + 1) - core.firstDayOf(p.ordinal);
 }
@@ -181,10 +181,10 @@ export function periodLengthDays(p: Period): number {
  *
  * @example
  * ```ts
- * periodContainsDayNumber(parsePeriod('month', '1970-02'), 31); // true
+ * isDayNumberInPeriod(parsePeriod('month', '1970-02'), 31); // true
  * ```
  */
-export function periodContainsDayNumber(p: Period, dayNumber: number): boolean {
+export function isDayNumberInPeriod(p: Period, dayNumber: number): boolean {
   const core = requirePeriod(p, 'p');
   requireInteger('dayNumber', dayNumber, MIN_DAY_NUMBER, MAX_DAY_NUMBER);
   return core.ordinalOf(dayNumber) === p.ordinal;
@@ -210,12 +210,12 @@ export function formatPeriod(p: Period): string {
  * @example
  * ```ts
  * const fy = defineUnit({ kind: 'fiscal-quarter', start: { month: 10, day: 1 }, naming: 'end-year' });
- * periodFirstDayNumber(parsePeriod(fy, 'FY2026-Q1')) === dayNumberFromYmd(2025, 10, 1); // true
+ * firstDayNumberOfPeriod(parsePeriod(fy, 'FY2026-Q1')) === dayNumberFromYmd(2025, 10, 1); // true
  * ```
  */
 export function parsePeriod(unit: UnitInput, text: string): Period {
   const u = toUnit(unit);
-  return make(u, u.parseLabel(text));
+  return make(u, u.parseOrdinal(text));
 }
 
 /**

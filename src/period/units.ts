@@ -15,7 +15,7 @@ import { MAX_DAY_NUMBER, MIN_DAY_NUMBER } from '../bounds.js';
 import { KalendsRangeError, KalendsSyntaxError, KalendsTypeError, describeValue, requireInteger } from '../errors.js';
 import {
   dayNumberFromYmdUnchecked,
-  daysInMonthUnchecked,
+  dayCountOfMonthUnchecked,
   packedYmdUnchecked,
   weekdayOfDayNumberUnchecked,
 } from '../civil/gregorian.js';
@@ -47,7 +47,7 @@ export type UnitKind = UnitDefinition['kind'];
 
 /**
  * A compiled, immutable period unit. A period of the unit is an integer ordinal; the period with ordinal `o`
- * is the days `[firstDayNumberOf(o), firstDayNumberOf(o + 1))`. Make one with {@link defineUnit}.
+ * is the days `[firstDayNumberFromOrdinal(o), firstDayNumberFromOrdinal(o + 1))`. Make one with {@link defineUnit}.
  */
 export interface PeriodUnit {
   /** A short canonical identifier: two units with the same id are the same unit. */
@@ -61,13 +61,13 @@ export interface PeriodUnit {
   /** Ordinal of the period holding the last supported day. */
   readonly maxOrdinal: number;
   /** The ordinal of the period that holds `dayNumber`. */
-  ordinalOfDayNumber(dayNumber: number): number;
+  ordinalFromDayNumber(dayNumber: number): number;
   /** The first day of period `ordinal`. */
-  firstDayNumberOf(ordinal: number): number;
+  firstDayNumberFromOrdinal(ordinal: number): number;
   /** The label of period `ordinal` (see docs/periods.md, "Labels"). */
-  formatLabel(ordinal: number): string;
+  formatOrdinal(ordinal: number): string;
   /** The ordinal of a label of this unit. */
-  parseLabel(text: string): number;
+  parseOrdinal(text: string): number;
 }
 
 /** How the bulk conversion computes ordinals for a unit (see bulk.ts). */
@@ -146,7 +146,7 @@ function dayCore(): UnitCore {
     },
     yearEarlier: (o) => {
       const { y, m, d } = ymd(o);
-      return dayNumberFromYmdUnchecked(y - 1, m, Math.min(d, daysInMonthUnchecked(y - 1, m)));
+      return dayNumberFromYmdUnchecked(y - 1, m, Math.min(d, dayCountOfMonthUnchecked(y - 1, m)));
     },
     kernel: { type: 'linear', origin: 0, length: 1 },
     labelForm: 'YYYY-MM-DD, e.g. "2025-03-14"',
@@ -384,14 +384,14 @@ function monthFiscalCore(kind: Exclude<FiscalKindName, 'fiscal-week'>, startMont
     const m = (p >> 5) & 15;
     const d = p & 31;
     let cm = y * 12 + m - 1;
-    if (startDay > 1 && d < Math.min(startDay, daysInMonthUnchecked(y, m))) cm -= 1;
+    if (startDay > 1 && d < Math.min(startDay, dayCountOfMonthUnchecked(y, m))) cm -= 1;
     return cm - s0;
   };
   const firstDayOf = (o: number) => {
     const cm = (o - perYear * shift) * monthsPer + s0;
     const y = floorDiv(cm, 12);
     const m = cm - 12 * y + 1;
-    return dayNumberFromYmdUnchecked(y, m, Math.min(startDay, daysInMonthUnchecked(y, m)));
+    return dayNumberFromYmdUnchecked(y, m, Math.min(startDay, dayCountOfMonthUnchecked(y, m)));
   };
   return {
     ordinalOf: (dn) => floorDiv(fiscalMonthIndex(dn), monthsPer) + perYear * shift,
@@ -423,7 +423,7 @@ export interface WeekYearCalendar {
 
 function weekYearCalendar(endWeekday: number, endMonth: number, endRule: 'last' | 'nearest', naming: string): WeekYearCalendar {
   const yearEnd = (a: number) => {
-    const last = dayNumberFromYmdUnchecked(a, endMonth, daysInMonthUnchecked(a, endMonth));
+    const last = dayNumberFromYmdUnchecked(a, endMonth, dayCountOfMonthUnchecked(a, endMonth));
     const wd = weekdayOfDayNumberUnchecked(last);
     const back = (wd - endWeekday + 7) % 7;
     if (endRule === 'last') return last - back;
@@ -578,16 +578,16 @@ function compile(u: NormalizedUnit): PeriodUnit {
     kind: u.kind,
     minOrdinal,
     maxOrdinal,
-    ordinalOfDayNumber(dayNumber: number): number {
+    ordinalFromDayNumber(dayNumber: number): number {
       return core.ordinalOf(requireInteger('dayNumber', dayNumber, MIN_DAY_NUMBER, MAX_DAY_NUMBER));
     },
-    firstDayNumberOf(ordinal: number): number {
+    firstDayNumberFromOrdinal(ordinal: number): number {
       return core.firstDayOf(requireOrdinal(ordinal));
     },
-    formatLabel(ordinal: number): string {
+    formatOrdinal(ordinal: number): string {
       return core.format(requireOrdinal(ordinal));
     },
-    parseLabel(text: string): number {
+    parseOrdinal(text: string): number {
       if (typeof text !== 'string') {
         throw new KalendsTypeError(`label: expected a string such as ${core.labelForm.replace(/^.*e\.g\. /, '')}, got ${describeValue(text)}`, {
           code: 'invalid-type',
@@ -618,7 +618,7 @@ const CACHE_LIMIT = 256;
  * @example
  * ```ts
  * const usFederal = defineUnit({ kind: 'fiscal-quarter', start: { month: 10, day: 1 }, naming: 'end-year' });
- * usFederal.formatLabel(usFederal.ordinalOfDayNumber(dayNumberFromYmd(2025, 10, 1))); // 'FY2026-Q1'
+ * usFederal.formatOrdinal(usFederal.ordinalFromDayNumber(dayNumberFromYmd(2025, 10, 1))); // 'FY2026-Q1'
  * defineUnit({ kind: 'fiscal-year', start: { month: 6, day: 31 }, naming: 'end-year' });
  * // DefinitionError: start.day: expected 1..30 for month 6, got 31
  * ```
@@ -644,12 +644,12 @@ export type UnitInput = PeriodUnit | UnitDefinition | CalendarUnitName;
  * @example
  * ```ts
  * toUnit('month') === MONTH_UNIT; // true
- * toUnit({ kind: 'fiscal-year', start: { month: 4, day: 6 }, naming: 'start-year' }).formatLabel(2025); // 'FY2025'
+ * toUnit({ kind: 'fiscal-year', start: { month: 4, day: 6 }, naming: 'start-year' }).formatOrdinal(2025); // 'FY2025'
  * ```
  */
 export function toUnit(input: UnitInput, name = 'unit'): PeriodUnit {
   if (coreOf(input)) return input as PeriodUnit;
-  if (typeof input === 'string' || (typeof input === 'object' && input !== null && 'kind' in input && !('ordinalOfDayNumber' in input))) {
+  if (typeof input === 'string' || (typeof input === 'object' && input !== null && 'kind' in input && !('ordinalFromDayNumber' in input))) {
     return defineUnit(input as UnitDefinition);
   }
   throw new KalendsTypeError(

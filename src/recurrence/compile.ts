@@ -5,7 +5,7 @@
  */
 import { MAX_DAY_NUMBER, MAX_EPOCH_MS, MIN_DAY_NUMBER, MIN_EPOCH_MS, MIN_YEAR, MS_PER_DAY } from '../bounds.js';
 import { describeValue } from '../errors.js';
-import { daysInMonthUnchecked, packedYmdUnchecked, weekdayOfDayNumberUnchecked } from '../civil/gregorian.js';
+import { dayCountOfMonthUnchecked, packedYmdUnchecked, weekdayOfDayNumberUnchecked } from '../civil/gregorian.js';
 import {
   type BusinessOps,
   type Engine,
@@ -208,7 +208,7 @@ function describeSelectors(sels: readonly Selector[]): string {
 function selectorFromAnchor(anchor: number, keepMonthEnd: boolean): Selector {
   const p = packedYmdUnchecked(anchor);
   const day = p & 31;
-  const last = daysInMonthUnchecked(Math.floor(p / 512) + MIN_YEAR, (p >> 5) & 15);
+  const last = dayCountOfMonthUnchecked(Math.floor(p / 512) + MIN_YEAR, (p >> 5) & 15);
   if (keepMonthEnd && day === last) return { kind: 0, n: -1, weekday: 0, clamp: false };
   return { kind: 0, n: day, weekday: 0, clamp: true };
 }

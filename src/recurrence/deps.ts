@@ -16,7 +16,7 @@ import {
   toDayNumber,
   toEpochMs,
 } from '../instant/index.js';
-import { type Zone, offsetSecondsAt, toZone } from '../zone/index.js';
+import { type Zone, offsetSecondsFromEpochMs, toZone } from '../zone/index.js';
 import { type PeriodUnit, toUnit } from '../period/index.js';
 import {
   type BusinessCalendar,
@@ -25,7 +25,7 @@ import {
   countBusinessDays,
   defineCalendar,
   isBusinessDay,
-  nthBusinessDayInRange,
+  nthBusinessDayOfRange,
 } from '../business/index.js';
 import { appendBusinessDaysUnchecked, nthBusinessDayInRangeUnchecked } from '../business/calendar.js';
 import type { BusinessOps, PeriodOps, ZoneOps } from './engine.js';
@@ -64,9 +64,9 @@ export function businessOps(input: unknown, path: string): BusinessOps {
     countBusinessDays: (a, b) => countBusinessDays(cal, a, b),
     nthInRangeUnchecked: (a, b, n) => nthBusinessDayInRangeUnchecked(cal, a, b, n),
     appendBusinessDaysUnchecked: (a, b, out) => appendBusinessDaysUnchecked(cal, a, b, out),
-    nthBusinessDayInRange: (a, b, n) => {
+    nthBusinessDayOfRange: (a, b, n) => {
       try {
-        return nthBusinessDayInRange(cal, a, b, n);
+        return nthBusinessDayOfRange(cal, a, b, n);
       } catch {
         return undefined;
       }
@@ -80,13 +80,13 @@ export function periodOps(input: unknown, path: string): PeriodOps {
   return {
     id: unit.id,
     unit,
-    ordinalOf: (dn) => unit.ordinalOfDayNumber(dn),
-    firstDayOf: (o) => unit.firstDayNumberOf(o),
+    ordinalOf: (dn) => unit.ordinalFromDayNumber(dn),
+    firstDayOf: (o) => unit.firstDayNumberFromOrdinal(o),
   };
 }
 
 /** A zone from a compiled zone or an id (IANA id, "UTC", or a fixed offset such as "+05:30"). */
 export function zoneOps(input: unknown, path: string): ZoneOps {
   const zone = toZone(input as never, path);
-  return { id: zone.id, zone, offsetSecondsAt: (ms) => offsetSecondsAt(zone, ms) };
+  return { id: zone.id, zone, offsetSecondsFromEpochMs: (ms) => offsetSecondsFromEpochMs(zone, ms) };
 }

@@ -9,7 +9,7 @@
  */
 import {
   dayNumberFromYmdUnchecked,
-  daysInMonthUnchecked,
+  dayCountOfMonthUnchecked,
   packedYmdUnchecked,
   weekdayOfDayNumberUnchecked,
 } from '../civil/gregorian.js';
@@ -62,7 +62,7 @@ export interface BusinessOps {
   /** Business days in [start, end). */
   countBusinessDays(start: number, end: number): number;
   /** The n-th business day in [start, end) (n < 0 counts from the end), or undefined. For checks only. */
-  nthBusinessDayInRange(start: number, end: number, n: number): number | undefined;
+  nthBusinessDayOfRange(start: number, end: number, n: number): number | undefined;
   /**
    * Fast path of the engines: the n-th business day in [start, end) (n < 0 counts from the end), or NaN when
    * there are fewer than |n|. Unchecked: [start, end) must lie in [firstDay, endDay). Reads the compiled
@@ -86,7 +86,7 @@ export interface PeriodOps {
 /** What a rule needs from a zone. */
 export interface ZoneOps {
   readonly id: string;
-  offsetSecondsAt(epochMs: number): number;
+  offsetSecondsFromEpochMs(epochMs: number): number;
   readonly zone: unknown;
 }
 
@@ -118,7 +118,7 @@ export function firstDayOfMonthIndex(mi: number): number {
 /** Length in days of month index `mi`. */
 export function lengthOfMonthIndex(mi: number): number {
   const y = Math.floor(mi / 12);
-  return daysInMonthUnchecked(y, mi - y * 12 + 1);
+  return dayCountOfMonthUnchecked(y, mi - y * 12 + 1);
 }
 const MIN_MONTH_INDEX = monthIndexOf(MIN_DAY_NUMBER);
 const MAX_MONTH_INDEX = monthIndexOf(MAX_DAY_NUMBER);
@@ -307,7 +307,7 @@ export function monthsEngine(
       let first = dayNumberFromYmdUnchecked(y, m, 1);
       const one = selectors.length === 1 ? selectors[0]! : undefined;
       for (;;) {
-        const end = first + daysInMonthUnchecked(y, m);
+        const end = first + dayCountOfMonthUnchecked(y, m);
         if (monthMask === 0 || ((monthMask >> m) & 1) !== 0) {
           if (one !== undefined) {
             const d = pickDay(one, first, end, business);
@@ -428,15 +428,15 @@ const resolution = { state: 0 as 0 | 1 | 2, earlier: 0, later: 0 };
 
 /**
  * Resolves a wall time by probing the zone's offsets a day before and after (the approach of Temporal's
- * GetPossibleEpochNanoseconds), so that only `offsetSecondsAt` is needed. Returns a shared object: copy it.
+ * GetPossibleEpochNanoseconds), so that only `offsetSecondsFromEpochMs` is needed. Returns a shared object: copy it.
  */
 export function resolveWall(zone: ZoneOps, wallMs: number): WallResolution {
-  const before = zone.offsetSecondsAt(wallMs - MS_PER_DAY) * 1000;
-  const after = zone.offsetSecondsAt(wallMs + MS_PER_DAY) * 1000;
+  const before = zone.offsetSecondsFromEpochMs(wallMs - MS_PER_DAY) * 1000;
+  const after = zone.offsetSecondsFromEpochMs(wallMs + MS_PER_DAY) * 1000;
   const e1 = wallMs - before;
   const e2 = wallMs - after;
-  const ok1 = zone.offsetSecondsAt(e1) * 1000 === before;
-  const ok2 = before !== after && zone.offsetSecondsAt(e2) * 1000 === after;
+  const ok1 = zone.offsetSecondsFromEpochMs(e1) * 1000 === before;
+  const ok2 = before !== after && zone.offsetSecondsFromEpochMs(e2) * 1000 === after;
   if (ok1 && ok2) {
     resolution.state = 2;
     resolution.earlier = Math.min(e1, e2);
@@ -446,7 +446,7 @@ export function resolveWall(zone: ZoneOps, wallMs: number): WallResolution {
     resolution.earlier = resolution.later = ok1 ? e1 : e2;
   } else if (before === after) {
     // Two transitions within two days: fall back to the offset at the first guess.
-    const e = wallMs - zone.offsetSecondsAt(e1) * 1000;
+    const e = wallMs - zone.offsetSecondsFromEpochMs(e1) * 1000;
     resolution.state = 0;
     resolution.earlier = resolution.later = e;
   } else {

@@ -45,6 +45,6 @@ export {
   type ScheduleOptions,
   type SchedulePeriod,
   type Schedule,
-  buildSchedule,
+  defineSchedule,
 } from './schedule.js';
 export { describeRule } from './describe.js';

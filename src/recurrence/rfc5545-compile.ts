@@ -13,7 +13,7 @@ import { MAX_DAY_NUMBER, MAX_EPOCH_MS, MIN_DAY_NUMBER, MIN_YEAR, MS_PER_DAY } fr
 import { describeValue } from '../errors.js';
 import {
   dayNumberFromYmdUnchecked,
-  daysInMonthUnchecked,
+  dayCountOfMonthUnchecked,
   isLeapYearUnchecked,
   packedYmdUnchecked,
   weekdayOfDayNumberUnchecked,
@@ -26,7 +26,7 @@ import { Issues, WEEKDAY_NAMES, checkKeys, readEnum, readInt } from './validate.
 import type { Rfc5545Frequency, WeekdayName } from './types.js';
 
 /** A zone of offset 0 for DTSTART values in UTC and for floating times. */
-export const UTC_OPS: ZoneOps = { id: 'UTC', zone: undefined, offsetSecondsAt: () => 0 };
+export const UTC_OPS: ZoneOps = { id: 'UTC', zone: undefined, offsetSecondsFromEpochMs: () => 0 };
 
 const FREQUENCIES: readonly Rfc5545Frequency[] = ['yearly', 'monthly', 'weekly', 'daily', 'hourly', 'minutely'];
 
@@ -95,7 +95,7 @@ function dayMatches(spec: RfcDaySpec, dn: number): boolean {
     for (const v of spec.byYearDay) if (v === doy || v === doy - yearLength - 1) hit = true;
     if (!hit) return false;
   }
-  const monthLength = daysInMonthUnchecked(y, m);
+  const monthLength = dayCountOfMonthUnchecked(y, m);
   if (spec.byMonthDay) {
     let hit = false;
     for (const v of spec.byMonthDay) if (v === dom || v === dom - monthLength - 1) hit = true;
@@ -161,7 +161,7 @@ function expandPeriod(spec: RfcDaySpec, index: number, scratch: number[]): void 
     for (let m = 1; m <= 12; m++) {
       if (((spec.byMonthMask >> m) & 1) === 0) continue;
       const a = dayNumberFromYmdUnchecked(index, m, 1);
-      const b = a + daysInMonthUnchecked(index, m);
+      const b = a + dayCountOfMonthUnchecked(index, m);
       for (let d = Math.max(a, lo); d < Math.min(b, hi); d++) if (dayMatches(spec, d)) scratch.push(d);
     }
   } else {

@@ -10,7 +10,7 @@
  */
 import { KalendsRangeError, KalendsSyntaxError, describeValue } from '../errors.js';
 import { MAX_DAY_NUMBER, MAX_EPOCH_MS, MIN_YEAR } from '../bounds.js';
-import { daysInMonthUnchecked, packedYmdUnchecked } from '../civil/gregorian.js';
+import { dayCountOfMonthUnchecked, packedYmdUnchecked } from '../civil/gregorian.js';
 import { defineRule, compiledOf, firstAtOrAfter } from './generate.js';
 import { resolveWall } from './engine.js';
 import { formatInstant, formatPlainDate, formatPlainDateTime, parsePlainDateTime, toDayNumber, toEpochMs } from './deps.js';
@@ -338,7 +338,7 @@ export function rfcDefinitionOf(rule: Rule, origin?: unknown): Rfc5545RuleDefini
     const interval = hourly ? minutes / 60 : minutes;
     if (interval !== 1) out['interval'] = interval;
     const zone = c.zone!;
-    out['start'] = formatPlainDateTime(first + zone.offsetSecondsAt(first) * 1000).slice(0, 19);
+    out['start'] = formatPlainDateTime(first + zone.offsetSecondsFromEpochMs(first) * 1000).slice(0, 19);
     out['zone'] = zone.id;
     if (c.count !== undefined) out['count'] = c.count;
     else if (c.rawEnd <= MAX_EPOCH_MS) out['until'] = formatInstant(c.rawEnd - 1);
@@ -381,7 +381,7 @@ function monthlyParts(rule: Rule, d: Record<string, unknown>, out: Record<string
     // The day comes from the anchor: its day of the month, or the month end under keepMonthEnd.
     const p = packedYmdUnchecked(toDayNumber(d['anchor'] ?? d['start']));
     const day = p & 31;
-    const isLast = d['keepMonthEnd'] === true && day === daysInMonthUnchecked(Math.floor(p / 512) + MIN_YEAR, (p >> 5) & 15);
+    const isLast = d['keepMonthEnd'] === true && day === dayCountOfMonthUnchecked(Math.floor(p / 512) + MIN_YEAR, (p >> 5) & 15);
     sels.push(isLast ? { day: 'last' } : { day, whenShort: 'last-day' });
   }
   const days: number[] = [];

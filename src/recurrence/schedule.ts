@@ -11,7 +11,7 @@
  * @module
  */
 import { KalendsRangeError, KalendsTypeError, describeValue } from '../errors.js';
-import { daysInMonthUnchecked, packedYmdUnchecked, dayNumberFromYmdUnchecked } from '../civil/gregorian.js';
+import { dayCountOfMonthUnchecked, packedYmdUnchecked, dayNumberFromYmdUnchecked } from '../civil/gregorian.js';
 import { MIN_YEAR } from '../bounds.js';
 import { businessOps, toDayNumber } from './deps.js';
 import { compiledOf, fillOccurrences } from './generate.js';
@@ -24,7 +24,7 @@ export type StubPlacement = 'short-front' | 'long-front' | 'short-back' | 'long-
 /** The regular step of a schedule: months, weeks or days, or the dates of a rule. */
 export type ScheduleStep = { readonly months: number } | { readonly weeks: number } | { readonly days: number } | Rule;
 
-/** What {@link buildSchedule} needs. */
+/** What {@link defineSchedule} needs. */
 export interface ScheduleOptions {
   /** The start (effective) date: the first period starts here. */
   readonly start: DateInput;
@@ -67,11 +67,11 @@ function rollMonths(rollDate: number, months: number, keepMonthEnd: boolean): nu
   const y = Math.floor(p / 512) + MIN_YEAR;
   const m = (p >> 5) & 15;
   const d = p & 31;
-  const eom = keepMonthEnd && d === daysInMonthUnchecked(y, m);
+  const eom = keepMonthEnd && d === dayCountOfMonthUnchecked(y, m);
   const mi = y * 12 + m - 1 + months;
   const ty = Math.floor(mi / 12);
   const tm = mi - ty * 12 + 1;
-  const len = daysInMonthUnchecked(ty, tm);
+  const len = dayCountOfMonthUnchecked(ty, tm);
   return dayNumberFromYmdUnchecked(ty, tm, eom ? len : Math.min(d, len));
 }
 
@@ -111,12 +111,12 @@ function stepOf(step: unknown): { unit: 'months' | 'days'; n: number } | Rule {
  *
  * @example
  * ```ts
- * const s = buildSchedule({ start: '2025-01-15', end: '2026-01-31', step: { months: 3 }, stub: 'short-front', keepMonthEnd: true });
+ * const s = defineSchedule({ start: '2025-01-15', end: '2026-01-31', step: { months: 3 }, stub: 'short-front', keepMonthEnd: true });
  * s.periods.map((p) => formatPlainDate(p.unadjustedStart));
  * // ['2025-01-15', '2025-01-31', '2025-04-30', '2025-07-31', '2025-10-31']
  * ```
  */
-export function buildSchedule(options: ScheduleOptions): Schedule {
+export function defineSchedule(options: ScheduleOptions): Schedule {
   if (typeof options !== 'object' || options === null) {
     throw new KalendsTypeError(`options: expected { start, end, step, ... }, got ${describeValue(options)}`, { code: 'invalid-type', received: options });
   }

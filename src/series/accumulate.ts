@@ -13,7 +13,7 @@ import { type UnitInput, type ZoneInput, ordinalAt, requireUnit, resolveZone } f
 import { quantileOfSorted } from './numeric.js';
 import { makeSeries } from './series.js';
 
-/** Options of {@link createBucketAccumulator}. */
+/** Options of {@link defineBucketAccumulator}. */
 export interface BucketAccumulatorOptions {
   readonly unit: UnitInput;
   readonly zone: ZoneInput;
@@ -55,12 +55,12 @@ interface Acc {
  *
  * @example
  * ```ts
- * const acc = createBucketAccumulator({ unit: 'month', zone: 'America/Chicago', aggregations: ['sum', 'count'] });
+ * const acc = defineBucketAccumulator({ unit: 'month', zone: 'America/Chicago', aggregations: ['sum', 'count'] });
  * acc.add(Date.parse('2025-03-02T15:00Z'), 12.5);
  * acc.finish().labels; // ['2025-03']
  * ```
  */
-export function createBucketAccumulator(options: BucketAccumulatorOptions): BucketAccumulator {
+export function defineBucketAccumulator(options: BucketAccumulatorOptions): BucketAccumulator {
   if (options === null || typeof options !== 'object') {
     throw new KalendsTypeError(`options: expected { unit, zone, aggregations }, got ${describeValue(options)}`, {
       code: 'invalid-type',
@@ -177,8 +177,8 @@ export function createBucketAccumulator(options: BucketAccumulatorOptions): Buck
     let emptyPeriods = 0;
     if (opts.range !== undefined) {
       const r = opts.range;
-      const start = typeof r.start === 'string' ? unit.parseLabel(r.start) : r.start;
-      const end = typeof r.end === 'string' ? unit.parseLabel(r.end) : r.end;
+      const start = typeof r.start === 'string' ? unit.parseOrdinal(r.start) : r.start;
+      const end = typeof r.end === 'string' ? unit.parseOrdinal(r.end) : r.end;
       if (!Number.isInteger(start) || !Number.isInteger(end) || end < start || end - start > MAX_BUCKET_PERIODS) {
         throw new KalendsRangeError(`range: expected start <= end within ${MAX_BUCKET_PERIODS} periods, got ${describeValue(r.start)} to ${describeValue(r.end)}`, {
           code: 'out-of-range',

@@ -6,7 +6,7 @@
  */
 import { KalendsRangeError, KalendsTypeError, describeValue } from '../errors.js';
 import { type QuantileMethod, compensatedSum, quantileOfSorted, sortedValid, twoPassVariance } from './numeric.js';
-import { type Series, columnOf } from './series.js';
+import { type Series, columnOfSeries } from './series.js';
 
 /**
  * The aggregations a group of rows can be reduced to. Missing values (NaN) are skipped unless the caller asks
@@ -181,7 +181,7 @@ export function compileAggregations(
       );
     }
     const column = spec.column ?? defaultColumn ?? series.columnNames[0];
-    const values = columnOf(series, column);
+    const values = columnOfSeries(series, column);
     const base = kind === 'quantile' ? `quantile-${q}` : kind;
     const name = spec.as ?? (spec.column !== undefined && series.columnNames.length > 1 ? `${spec.column}-${base}` : base);
     if (names.has(name)) {

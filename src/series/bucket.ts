@@ -54,7 +54,7 @@ export interface BucketTable {
   readonly zone: Zone;
   /** Period ordinals, ascending. */
   readonly ordinals: Int32Array;
-  /** `unit.formatLabel(ordinal)` for each period. */
+  /** `unit.formatOrdinal(ordinal)` for each period. */
   readonly labels: readonly string[];
   /** First instant of each period in the zone. */
   readonly startEpochMs: Float64Array;
@@ -149,7 +149,7 @@ function rangeOrdinal(unit: PeriodUnit, v: unknown, path: string): number {
     }
     return v;
   }
-  if (typeof v === 'string') return unit.parseLabel(v);
+  if (typeof v === 'string') return unit.parseOrdinal(v);
   throw new KalendsTypeError(`${path}: expected a period ordinal or a label, got ${describeValue(v)}`, {
     code: 'invalid-type',
     received: v,
@@ -212,7 +212,7 @@ export function bucketSeries(series: Series, options: BucketOptions): BucketTabl
     rangeEnd = rangeOrdinal(unit, r.end, 'options.range.end');
     if (rangeEnd < rangeStart) {
       throw new KalendsRangeError(
-        `options.range.end: expected a period at or after the start (${unit.formatLabel(rangeStart)}), got ${unit.formatLabel(rangeEnd)}`,
+        `options.range.end: expected a period at or after the start (${unit.formatOrdinal(rangeStart)}), got ${unit.formatOrdinal(rangeEnd)}`,
         { code: 'out-of-range', received: r.end },
       );
     }
@@ -286,7 +286,7 @@ export function assembleBucketTable(
     const o = ordinals[j]!;
     startEpochMs[j] = j > 0 && ordinals[j - 1] === o - 1 ? endEpochMs[j - 1]! : periodStartMs(unit, zone, o);
     endEpochMs[j] = periodStartMs(unit, zone, o + 1);
-    labels[j] = unit.formatLabel(o);
+    labels[j] = unit.formatOrdinal(o);
   }
   const byName: Record<string, Float64Array> = Object.create(null) as Record<string, Float64Array>;
   aggs.forEach((a, i) => {

@@ -5,7 +5,7 @@
  * @module
  */
 import { KalendsTypeError, describeValue } from '../errors.js';
-import { type Zone, type ZoneInput, dayNumberFromEpochMs, dayStartEpochMs, toZone } from '../zone/index.js';
+import { type Zone, type ZoneInput, dayNumberFromEpochMs, firstEpochMsOfDayNumber, toZone } from '../zone/index.js';
 import { type PeriodUnit, type UnitInput, toUnit } from '../period/index.js';
 
 export type { Zone, ZoneInput, PeriodUnit, UnitInput };
@@ -34,10 +34,10 @@ export function requireUnit(unit: unknown, name: string): PeriodUnit {
 
 /** @internal The ordinal of the period of `unit` holding instant `epochMs` in `zone`. */
 export function ordinalAt(unit: PeriodUnit, zone: Zone, epochMs: number): number {
-  return unit.ordinalOfDayNumber(dayNumberFromEpochMs(zone, epochMs));
+  return unit.ordinalFromDayNumber(dayNumberFromEpochMs(zone, epochMs));
 }
 
 /** @internal First instant of period `ordinal` of `unit` in `zone`. */
 export function periodStartMs(unit: PeriodUnit, zone: Zone, ordinal: number): number {
-  return dayStartEpochMs(zone, unit.firstDayNumberOf(ordinal));
+  return firstEpochMsOfDayNumber(zone, unit.firstDayNumberFromOrdinal(ordinal));
 }

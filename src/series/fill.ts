@@ -86,8 +86,8 @@ export function gridInstants(grid: FillGrid): Float64Array {
         received: r,
       });
     }
-    const start = typeof r.start === 'string' ? unit.parseLabel(r.start) : r.start;
-    const end = typeof r.end === 'string' ? unit.parseLabel(r.end) : r.end;
+    const start = typeof r.start === 'string' ? unit.parseOrdinal(r.start) : r.start;
+    const end = typeof r.end === 'string' ? unit.parseOrdinal(r.end) : r.end;
     if (!Number.isInteger(start) || !Number.isInteger(end) || end < start || end - start > 50_000_000) {
       throw new KalendsRangeError(
         `options.grid.range: expected start <= end, at most 50,000,000 periods apart, got ${describeValue(r.start)} to ${describeValue(r.end)}`,

@@ -4,7 +4,7 @@
  * @module
  */
 import { KalendsTypeError, describeValue } from '../errors.js';
-import { dayStartEpochMs } from '../zone/index.js';
+import { firstEpochMsOfDayNumber } from '../zone/index.js';
 import { type Rule, occurrenceBulk } from '../recurrence/index.js';
 import { type ZoneInput, resolveZone } from './deps.js';
 
@@ -36,6 +36,6 @@ export function gridFromRule(grid: RecurrenceGrid): Float64Array {
   // A rule of dates: the first instant of each local date.
   const zone = resolveZone(grid.zone, 'options.grid.zone');
   const out = new Float64Array(occurrences.length);
-  for (let i = 0; i < out.length; i++) out[i] = dayStartEpochMs(zone, occurrences[i]!);
+  for (let i = 0; i < out.length; i++) out[i] = firstEpochMsOfDayNumber(zone, occurrences[i]!);
   return out;
 }

@@ -12,7 +12,7 @@ export {
   seriesFromColumns,
   seriesFromRecords,
   seriesFromPairs,
-  columnOf,
+  columnOfSeries,
   withColumn,
   sliceSeries,
 } from './series.js';
@@ -28,7 +28,7 @@ export {
   bucketSeries,
   seriesFromBuckets,
 } from './bucket.js';
-export { type BucketAccumulatorOptions, type BucketAccumulator, createBucketAccumulator } from './accumulate.js';
+export { type BucketAccumulatorOptions, type BucketAccumulator, defineBucketAccumulator } from './accumulate.js';
 export {
   type CalendarSpan,
   type WindowSpec,
@@ -47,7 +47,7 @@ export {
   type PeriodChange,
   lagSeries,
   leadSeries,
-  periodChange,
+  periodChangeFromBuckets,
 } from './lag.js';
 export {
   type AsOfOptions,

@@ -213,7 +213,7 @@ export function alignSeries(series: Readonly<Record<string, Series>>, options: A
     ordinals[j] = start + j;
     startEpochMs[j] = j > 0 ? endEpochMs[j - 1]! : periodStartMs(unit, zone, start);
     endEpochMs[j] = periodStartMs(unit, zone, start + j + 1);
-    labels.push(unit.formatLabel(start + j));
+    labels.push(unit.formatOrdinal(start + j));
   }
   const columns: Record<string, Float64Array> = Object.create(null) as Record<string, Float64Array>;
   names.forEach((name, k) => {

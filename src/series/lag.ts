@@ -12,7 +12,7 @@ import { periodYearEarlier } from '../period/index.js';
 import { type BucketTable, findRuns } from './bucket.js';
 import { type PeriodUnit, type UnitInput, type ZoneInput, requireUnit, resolveZone } from './deps.js';
 import { type CalendarSpan, readSpan } from './rolling.js';
-import { type Series, columnOf, makeSeries, requireSeries } from './series.js';
+import { type Series, columnOfSeries, makeSeries, requireSeries } from './series.js';
 
 /**
  * How far to look back (lag) or ahead (lead), always a positive amount:
@@ -131,7 +131,7 @@ function lookup(t: Float64Array, v: Float64Array, targets: Float64Array, dir: -1
 
 function shifted(series: Series, by: LagAmount, options: LagOptions, dir: -1 | 1): Series {
   requireSeries(series, 'series');
-  const v = columnOf(series, options.column);
+  const v = columnOfSeries(series, options.column);
   const t = series.epochMs;
   const n = t.length;
   const name = options.as ?? (dir < 0 ? 'lag' : 'lead');
@@ -220,7 +220,7 @@ function shifted(series: Series, by: LagAmount, options: LagOptions, dir: -1 | 1
   return makeSeries(t, [name], [out]);
 }
 
-/** Options of {@link periodChange}. */
+/** Options of {@link periodChangeFromBuckets}. */
 export interface PeriodChangeOptions {
   /** Column of the table to compare (default: the first). */
   readonly column?: string;
@@ -257,10 +257,10 @@ export interface PeriodChange {
  * @example
  * ```ts
  * const monthly = bucketSeries(sales, { unit: 'month', zone: 'America/Chicago', aggregations: ['sum'], range });
- * periodChange(monthly, { against: 'year-earlier' }).relativeChange; // growth over the same month last year
+ * periodChangeFromBuckets(monthly, { against: 'year-earlier' }).relativeChange; // growth over the same month last year
  * ```
  */
-export function periodChange(table: BucketTable, options: PeriodChangeOptions = {}): PeriodChange {
+export function periodChangeFromBuckets(table: BucketTable, options: PeriodChangeOptions = {}): PeriodChange {
   if (table === null || typeof table !== 'object' || !(table.ordinals instanceof Int32Array)) {
     throw new KalendsTypeError(`table: expected a BucketTable (from bucketSeries), got ${describeValue(table)}`, {
       code: 'invalid-type',

@@ -9,7 +9,7 @@
  */
 import { KalendsRangeError, KalendsTypeError, describeValue } from '../errors.js';
 import { MS_PER_DAY } from '../bounds.js';
-import { type Zone, dayNumberFromEpochMsBulk, dayStartEpochMs, epochMsFromWallMs, wallMsFromEpochMsBulk } from '../zone/index.js';
+import { type Zone, dayNumberFromEpochMsBulk, firstEpochMsOfDayNumber, epochMsFromWallMs, wallMsFromEpochMsBulk } from '../zone/index.js';
 import { type BusinessCalendar, isBusinessDay, previousBusinessDay, shiftBusinessDays } from '../business/index.js';
 import {
   type Duration,
@@ -217,7 +217,7 @@ export function resolveWindow(t: Float64Array, spec: WindowSpec, startInclusive:
       const d = days[i]!;
       if (d !== lastDay) {
         const anchor = isBusinessDay(cal, d) ? d : previousBusinessDay(cal, d);
-        lastStart = dayStartEpochMs(zone, k === 1 ? anchor : shiftBusinessDays(cal, anchor, -(k - 1)));
+        lastStart = firstEpochMsOfDayNumber(zone, k === 1 ? anchor : shiftBusinessDays(cal, anchor, -(k - 1)));
         lastDay = d;
       }
       starts[i] = lastStart;

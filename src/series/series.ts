@@ -343,10 +343,10 @@ export function makeSeries(times: Float64Array, names: readonly string[], cols: 
  *
  * @example
  * ```ts
- * columnOf(seriesFromPairs([[0, 1]]), 'value'); // Float64Array [1]
+ * columnOfSeries(seriesFromPairs([[0, 1]]), 'value'); // Float64Array [1]
  * ```
  */
-export function columnOf(series: Series, name?: string): Float64Array {
+export function columnOfSeries(series: Series, name?: string): Float64Array {
   requireSeries(series, 'series');
   const key = name ?? series.columnNames[0];
   const col = key === undefined ? undefined : series.columns[key];

@@ -8,7 +8,7 @@
  * @module
  */
 import { KalendsRangeError, KalendsTypeError, describeValue } from '../errors.js';
-import { type Series, columnOf, makeSeries, requireSeries } from './series.js';
+import { type Series, columnOfSeries, makeSeries, requireSeries } from './series.js';
 
 /** Options of {@link smoothSeries}. Give exactly one of `alpha`, `span`, `halfLife` or `halfLifeMs`. */
 export interface SmoothOptions {
@@ -96,7 +96,7 @@ export function smoothSeries(series: Series, options: SmoothOptions): Series {
       received: minObs,
     });
   }
-  const v = columnOf(series, options.column);
+  const v = columnOfSeries(series, options.column);
   const t = series.epochMs;
   const n = v.length;
   const out = new Float64Array(n);

@@ -4,7 +4,7 @@
  * runtime's Intl data; the core bundle never imports it.
  *
  * ```ts
- * import { zoneFromId, offsetSecondsAt } from 'kalends';
+ * import { zoneFromId, offsetSecondsFromEpochMs } from 'kalends';
  * import { PINNED_TZDATA } from 'kalends/tzdata';
  * const dublin = zoneFromId('Europe/Dublin', { source: PINNED_TZDATA });
  * ```

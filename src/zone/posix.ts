@@ -10,7 +10,7 @@
 import { KalendsSyntaxError, describeValue } from '../errors.js';
 import {
   dayNumberFromYmdUnchecked,
-  daysInMonthUnchecked,
+  dayCountOfMonthUnchecked,
   isLeapYearUnchecked,
   weekdayOfDayNumberUnchecked,
   yearOfDayNumberUnchecked,
@@ -168,7 +168,7 @@ function ruleDayNumber(rule: PosixDateRule, year: number): number {
   const first = dayNumberFromYmdUnchecked(year, rule.month, 1);
   const firstWeekday = weekdayOfDayNumberUnchecked(first) % 7; // 0 = Sunday, as in POSIX
   let day = 1 + ((rule.weekday - firstWeekday + 7) % 7) + (rule.week - 1) * 7;
-  const dim = daysInMonthUnchecked(year, rule.month);
+  const dim = dayCountOfMonthUnchecked(year, rule.month);
   while (day > dim) day -= 7;
   return first + day - 1;
 }

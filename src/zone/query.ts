@@ -7,7 +7,7 @@
 import { MAX_DAY_NUMBER, MAX_EPOCH_MS, MIN_DAY_NUMBER, MIN_EPOCH_MS, MS_PER_DAY } from '../bounds.js';
 import {
   dayNumberFromYmdUnchecked,
-  daysInMonthUnchecked,
+  dayCountOfMonthUnchecked,
   packedYmdUnchecked,
   requireDayNumber,
   requireYear,
@@ -131,11 +131,11 @@ export function isoWall(wallMs: number): string {
  *
  * @example
  * ```ts
- * offsetSecondsAt('America/New_York', Date.UTC(2025, 6, 1)); // -14400
- * offsetSecondsAt('Asia/Kolkata', Date.UTC(1900, 0, 1));     // 19270 (+05:21:10)
+ * offsetSecondsFromEpochMs('America/New_York', Date.UTC(2025, 6, 1)); // -14400
+ * offsetSecondsFromEpochMs('Asia/Kolkata', Date.UTC(1900, 0, 1));     // 19270 (+05:21:10)
  * ```
  */
-export function offsetSecondsAt(zone: ZoneInput, epochMs: number): number {
+export function offsetSecondsFromEpochMs(zone: ZoneInput, epochMs: number): number {
   const e = engineOf(toZone(zone));
   return e.offsetAt(requireEpochMs('epochMs', epochMs));
 }
@@ -322,7 +322,7 @@ export function epochMsFromWallFields(zone: ZoneInput, fields: WallFieldsInput, 
   }
   const year = requireYear(fields.year, 'fields.year');
   const month = requireInteger('fields.month', fields.month, 1, 12);
-  const day = requireInteger('fields.day', fields.day, 1, daysInMonthUnchecked(year, month));
+  const day = requireInteger('fields.day', fields.day, 1, dayCountOfMonthUnchecked(year, month));
   const hour = requireInteger('fields.hour', fields.hour ?? 0, 0, 23);
   const minute = requireInteger('fields.minute', fields.minute ?? 0, 0, 59);
   const second = requireInteger('fields.second', fields.second ?? 0, 0, 59);
@@ -351,10 +351,10 @@ const MAX_ZONED_DAY = Math.min(MAX_DAY_NUMBER, MAX_EPOCH_MS / MS_PER_DAY - 2);
  *
  * @example
  * ```ts
- * dayStartEpochMs('America/Santiago', dayNumberFromYmd(2025, 9, 7)); // Date.UTC(2025, 8, 7, 4) (01:00 local)
+ * firstEpochMsOfDayNumber('America/Santiago', dayNumberFromYmd(2025, 9, 7)); // Date.UTC(2025, 8, 7, 4) (01:00 local)
  * ```
  */
-export function dayStartEpochMs(zone: ZoneInput, dayNumber: number): number {
+export function firstEpochMsOfDayNumber(zone: ZoneInput, dayNumber: number): number {
   const e = engineOf(toZone(zone));
   requireDayNumber(dayNumber);
   requireInteger('dayNumber', dayNumber, MIN_ZONED_DAY, MAX_ZONED_DAY);
@@ -368,10 +368,10 @@ export function dayStartEpochMs(zone: ZoneInput, dayNumber: number): number {
  *
  * @example
  * ```ts
- * dayLengthMs('America/New_York', dayNumberFromYmd(2025, 3, 9)) / 3_600_000; // 23
+ * lengthMsOfDayNumber('America/New_York', dayNumberFromYmd(2025, 3, 9)) / 3_600_000; // 23
  * ```
  */
-export function dayLengthMs(zone: ZoneInput, dayNumber: number): number {
+export function lengthMsOfDayNumber(zone: ZoneInput, dayNumber: number): number {
   const e = engineOf(toZone(zone));
   requireDayNumber(dayNumber);
   requireInteger('dayNumber', dayNumber, MIN_ZONED_DAY, MAX_ZONED_DAY - 1);

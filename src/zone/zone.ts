@@ -186,7 +186,7 @@ export function zoneFromOffset(offset: string | number): Zone {
  * @example
  * ```ts
  * const z = zoneFromRules({ id: 'Example/Fixed', initialOffsetSeconds: 3600, transitionsSeconds: [], offsetsSeconds: [] });
- * offsetSecondsAt(z, 0); // 3600
+ * offsetSecondsFromEpochMs(z, 0); // 3600
  * ```
  */
 export function zoneFromRules(data: ZoneRulesData): Zone {
@@ -264,7 +264,7 @@ function rulesZone(
  * @example
  * ```ts
  * const ny = zoneFromTzif(readFileSync('/usr/share/zoneinfo/America/New_York'), 'America/New_York');
- * offsetSecondsAt(ny, Date.UTC(2025, 6, 1)); // -14400
+ * offsetSecondsFromEpochMs(ny, Date.UTC(2025, 6, 1)); // -14400
  * ```
  */
 export function zoneFromTzif(bytes: Uint8Array, id = 'TZif', options: { readonly tzRelease?: string } = {}): Zone {

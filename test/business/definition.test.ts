@@ -13,7 +13,7 @@ import {
   isBusinessDay,
   listHolidays,
   nextBusinessDay,
-  nthBusinessDayInRange,
+  nthBusinessDayOfRange,
   nthBusinessDayOfPeriod,
   previousBusinessDay,
   shiftBusinessDays,
@@ -277,12 +277,12 @@ describe('operations', () => {
     expect(shiftBusinessDays(cal, far, -sum)).toBe(a);
   });
   it('nth business day in a range and of a period (counting from the end with n < 0)', () => {
-    expect(nthBusinessDayInRange('us-federal', dn('2025-05-01'), dn('2025-06-01'), -1)).toBe(dn('2025-05-30'));
-    expect(nthBusinessDayInRange('us-federal', dn('2025-05-01'), dn('2025-06-01'), 1)).toBe(dn('2025-05-01'));
-    expect(nthBusinessDayInRange('us-federal', dn('2025-11-01'), dn('2025-12-01'), 1)).toBe(dn('2025-11-03'));
-    expect(nthBusinessDayInRange('us-federal', dn('2025-12-01'), dn('2026-01-01'), -2)).toBe(dn('2025-12-30'));
+    expect(nthBusinessDayOfRange('us-federal', dn('2025-05-01'), dn('2025-06-01'), -1)).toBe(dn('2025-05-30'));
+    expect(nthBusinessDayOfRange('us-federal', dn('2025-05-01'), dn('2025-06-01'), 1)).toBe(dn('2025-05-01'));
+    expect(nthBusinessDayOfRange('us-federal', dn('2025-11-01'), dn('2025-12-01'), 1)).toBe(dn('2025-11-03'));
+    expect(nthBusinessDayOfRange('us-federal', dn('2025-12-01'), dn('2026-01-01'), -2)).toBe(dn('2025-12-30'));
     // A period of the period layer's contract: a month unit with ordinal = (year - 1970) * 12 + month - 1.
-    const month = { firstDayNumberOf: (o: number) => dayNumberFromYmd(1970 + Math.floor(o / 12), (((o % 12) + 12) % 12) + 1, 1) };
+    const month = { firstDayNumberFromOrdinal: (o: number) => dayNumberFromYmd(1970 + Math.floor(o / 12), (((o % 12) + 12) % 12) + 1, 1) };
     const may2025 = { unit: month, ordinal: (2025 - 1970) * 12 + 4 };
     expect(nthBusinessDayOfPeriod('us-federal', may2025, -1)).toBe(dn('2025-05-30'));
     expect(nthBusinessDayOfPeriod('us-federal', may2025, 3)).toBe(dn('2025-05-05'));
@@ -292,9 +292,9 @@ describe('operations', () => {
     expect(nthBusinessDayOfPeriod('us-federal', periodFromDayNumber(MONTH_UNIT, dn('2026-01-15')), 1)).toBe(dn('2026-01-02'));
   });
   it('nth business day: n = 0 and too few business days are typed errors', () => {
-    expect(() => nthBusinessDayInRange('us-federal', dn('2025-05-01'), dn('2025-06-01'), 0)).toThrow(/non-zero/);
+    expect(() => nthBusinessDayOfRange('us-federal', dn('2025-05-01'), dn('2025-06-01'), 0)).toThrow(/non-zero/);
     try {
-      nthBusinessDayInRange('us-federal', dn('2025-12-25'), dn('2025-12-26'), 1);
+      nthBusinessDayOfRange('us-federal', dn('2025-12-25'), dn('2025-12-26'), 1);
       expect.unreachable();
     } catch (e) {
       expect(e).toBeInstanceOf(KalendsRangeError);

@@ -6,8 +6,8 @@
  */
 import { describe, expect, it } from 'vitest';
 import {
-  adjustDayNumber, bucketSeries, countBusinessDays, dayLengthMs, defineRule, defineUnit, epochMsFromWallMs,
-  formatInstant, formatPeriod, formatPlainDate, labelFromOrdinalBulk, listHolidays, listOccurrences,
+  adjustDayNumber, bucketSeries, countBusinessDays, lengthMsOfDayNumber, defineRule, defineUnit, epochMsFromWallMs,
+  formatInstant, formatPeriod, formatPlainDate, formatOrdinalBulk, listHolidays, listOccurrences,
   ordinalFromEpochMsBulk, parseInstant, parsePlainDate, parsePlainDateTime, periodFromEpochMs, resolveWallMs,
   rollSeries, seriesFromRecords, shiftBusinessDays,
 } from '../../src/index.js';
@@ -20,7 +20,7 @@ describe('README tour', () => {
     const gap = parsePlainDateTime('2025-03-09T02:30');
     expect(resolveWallMs(ny, gap).kind).toBe('gap');
     expect(formatInstant(epochMsFromWallMs(ny, gap, 'compatible'))).toBe('2025-03-09T07:30:00Z');
-    expect(dayLengthMs(ny, parsePlainDate('2025-11-02')) / 3_600_000).toBe(25);
+    expect(lengthMsOfDayNumber(ny, parsePlainDate('2025-11-02')) / 3_600_000).toBe(25);
   });
 
   it('reporting periods', () => {
@@ -29,7 +29,7 @@ describe('README tour', () => {
     const retailWeek = defineUnit({ kind: 'fiscal-week', yearEnd: { weekday: 'saturday', month: 1, rule: 'nearest' }, naming: 'start-year' });
     expect(formatPeriod(periodFromEpochMs(retailWeek, ny, sale))).toBe('FY2025-W43');
     const ordinals = ordinalFromEpochMsBulk(fiscalQuarter, ny, Float64Array.of(sale, Date.parse('2026-01-01T03:00Z')));
-    expect(labelFromOrdinalBulk(fiscalQuarter, ordinals)).toEqual(['FY2026-Q1', 'FY2026-Q1']);
+    expect(formatOrdinalBulk(fiscalQuarter, ordinals)).toEqual(['FY2026-Q1', 'FY2026-Q1']);
   });
 
   it('business days', () => {

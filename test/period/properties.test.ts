@@ -4,18 +4,18 @@
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { daysInMonth, dayNumberFromYmd } from '../../src/civil/index.js';
+import { dayCountOfMonth, dayNumberFromYmd } from '../../src/civil/index.js';
 import { MAX_DAY_NUMBER, MIN_DAY_NUMBER } from '../../src/bounds.js';
 import {
   type UnitDefinition,
   defineUnit,
   firstDayNumberFromOrdinalBulk,
-  labelFromOrdinalBulk,
+  formatOrdinalBulk,
   listSubPeriods,
   ordinalFromDayNumberBulk,
   parsePeriod,
   periodFromOrdinal,
-  periodLengthDays,
+  lengthDaysOfPeriod,
   periodYearEarlier,
 } from '../../src/period/index.js';
 
@@ -44,7 +44,7 @@ const monthFiscalDef: fc.Arbitrary<UnitDefinition> = fc
   })
   .map(({ kind, month, day, naming: n }) => ({
     kind,
-    start: { month, day: Math.min(day, month === 2 ? 28 : daysInMonth(2001, month)) },
+    start: { month, day: Math.min(day, month === 2 ? 28 : dayCountOfMonth(2001, month)) },
     naming: n,
   }) as UnitDefinition);
 
@@ -75,15 +75,15 @@ describe('period: properties', () => {
     fc.assert(
       fc.property(anyDef, anyDay, (def, dn) => {
         const u = defineUnit(def);
-        const o = u.ordinalOfDayNumber(dn);
-        const first = u.firstDayNumberOf(o);
+        const o = u.ordinalFromDayNumber(dn);
+        const first = u.firstDayNumberFromOrdinal(o);
         expect(first).toBeLessThanOrEqual(dn);
-        if (first >= MIN_DAY_NUMBER) expect(u.ordinalOfDayNumber(first)).toBe(o);
+        if (first >= MIN_DAY_NUMBER) expect(u.ordinalFromDayNumber(first)).toBe(o);
         if (o < u.maxOrdinal) {
-          const next = u.firstDayNumberOf(o + 1);
+          const next = u.firstDayNumberFromOrdinal(o + 1);
           expect(next).toBeGreaterThan(dn); // dn lies in [first, next): one period only
-          expect(u.ordinalOfDayNumber(next)).toBe(o + 1);
-          expect(u.ordinalOfDayNumber(next - 1)).toBe(o);
+          expect(u.ordinalFromDayNumber(next)).toBe(o + 1);
+          expect(u.ordinalFromDayNumber(next - 1)).toBe(o);
         }
       }),
       { seed: SEED, numRuns: 3000 },
@@ -95,9 +95,9 @@ describe('period: properties', () => {
       fc.property(anyDef, anyDay, fc.integer({ min: 1, max: 800 }), (def, dn, len) => {
         const u = defineUnit(def);
         const end = Math.min(dn + len, MAX_DAY_NUMBER);
-        let prev = u.ordinalOfDayNumber(dn);
+        let prev = u.ordinalFromDayNumber(dn);
         for (let x = dn + 1; x <= end; x++) {
-          const o = u.ordinalOfDayNumber(x);
+          const o = u.ordinalFromDayNumber(x);
           const step = o - prev;
           if (step !== 0 && step !== 1) expect.fail(`${u.id}: day ${x} steps by ${step}`);
           prev = o;
@@ -111,9 +111,9 @@ describe('period: properties', () => {
     fc.assert(
       fc.property(anyDef, anyDay, (def, dn) => {
         const u = defineUnit(def);
-        const o = u.ordinalOfDayNumber(dn);
-        const label = u.formatLabel(o);
-        expect(u.parseLabel(label)).toBe(o);
+        const o = u.ordinalFromDayNumber(dn);
+        const label = u.formatOrdinal(o);
+        expect(u.parseOrdinal(label)).toBe(o);
         expect(parsePeriod(def, label).ordinal).toBe(o);
       }),
       { seed: SEED, numRuns: 3000 },
@@ -125,15 +125,15 @@ describe('period: properties', () => {
       fc.property(weekFiscalShape, fc.integer({ min: -3000, max: 5000 }), (shape, y) => {
         const year = defineUnit({ kind: 'fiscal-year', ...shape });
         const fy = parsePeriod(year, `FY${y < 0 ? '-' + String(-y).padStart(6, '0') : String(y).padStart(4, '0')}`);
-        const days = periodLengthDays(fy);
+        const days = lengthDaysOfPeriod(fy);
         expect([364, 371]).toContain(days);
         for (const kind of ['fiscal-half', 'fiscal-quarter', 'fiscal-period', 'fiscal-week'] as const) {
           const sub = listSubPeriods(fy, { kind, ...shape });
-          expect(sub.reduce((acc, p) => acc + periodLengthDays(p), 0)).toBe(days);
+          expect(sub.reduce((acc, p) => acc + lengthDaysOfPeriod(p), 0)).toBe(days);
           const perYear = { 'fiscal-half': 2, 'fiscal-quarter': 4, 'fiscal-period': shape.layout === '13x4' ? 13 : 12, 'fiscal-week': days / 7 }[kind];
           expect(sub).toHaveLength(perYear);
           if (kind === 'fiscal-quarter' || kind === 'fiscal-half') {
-            const weeks = sub.map((p) => periodLengthDays(p) / 7);
+            const weeks = sub.map((p) => lengthDaysOfPeriod(p) / 7);
             const base = kind === 'fiscal-quarter' ? 13 : 26;
             expect(weeks.filter((w) => w === base + 1)).toHaveLength(days === 371 ? 1 : 0);
           }
@@ -148,9 +148,9 @@ describe('period: properties', () => {
       fc.property(anyDef, fc.array(anyDay, { minLength: 1, maxLength: 60 }), (def, days) => {
         const u = defineUnit(def);
         const ords = ordinalFromDayNumberBulk(u, Int32Array.from(days));
-        expect([...ords]).toEqual(days.map((x) => u.ordinalOfDayNumber(x)));
-        expect(labelFromOrdinalBulk(u, ords)).toEqual([...ords].map((o) => u.formatLabel(o)));
-        expect([...firstDayNumberFromOrdinalBulk(u, ords)]).toEqual([...ords].map((o) => u.firstDayNumberOf(o)));
+        expect([...ords]).toEqual(days.map((x) => u.ordinalFromDayNumber(x)));
+        expect(formatOrdinalBulk(u, ords)).toEqual([...ords].map((o) => u.formatOrdinal(o)));
+        expect([...firstDayNumberFromOrdinalBulk(u, ords)]).toEqual([...ords].map((o) => u.firstDayNumberFromOrdinal(o)));
       }),
       { seed: SEED, numRuns: 1500 },
     );
@@ -164,7 +164,7 @@ describe('period: properties', () => {
         for (let i = 0; i < days.length; i++) days[i] = start + i;
         const ords = ordinalFromDayNumberBulk(u, days);
         for (let i = 0; i < days.length; i++) {
-          if (ords[i] !== u.ordinalOfDayNumber(days[i]!)) expect.fail(`${u.id}: day ${days[i]}`);
+          if (ords[i] !== u.ordinalFromDayNumber(days[i]!)) expect.fail(`${u.id}: day ${days[i]}`);
         }
       }),
       { seed: SEED, numRuns: 120 },
@@ -194,7 +194,7 @@ describe('period: properties', () => {
             }
             const ords = ordinalFromDayNumberBulk(u, days);
             for (let i = 0; i < days.length; i++) {
-              if (ords[i] !== u.ordinalOfDayNumber(days[i]!)) expect.fail(`${u.id}: day ${days[i]} gave ${ords[i]}`);
+              if (ords[i] !== u.ordinalFromDayNumber(days[i]!)) expect.fail(`${u.id}: day ${days[i]} gave ${ords[i]}`);
             }
           }
         },
@@ -207,9 +207,9 @@ describe('period: properties', () => {
     fc.assert(
       fc.property(anyDef, fc.integer({ min: dayNumberFromYmd(1850, 1, 1), max: dayNumberFromYmd(2250, 1, 1) }), (def, dn) => {
         const u = defineUnit(def);
-        const p = periodFromOrdinal(u, u.ordinalOfDayNumber(dn));
+        const p = periodFromOrdinal(u, u.ordinalFromDayNumber(dn));
         const back = periodYearEarlier(p);
-        const gap = u.firstDayNumberOf(p.ordinal) - u.firstDayNumberOf(back.ordinal);
+        const gap = u.firstDayNumberFromOrdinal(p.ordinal) - u.firstDayNumberFromOrdinal(back.ordinal);
         const kind = u.kind;
         if (kind === 'week' || kind === 'cycle') {
           expect(gap).toBeGreaterThanOrEqual(364);

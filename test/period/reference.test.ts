@@ -13,10 +13,10 @@ import {
   formatPeriod,
   listSubPeriods,
   parsePeriod,
-  periodFirstDayNumber,
+  firstDayNumberOfPeriod,
   periodFromDayNumber,
-  periodLastDayNumber,
-  periodLengthDays,
+  lastDayNumberOfPeriod,
+  lengthDaysOfPeriod,
 } from '../../src/period/index.js';
 
 const SEED = 20250404;
@@ -25,7 +25,7 @@ const iso = (dn: number) => {
   const { year, month, day } = ymdFromDayNumber(dn);
   return `${String(year).padStart(4, '0')}-${String(month).padStart(2, '0')}-${String(day).padStart(2, '0')}`;
 };
-const span = (p: Period) => `${iso(periodFirstDayNumber(p))}..${iso(periodLastDayNumber(p))}`;
+const span = (p: Period) => `${iso(firstDayNumberOfPeriod(p))}..${iso(lastDayNumberOfPeriod(p))}`;
 const epochDay = Temporal.PlainDate.from('1970-01-01');
 const temporalDay = (dn: number) => epochDay.add({ days: dn });
 
@@ -105,10 +105,10 @@ describe('period: 52/53-week years', () => {
   it('26 CFR 1.441-2(a)(4) example: last vs nearest Saturday of November', () => {
     const last = defineUnit({ kind: 'fiscal-year', yearEnd: { weekday: 'saturday', month: 11, rule: 'last' }, naming: 'end-year' });
     const nearest = defineUnit({ kind: 'fiscal-year', yearEnd: { weekday: 'saturday', month: 11, rule: 'nearest' }, naming: 'end-year' });
-    expect(iso(periodLastDayNumber(parsePeriod(last, 'FY2001')))).toBe('2001-11-24');
-    expect(iso(periodLastDayNumber(parsePeriod(nearest, 'FY2001')))).toBe('2001-12-01');
-    expect(iso(periodLastDayNumber(parsePeriod(last, 'FY1956')))).toBe('1956-11-24');
-    expect(iso(periodLastDayNumber(parsePeriod(nearest, 'FY1956')))).toBe('1956-12-01');
+    expect(iso(lastDayNumberOfPeriod(parsePeriod(last, 'FY2001')))).toBe('2001-11-24');
+    expect(iso(lastDayNumberOfPeriod(parsePeriod(nearest, 'FY2001')))).toBe('2001-12-01');
+    expect(iso(lastDayNumberOfPeriod(parsePeriod(last, 'FY1956')))).toBe('1956-11-24');
+    expect(iso(lastDayNumberOfPeriod(parsePeriod(nearest, 'FY1956')))).toBe('1956-12-01');
   });
 
   // 26 U.S.C. 441(f)(1) and 26 CFR 1.441-2(a)(1)-(2): the year varies from 52 to 53 weeks, always ends on the same
@@ -125,13 +125,13 @@ describe('period: 52/53-week years', () => {
         (w, month, rule, year) => {
           const u = defineUnit({ kind: 'fiscal-year', yearEnd: { weekday: weekdays[w]!, month, rule }, naming: 'end-year' });
           const p = parsePeriod(u, `FY${year}`);
-          const end = temporalDay(periodLastDayNumber(p));
+          const end = temporalDay(lastDayNumberOfPeriod(p));
           const monthEnd = Temporal.PlainDate.from({ year, month, day: 1 }).add({ months: 1 }).subtract({ days: 1 });
           const offset = monthEnd.until(end).days;
           expect(end.dayOfWeek).toBe(w + 1);
           if (rule === 'last') expect(offset >= -6 && offset <= 0).toBe(true);
           else expect(offset >= -3 && offset <= 3).toBe(true);
-          expect([364, 371]).toContain(periodLengthDays(p));
+          expect([364, 371]).toContain(lengthDaysOfPeriod(p));
         },
       ),
       { seed: SEED, numRuns: 400 },
@@ -146,7 +146,7 @@ describe('period: 52/53-week years', () => {
     const retail = { yearEnd: { weekday: 'saturday', month: 1, rule: 'nearest' }, naming: 'start-year', layout: '4-5-4' } as const;
     const year = defineUnit({ kind: 'fiscal-year', ...retail });
     const ours: number[] = [];
-    for (let y = 2000; y <= 2030; y++) if (periodLengthDays(parsePeriod(year, `FY${y}`)) === 371) ours.push(y);
+    for (let y = 2000; y <= 2030; y++) if (lengthDaysOfPeriod(parsePeriod(year, `FY${y}`)) === 371) ours.push(y);
     // Independent computation: the Saturday nearest 31 January, with Temporal.
     const saturdayNearestJan31 = (calendarYear: number) => {
       const jan31 = Temporal.PlainDate.from({ year: calendarYear, month: 1, day: 31 });
@@ -162,12 +162,12 @@ describe('period: 52/53-week years', () => {
     expect(ours).toEqual([2000, 2006, 2012, 2017, 2023, 2028]);
     // FY2012's 53rd week ended on 2 February 2013 (from memory) and FY2023 ended on 3 February 2024 (a secondary
     // page describing the NRF 4-5-4 calendar for "the fiscal year ending February 3, 2024").
-    expect(iso(periodLastDayNumber(parsePeriod(year, 'FY2012')))).toBe('2013-02-02');
-    expect(iso(periodLastDayNumber(parsePeriod(year, 'FY2023')))).toBe('2024-02-03');
+    expect(iso(lastDayNumberOfPeriod(parsePeriod(year, 'FY2012')))).toBe('2013-02-02');
+    expect(iso(lastDayNumberOfPeriod(parsePeriod(year, 'FY2023')))).toBe('2024-02-03');
     // Every month of the NRF layout is 4-5-4 per quarter, the 53rd week going to the last month, January
     // (NRF 4-5-4 calendar FAQ; from memory).
     const month = defineUnit({ kind: 'fiscal-period', ...retail });
-    expect(listSubPeriods(parsePeriod(year, 'FY2023'), month).map((p) => periodLengthDays(p) / 7)).toEqual([
+    expect(listSubPeriods(parsePeriod(year, 'FY2023'), month).map((p) => lengthDaysOfPeriod(p) / 7)).toEqual([
       4, 5, 4, 4, 5, 4, 4, 5, 4, 4, 5, 5,
     ]);
     expect(span(listSubPeriods(parsePeriod(year, 'FY2024'), month)[0]!)).toBe('2024-02-04..2024-03-02');
@@ -183,7 +183,7 @@ describe('period: ISO 8601 weeks against @js-temporal/polyfill', () => {
         const t = temporalDay(dn);
         const label = formatPeriod(periodFromDayNumber(unit, dn));
         expect(label).toBe(`${String(t.yearOfWeek).padStart(4, '0')}-W${String(t.weekOfYear).padStart(2, '0')}`);
-        expect(periodFirstDayNumber(parsePeriod(unit, label))).toBe(dn - (t.dayOfWeek - 1));
+        expect(firstDayNumberOfPeriod(parsePeriod(unit, label))).toBe(dn - (t.dayOfWeek - 1));
       }),
       { seed: SEED, numRuns: 3000 },
     );
@@ -194,9 +194,9 @@ describe('period: ISO 8601 weeks against @js-temporal/polyfill', () => {
     fc.assert(
       fc.property(fc.integer({ min: -100_000_000, max: 100_000_000 }), (dn) => {
         const t = temporalDay(dn);
-        expect(defineUnit('month').ordinalOfDayNumber(dn)).toBe(t.year * 12 + t.month - 1);
-        expect(defineUnit('quarter').ordinalOfDayNumber(dn)).toBe(t.year * 4 + Math.floor((t.month - 1) / 3));
-        expect(defineUnit('year').ordinalOfDayNumber(dn)).toBe(t.year);
+        expect(defineUnit('month').ordinalFromDayNumber(dn)).toBe(t.year * 12 + t.month - 1);
+        expect(defineUnit('quarter').ordinalFromDayNumber(dn)).toBe(t.year * 4 + Math.floor((t.month - 1) / 3));
+        expect(defineUnit('year').ordinalFromDayNumber(dn)).toBe(t.year);
       }),
       { seed: SEED, numRuns: 2000 },
     );

@@ -12,20 +12,20 @@ import {
   countPeriods,
   defineUnit,
   formatPeriod,
-  labelFromOrdinalBulk,
+  formatOrdinalBulk,
   firstDayNumberFromOrdinalBulk,
   listOverlappingPeriods,
   listSubPeriods,
   ordinalFromDayNumberBulk,
   parsePeriod,
-  periodContainsDayNumber,
+  isDayNumberInPeriod,
   periodContaining,
-  periodEndDayNumber,
-  periodFirstDayNumber,
+  firstDayNumberAfterPeriod,
+  firstDayNumberOfPeriod,
   periodFromDayNumber,
   periodFromOrdinal,
-  periodLastDayNumber,
-  periodLengthDays,
+  lastDayNumberOfPeriod,
+  lengthDaysOfPeriod,
   periodYearEarlier,
   shiftPeriod,
   validateUnitDefinition,
@@ -37,7 +37,7 @@ const iso = (dn: number) => {
   const { year, month, day } = ymdFromDayNumber(dn);
   return `${String(year).padStart(4, '0')}-${String(month).padStart(2, '0')}-${String(day).padStart(2, '0')}`;
 };
-const span = (p: Period) => `${iso(periodFirstDayNumber(p))}..${iso(periodLastDayNumber(p))}`;
+const span = (p: Period) => `${iso(firstDayNumberOfPeriod(p))}..${iso(lastDayNumberOfPeriod(p))}`;
 
 const RETAIL = { yearEnd: { weekday: 'saturday', month: 1, rule: 'nearest' }, naming: 'start-year', layout: '4-5-4' } as const;
 
@@ -65,23 +65,23 @@ describe('period: calendar units', () => {
   });
 
   it('uses the documented ordinal origins', () => {
-    expect(MONTH_UNIT.ordinalOfDayNumber(d(2025, 3, 14))).toBe(2025 * 12 + 2);
-    expect(defineUnit('quarter').ordinalOfDayNumber(d(2025, 5, 1))).toBe(2025 * 4 + 1);
-    expect(defineUnit('year').ordinalOfDayNumber(d(2025, 5, 1))).toBe(2025);
-    expect(DAY_UNIT.ordinalOfDayNumber(12345)).toBe(12345);
+    expect(MONTH_UNIT.ordinalFromDayNumber(d(2025, 3, 14))).toBe(2025 * 12 + 2);
+    expect(defineUnit('quarter').ordinalFromDayNumber(d(2025, 5, 1))).toBe(2025 * 4 + 1);
+    expect(defineUnit('year').ordinalFromDayNumber(d(2025, 5, 1))).toBe(2025);
+    expect(DAY_UNIT.ordinalFromDayNumber(12345)).toBe(12345);
     // ISO week 0 is the week of 1970-01-01 (Monday 1969-12-29 .. Sunday 1970-01-04).
-    expect(defineUnit('iso-week').ordinalOfDayNumber(d(1969, 12, 29))).toBe(0);
-    expect(defineUnit('iso-week').ordinalOfDayNumber(d(1969, 12, 28))).toBe(-1);
+    expect(defineUnit('iso-week').ordinalFromDayNumber(d(1969, 12, 29))).toBe(0);
+    expect(defineUnit('iso-week').ordinalFromDayNumber(d(1969, 12, 28))).toBe(-1);
   });
 
   it('gives end-exclusive ranges and lengths', () => {
     const feb = parsePeriod('month', '2024-02');
     expect(span(feb)).toBe('2024-02-01..2024-02-29');
-    expect(periodEndDayNumber(feb)).toBe(d(2024, 3, 1));
-    expect(periodLengthDays(feb)).toBe(29);
-    expect(periodLengthDays(parsePeriod('year', '2100'))).toBe(365);
-    expect(periodContainsDayNumber(feb, d(2024, 2, 29))).toBe(true);
-    expect(periodContainsDayNumber(feb, d(2024, 3, 1))).toBe(false);
+    expect(firstDayNumberAfterPeriod(feb)).toBe(d(2024, 3, 1));
+    expect(lengthDaysOfPeriod(feb)).toBe(29);
+    expect(lengthDaysOfPeriod(parsePeriod('year', '2100'))).toBe(365);
+    expect(isDayNumberInPeriod(feb, d(2024, 2, 29))).toBe(true);
+    expect(isDayNumberInPeriod(feb, d(2024, 3, 1))).toBe(false);
   });
 
   it('weeks start on any weekday and are labelled by first day and length (ISO 8601 interval start/duration)', () => {
@@ -95,8 +95,8 @@ describe('period: calendar units', () => {
 
   it('cycles of n days count from their anchor', () => {
     const pay = defineUnit({ kind: 'cycle', lengthDays: 14, anchor: '2025-01-03' });
-    expect(pay.ordinalOfDayNumber(d(2025, 1, 3))).toBe(0);
-    expect(pay.ordinalOfDayNumber(d(2025, 1, 2))).toBe(-1);
+    expect(pay.ordinalFromDayNumber(d(2025, 1, 3))).toBe(0);
+    expect(pay.ordinalFromDayNumber(d(2025, 1, 2))).toBe(-1);
     const p = periodFromDayNumber(pay, d(2025, 3, 13)); // 2025-01-03 + 4 * 14 days = 2025-02-28
     expect(formatPeriod(p)).toBe('2025-02-28/P14D');
     expect(formatPeriod(periodFromDayNumber(pay, d(2025, 3, 14)))).toBe('2025-03-14/P14D');
@@ -138,7 +138,7 @@ describe('period: calendar units', () => {
     expect(formatPeriod(periodYearEarlier(parsePeriod('iso-week', '2021-W01')))).toBe('2020-W01');
     expect(formatPeriod(periodYearEarlier(parsePeriod('day', '2024-02-29')))).toBe('2023-02-28');
     const sat = defineUnit({ kind: 'week', firstWeekday: 'saturday' });
-    expect(periodFirstDayNumber(periodYearEarlier(parsePeriod(sat, '2025-03-08/P1W')))).toBe(d(2025, 3, 8) - 364);
+    expect(firstDayNumberOfPeriod(periodYearEarlier(parsePeriod(sat, '2025-03-08/P1W')))).toBe(d(2025, 3, 8) - 364);
   });
 
   it('expanded years (ISO 8601-1:2019 4.3.2, six digits and a sign as in RFC 9557) round-trip', () => {
@@ -153,8 +153,8 @@ describe('period: calendar units', () => {
   it('bulk conversions equal the scalar ones, and ordinals go to labels and first days', () => {
     const days = Int32Array.of(0, 31, 59, d(2025, 3, 14), MIN_DAY_NUMBER, MAX_DAY_NUMBER);
     const ords = ordinalFromDayNumberBulk('month', days);
-    expect([...ords]).toEqual([...days].map((x) => MONTH_UNIT.ordinalOfDayNumber(x)));
-    expect(labelFromOrdinalBulk('month', ords.subarray(0, 4))).toEqual(['1970-01', '1970-02', '1970-03', '2025-03']);
+    expect([...ords]).toEqual([...days].map((x) => MONTH_UNIT.ordinalFromDayNumber(x)));
+    expect(formatOrdinalBulk('month', ords.subarray(0, 4))).toEqual(['1970-01', '1970-02', '1970-03', '2025-03']);
     expect([...firstDayNumberFromOrdinalBulk('month', ords.subarray(0, 3))]).toEqual([0, 31, 59]);
     expect(() => ordinalFromDayNumberBulk('month', Float64Array.of(1.5))).toThrow(/dayNumbers\[0\]/);
     expect(() => ordinalFromDayNumberBulk('month', [0, MAX_DAY_NUMBER + 1])).toThrow(/dayNumbers\[1\]/);
@@ -216,8 +216,8 @@ describe('period: 52/53-week fiscal years', () => {
 
   it('the 53rd week goes to the last period by default (4-5-4 becomes 4-5-5 in the last quarter) and is week 53', () => {
     const fy = parsePeriod(year, 'FY2023');
-    expect(periodLengthDays(fy)).toBe(371);
-    const weeks = listSubPeriods(parsePeriod(quarter, 'FY2023-Q4'), period).map((p) => periodLengthDays(p) / 7);
+    expect(lengthDaysOfPeriod(fy)).toBe(371);
+    const weeks = listSubPeriods(parsePeriod(quarter, 'FY2023-Q4'), period).map((p) => lengthDaysOfPeriod(p) / 7);
     expect(weeks).toEqual([4, 5, 5]);
     const last = listSubPeriods(fy, week).at(-1)!;
     expect(formatPeriod(last)).toBe('FY2023-W53');
@@ -227,19 +227,19 @@ describe('period: 52/53-week fiscal years', () => {
 
   it('extraWeek "first-period" lengthens the first period instead', () => {
     const first = defineUnit({ kind: 'fiscal-period', ...RETAIL, extraWeek: 'first-period' });
-    const p = listSubPeriods(parsePeriod(year, 'FY2023'), first).map((x) => periodLengthDays(x) / 7);
+    const p = listSubPeriods(parsePeriod(year, 'FY2023'), first).map((x) => lengthDaysOfPeriod(x) / 7);
     expect(p).toEqual([5, 5, 4, 4, 5, 4, 4, 5, 4, 4, 5, 4]);
     const q = defineUnit({ kind: 'fiscal-quarter', ...RETAIL, extraWeek: 'first-period' });
-    expect(listSubPeriods(parsePeriod(year, 'FY2023'), q).map((x) => periodLengthDays(x) / 7)).toEqual([14, 13, 13, 13]);
+    expect(listSubPeriods(parsePeriod(year, 'FY2023'), q).map((x) => lengthDaysOfPeriod(x) / 7)).toEqual([14, 13, 13, 13]);
   });
 
   it('13x4 layouts have thirteen periods, the 13th taking the 53rd week; quarters stay 13 weeks', () => {
     const p13 = defineUnit({ kind: 'fiscal-period', ...RETAIL, layout: '13x4' });
     const ps = listSubPeriods(parsePeriod(year, 'FY2023'), p13);
     expect(ps.map(formatPeriod).at(-1)).toBe('FY2023-P13');
-    expect(ps.map((x) => periodLengthDays(x) / 7)).toEqual([4, 4, 4, 4, 4, 4, 4, 4, 4, 4, 4, 4, 5]);
+    expect(ps.map((x) => lengthDaysOfPeriod(x) / 7)).toEqual([4, 4, 4, 4, 4, 4, 4, 4, 4, 4, 4, 4, 5]);
     const q13 = defineUnit({ kind: 'fiscal-quarter', ...RETAIL, layout: '13x4' });
-    expect(listSubPeriods(parsePeriod(year, 'FY2022'), q13).map((x) => periodLengthDays(x) / 7)).toEqual([13, 13, 13, 13]);
+    expect(listSubPeriods(parsePeriod(year, 'FY2022'), q13).map((x) => lengthDaysOfPeriod(x) / 7)).toEqual([13, 13, 13, 13]);
   });
 
   it('year earlier: fiscal week 53 maps to week 52; other units keep their index', () => {
@@ -257,9 +257,9 @@ describe('period: 52/53-week fiscal years', () => {
       const f = (6 - end.dayOfWeek + 7) % 7;
       return f <= 3 ? end.add({ days: f }) : end.subtract({ days: 7 - f });
     };
-    expect(iso(periodLastDayNumber(parsePeriod(dec, 'FY2021')))).toBe(nearest(2021).toString());
+    expect(iso(lastDayNumberOfPeriod(parsePeriod(dec, 'FY2021')))).toBe(nearest(2021).toString());
     expect(nearest(2021).toString()).toBe('2022-01-01');
-    expect(iso(periodFirstDayNumber(parsePeriod(dec, 'FY2022')))).toBe('2022-01-02');
+    expect(iso(firstDayNumberOfPeriod(parsePeriod(dec, 'FY2022')))).toBe('2022-01-02');
   });
 
   it('a fiscal-week unit needs a week-based year; halves, quarters and periods need a layout', () => {
@@ -310,10 +310,10 @@ describe('period: bad definitions and out-of-range periods', () => {
     expect(() => periodFromOrdinal(m, m.maxOrdinal + 1)).toThrow(KalendsRangeError);
     expect(() => shiftPeriod(periodFromOrdinal(m, m.maxOrdinal), 1)).toThrow(/outside the supported range/);
     expect(() => shiftPeriod(periodFromOrdinal(m, m.minOrdinal), -1)).toThrow(KalendsRangeError);
-    expect(() => m.ordinalOfDayNumber(MAX_DAY_NUMBER + 1)).toThrow(/dayNumber: expected an integer/);
+    expect(() => m.ordinalFromDayNumber(MAX_DAY_NUMBER + 1)).toThrow(/dayNumber: expected an integer/);
     expect(() => parsePeriod('year', '+275761')).toThrow(KalendsRangeError);
     expect(() => parsePeriod('year', '+999999')).toThrow(/outside the supported years/);
-    expect(() => m.firstDayNumberOf(Number.NaN)).toThrow(KalendsRangeError);
+    expect(() => m.firstDayNumberFromOrdinal(Number.NaN)).toThrow(KalendsRangeError);
     expect(() => formatPeriod({ unit: m, ordinal: m.maxOrdinal + 1 })).toThrow(/p\.ordinal/);
     expect(() => formatPeriod({ unit: { ...m }, ordinal: 1 } as Period)).toThrow(KalendsTypeError);
     expect(() => periodFromDayNumber({ kind: 'month' }, MIN_DAY_NUMBER)).not.toThrow();

@@ -3,7 +3,7 @@
  *
  * Sources: the US federal holidays of 5 U.S.C. 6103 (2025 dates as listed by the US Office of Personnel
  * Management's 2025 holiday table); the business-day conventions of the ISDA 2006 Definitions, section 4.12;
- * @js-temporal/polyfill for calendar arithmetic; the business layer's own nthBusinessDayInRange and
+ * @js-temporal/polyfill for calendar arithmetic; the business layer's own nthBusinessDayOfRange and
  * nthBusinessDayOfPeriod as an independent computation of the same days (our rules scan with isBusinessDay).
  * Stub placement (front stubs rolled back from the end date, back stubs forward from the start) is common
  * practice, not an ISDA rule.
@@ -15,7 +15,7 @@ import {
   type CalendarDefinition,
   DefinitionError,
   KalendsRangeError,
-  buildSchedule,
+  defineSchedule,
   countBusinessDays,
   defineCalendar,
   defineRule,
@@ -26,10 +26,10 @@ import {
   listOccurrences,
   matchesRule,
   nextOccurrence,
-  nthBusinessDayInRange,
+  nthBusinessDayOfRange,
   nthBusinessDayOfPeriod,
   parsePlainDate,
-  periodEndDayNumber,
+  firstDayNumberAfterPeriod,
   periodFromDayNumber,
 } from '../../src/index.js';
 
@@ -144,7 +144,7 @@ describe('business rules on random calendars (seeded fast-check)', () => {
           for (let m = 1; m <= 12; m++) {
             const a = parsePlainDate(`${year}-${String(m).padStart(2, '0')}-01`);
             const b = m === 12 ? end : parsePlainDate(`${year}-${String(m + 1).padStart(2, '0')}-01`);
-            expected.push(nthBusinessDayInRange(cal, a, b, -1));
+            expected.push(nthBusinessDayOfRange(cal, a, b, -1));
           }
           expect(got).toEqual(expected);
           const adjusted = defineRule({ kind: 'semi-monthly', days: [15, 'last'], calendar: cal, convention });
@@ -169,7 +169,7 @@ describe('fiscal anchors from the period layer', () => {
     expect(got.length).toBeGreaterThanOrEqual(23);
     for (const d of got) {
       const p = periodFromDayNumber(periods454, d);
-      const lastDay = periodEndDayNumber(p) - 1;
+      const lastDay = firstDayNumberAfterPeriod(p) - 1;
       expect(pd(iso(d)).dayOfWeek).toBe(5);
       // Periods end on a Saturday, so the Friday is the day before the period's last day.
       expect(pd(iso(lastDay)).dayOfWeek).toBe(6);
@@ -192,7 +192,7 @@ describe('finance schedules', () => {
   const months = (from: string, k: number) => pd(from).add({ months: k }).toString();
 
   it('short front stub: roll back from the end date in whole steps (common practice)', () => {
-    const s = buildSchedule({ start: '2025-02-10', end: '2026-06-15', step: { months: 6 }, stub: 'short-front' });
+    const s = defineSchedule({ start: '2025-02-10', end: '2026-06-15', step: { months: 6 }, stub: 'short-front' });
     expect(s.periods.map((p) => [iso(p.unadjustedStart), iso(p.unadjustedEnd), p.stub ?? ''])).toEqual([
       ['2025-02-10', months('2026-06-15', -12), 'front'],
       [months('2026-06-15', -12), months('2026-06-15', -6), ''],
@@ -201,7 +201,7 @@ describe('finance schedules', () => {
   });
 
   it('long front stub joins the short stub to the first regular period', () => {
-    const s = buildSchedule({ start: '2025-02-10', end: '2026-06-15', step: { months: 6 }, stub: 'long-front' });
+    const s = defineSchedule({ start: '2025-02-10', end: '2026-06-15', step: { months: 6 }, stub: 'long-front' });
     expect(s.periods.map((p) => [iso(p.unadjustedStart), iso(p.unadjustedEnd), p.stub ?? ''])).toEqual([
       ['2025-02-10', '2025-12-15', 'front'],
       ['2025-12-15', '2026-06-15', ''],
@@ -209,22 +209,22 @@ describe('finance schedules', () => {
   });
 
   it('short and long back stubs roll forward from the start date', () => {
-    const short = buildSchedule({ start: '2025-01-31', end: '2025-12-15', step: { months: 3 }, stub: 'short-back', keepMonthEnd: true });
+    const short = defineSchedule({ start: '2025-01-31', end: '2025-12-15', step: { months: 3 }, stub: 'short-back', keepMonthEnd: true });
     expect(short.periods.map((p) => iso(p.unadjustedStart))).toEqual(['2025-01-31', '2025-04-30', '2025-07-31', '2025-10-31']);
     expect(short.periods[3]!.stub).toBe('back');
-    const long = buildSchedule({ start: '2025-01-31', end: '2025-12-15', step: { months: 3 }, stub: 'long-back', keepMonthEnd: true });
+    const long = defineSchedule({ start: '2025-01-31', end: '2025-12-15', step: { months: 3 }, stub: 'long-back', keepMonthEnd: true });
     expect(long.periods.map((p) => [iso(p.unadjustedStart), iso(p.unadjustedEnd)])).toEqual([
       ['2025-01-31', '2025-04-30'],
       ['2025-04-30', '2025-07-31'],
       ['2025-07-31', '2025-12-15'],
     ]);
     // Without the end-of-month rule the day of the start date is kept where the month has it (Temporal add).
-    const plain = buildSchedule({ start: '2025-01-31', end: '2025-12-15', step: { months: 3 }, stub: 'short-back' });
+    const plain = defineSchedule({ start: '2025-01-31', end: '2025-12-15', step: { months: 3 }, stub: 'short-back' });
     expect(plain.periods.map((p) => iso(p.unadjustedStart))).toEqual([0, 3, 6, 9].map((k) => months('2025-01-31', k)));
   });
 
   it('no stub when the step divides the span; adjusted dates by modified following on the US federal calendar', () => {
-    const s = buildSchedule({ start: '2025-03-31', end: '2026-03-31', step: { months: 3 }, keepMonthEnd: true, calendar: 'us-federal', convention: 'modified-following' });
+    const s = defineSchedule({ start: '2025-03-31', end: '2026-03-31', step: { months: 3 }, keepMonthEnd: true, calendar: 'us-federal', convention: 'modified-following' });
     expect(s.periods.every((p) => p.stub === undefined)).toBe(true);
     expect(s.periods.map((p) => iso(p.unadjustedEnd))).toEqual(['2025-06-30', '2025-09-30', '2025-12-31', '2026-03-31']);
     // 2025-05-31 style check: every adjusted date is a business day, and stays in its month.
@@ -236,14 +236,14 @@ describe('finance schedules', () => {
 
   it('a rule as the step: the payroll Fridays between two dates', () => {
     const fridays = defineRule({ kind: 'weekly', weekdays: ['friday'], every: 2, anchor: '2025-01-10' });
-    const s = buildSchedule({ start: '2025-01-01', end: '2025-02-20', step: fridays, stub: 'short-front' });
+    const s = defineSchedule({ start: '2025-01-01', end: '2025-02-20', step: fridays, stub: 'short-front' });
     expect(s.periods.map((p) => iso(p.unadjustedStart))).toEqual(['2025-01-01', '2025-01-10', '2025-01-24', '2025-02-07']);
     expect(s.periods[0]!.stub).toBe('front');
   });
 
   it('bad schedules give typed errors', () => {
-    expect(() => buildSchedule({ start: '2025-01-01', end: '2024-01-01', step: { months: 1 } })).toThrow(KalendsRangeError);
-    expect(() => buildSchedule({ start: '2025-01-01', end: '2026-01-01', step: { months: 0 } })).toThrow(/step.months/);
-    expect(() => buildSchedule({ start: '2025-01-01', end: '2026-01-01', step: { months: 1 }, convention: 'following' })).toThrow(/calendar/);
+    expect(() => defineSchedule({ start: '2025-01-01', end: '2024-01-01', step: { months: 1 } })).toThrow(KalendsRangeError);
+    expect(() => defineSchedule({ start: '2025-01-01', end: '2026-01-01', step: { months: 0 } })).toThrow(/step.months/);
+    expect(() => defineSchedule({ start: '2025-01-01', end: '2026-01-01', step: { months: 1 }, convention: 'following' })).toThrow(/calendar/);
   });
 });

@@ -19,7 +19,7 @@ import {
   isBusinessDay,
   listHolidays,
   listOccurrences,
-  nthBusinessDayInRange,
+  nthBusinessDayOfRange,
 } from '../../src/index.js';
 import { appendBusinessDaysUnchecked, nthBusinessDayInRangeUnchecked } from '../../src/business/calendar.js';
 
@@ -176,7 +176,7 @@ describe('business layer fast path (internal, unchecked)', () => {
     );
   });
 
-  it('ranges longer than the compiled window (4,096 years) agree with the public nthBusinessDayInRange and a scan', () => {
+  it('ranges longer than the compiled window (4,096 years) agree with the public nthBusinessDayOfRange and a scan', () => {
     const cal = defineCalendar({
       id: 'long',
       years: { from: 1, until: 5200 },
@@ -192,12 +192,12 @@ describe('business layer fast path (internal, unchecked)', () => {
     for (const n of [1, 2, 7, -1, -2, -7]) {
       const got = nthBusinessDayInRangeUnchecked(cal, start, end, n);
       expect(got).toBe(scanNth(c, start, end, n));
-      expect(got).toBe(nthBusinessDayInRange(cal, start, end, n));
+      expect(got).toBe(nthBusinessDayOfRange(cal, start, end, n));
     }
     const total = countBusinessDays(cal, start, end);
     expect(nthBusinessDayInRangeUnchecked(cal, start, end, total + 1)).toBeNaN();
     expect(nthBusinessDayInRangeUnchecked(cal, start, end, -total - 1)).toBeNaN();
-    expect(nthBusinessDayInRangeUnchecked(cal, start, end, total)).toBe(nthBusinessDayInRange(cal, start, end, -1));
+    expect(nthBusinessDayInRangeUnchecked(cal, start, end, total)).toBe(nthBusinessDayOfRange(cal, start, end, -1));
   });
 });
 

@@ -1,7 +1,7 @@
 /**
  * Date rules on the civil calendar. Reference: @js-temporal/polyfill (the ECMA-262 Temporal reference
  * implementation) computes the expected dates the way a user would: `PlainDate.add({ months: k })` from the
- * anchor (Temporal constrains a missing day to the month's last day), `dayOfWeek`, `daysInMonth`.
+ * anchor (Temporal constrains a missing day to the month's last day), `dayOfWeek`, `dayCountOfMonth`.
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';

@@ -4,7 +4,7 @@ import { Temporal } from '@js-temporal/polyfill';
 import {
   KalendsRangeError,
   bucketSeries,
-  createBucketAccumulator,
+  defineBucketAccumulator,
   defineUnit,
   seriesFromColumns,
   seriesFromBuckets,
@@ -118,7 +118,7 @@ describe('bucketSeries against brute force, with periods from @js-temporal/polyf
       fc.property(rowsArb, fc.constantFrom(...ZONES), fc.integer(), (rows, zone, seed) => {
         const aggs = ['count', 'sum', 'mean', 'min', 'max', 'first', 'last', 'stddev', 'median'] as const;
         const table = bucketSeries(seriesFromColumns(rows.map((r) => r[0]), { v: rows.map((r) => r[1]) }), { unit: 'month', zone, aggregations: aggs });
-        const acc = createBucketAccumulator({ unit: 'month', zone, aggregations: aggs });
+        const acc = defineBucketAccumulator({ unit: 'month', zone, aggregations: aggs });
         // Shuffle, but keep rows with equal instants in order (first/last among ties follow input order).
         const order = rows.map((r, i) => ({ r, i, key: ((seed ^ (r[0] / 3_600_000)) * 2654435761) >>> 0 }));
         const byTime = new Map<number, typeof order>();
@@ -204,7 +204,7 @@ describe('infinite values in buckets (IEEE 754 arithmetic: x + Infinity = Infini
       const table = bucketSeries(seriesFromColumns(times, { v: values }), { unit: 'day', zone: 'UTC', aggregations: ['sum', 'mean'] });
       expect(table.columns.sum![0]).toBe(sum);
       expect(table.columns.mean![0]).toBe(mean);
-      const acc = createBucketAccumulator({ unit: 'day', zone: 'UTC', aggregations: ['sum', 'mean'] });
+      const acc = defineBucketAccumulator({ unit: 'day', zone: 'UTC', aggregations: ['sum', 'mean'] });
       values.forEach((v, i) => acc.add(times[i]!, v));
       const streamed = acc.finish();
       expect(streamed.columns.sum![0]).toBe(sum);

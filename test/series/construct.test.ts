@@ -3,7 +3,7 @@ import fc from 'fast-check';
 import {
   KalendsRangeError,
   KalendsTypeError,
-  columnOf,
+  columnOfSeries,
   seriesFromColumns,
   seriesFromPairs,
   seriesFromRecords,
@@ -21,7 +21,7 @@ describe('series constructors', () => {
       [20, 5],
     ]);
     expect(Array.from(s.epochMs)).toEqual([10, 10, 20, 30, 30]);
-    expect(Array.from(columnOf(s))).toEqual([2, 4, 5, 1, 3]);
+    expect(Array.from(columnOfSeries(s))).toEqual([2, 4, 5, 1, 3]);
     expect(Object.isFrozen(s)).toBe(true);
     expect(Object.isFrozen(s.columns)).toBe(true);
   });
@@ -87,9 +87,9 @@ describe('series constructors', () => {
     expect(() => seriesFromRecords([{ at: {}, value: 1 }])).toThrow(/records\[0\]\.at/);
   });
 
-  it('columnOf names the valid columns for an unknown name', () => {
+  it('columnOfSeries names the valid columns for an unknown name', () => {
     const s = seriesFromColumns([0], { a: [1], b: [2] });
-    expect(() => columnOf(s, 'c')).toThrow(/valid columns are "a", "b"/);
+    expect(() => columnOfSeries(s, 'c')).toThrow(/valid columns are "a", "b"/);
   });
 
   it('sliceSeries is end-exclusive', () => {

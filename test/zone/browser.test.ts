@@ -93,7 +93,7 @@ describe.skipIf(!HAVE)('zone answers in headless Chromium equal Node', () => {
     const nodeRaw = ZONES.map((zone) => instants.map((t) => rawIntlOffset(zone, t)));
     const expected = ZONES.map((zone) => ({
       zone,
-      offsets: instants.map((t) => kalends.offsetSecondsAt(zone, t)),
+      offsets: instants.map((t) => kalends.offsetSecondsFromEpochMs(zone, t)),
       days: Array.from(kalends.dayNumberFromEpochMsBulk(zone, Float64Array.from(instants))),
       resolved: walls.map((w) => [kalends.epochMsFromWallMs(zone, w, 'earlier'), kalends.epochMsFromWallMs(zone, w, 'later')]),
       transitions: kalends.listTransitions(zone, Date.UTC(2020, 0, 1), Date.UTC(2030, 0, 1)).map((t) => t.epochMs),
@@ -108,7 +108,7 @@ describe.skipIf(!HAVE)('zone answers in headless Chromium equal Node', () => {
       return a.zones.map((zone) => ({
         zone,
         raw: a.instants.map((t) => rawIntlOffset(zone, t)),
-        offsets: a.instants.map((t) => k.offsetSecondsAt(zone, t)),
+        offsets: a.instants.map((t) => k.offsetSecondsFromEpochMs(zone, t)),
         days: Array.from(k.dayNumberFromEpochMsBulk(zone, Float64Array.from(a.instants))),
         resolved: a.walls.map((w) => [k.epochMsFromWallMs(zone, w, 'earlier'), k.epochMsFromWallMs(zone, w, 'later')]),
         transitions: k.listTransitions(zone, Date.UTC(2020, 0, 1), Date.UTC(2030, 0, 1)).map((t) => t.epochMs),

@@ -86,7 +86,7 @@ function checkAll(zone: Zone | string, data: Float64Array): void {
   for (const unit of UNITS) {
     const ords = ordinalFromEpochMsBulk(unit, zone, data);
     for (let i = 0; i < data.length; i++) {
-      const want = unit.ordinalOfDayNumber(dayNumberFromEpochMs(zone, data[i]!));
+      const want = unit.ordinalFromDayNumber(dayNumberFromEpochMs(zone, data[i]!));
       if (ords[i] !== want) expect([unit.kind, data[i], ords[i]]).toEqual([unit.kind, data[i], want]);
     }
   }

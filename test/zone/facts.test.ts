@@ -4,17 +4,17 @@
  */
 import { describe, expect, it } from 'vitest';
 import {
-  dayLengthMs,
+  lengthMsOfDayNumber,
   dayNumberFromEpochMs,
-  dayStartEpochMs,
+  firstEpochMsOfDayNumber,
   listTransitions,
-  offsetSecondsAt,
+  offsetSecondsFromEpochMs,
   resolveWallMs,
   wallFieldsFromEpochMs,
   zoneFromId,
 } from '../../src/zone/index.js';
 import type { Zone } from '../../src/zone/index.js';
-import { dayNumberFromYmd, daysInMonth, weekdayOfDayNumber } from '../../src/civil/index.js';
+import { dayNumberFromYmd, dayCountOfMonth, weekdayOfDayNumber } from '../../src/civil/index.js';
 import { HOUR, fixtureZone } from './helpers.js';
 
 /** Day of the month of the n-th (1-based) given ISO weekday, or the last one when n = -1. */
@@ -23,7 +23,7 @@ function nthWeekday(year: number, month: number, weekday: number, n: number): nu
     const first = weekdayOfDayNumber(dayNumberFromYmd(year, month, 1));
     return 1 + ((weekday - first + 7) % 7) + (n - 1) * 7;
   }
-  const dim = daysInMonth(year, month);
+  const dim = dayCountOfMonth(year, month);
   const last = weekdayOfDayNumber(dayNumberFromYmd(year, month, dim));
   return dim - ((last - weekday + 7) % 7);
 }
@@ -102,9 +102,9 @@ describe('Samoa skipped 30 December 2011 (it moved west of the date line; IANA t
   it('the day has length 0 and starts where 31 December starts', () => {
     const d30 = dayNumberFromYmd(2011, 12, 30);
     for (const [src, z] of both('Pacific/Apia')) {
-      expect(dayLengthMs(z, d30), src).toBe(0);
-      expect(dayStartEpochMs(z, d30), src).toBe(dayStartEpochMs(z, d30 + 1));
-      expect(dayLengthMs(z, d30 - 1), src).toBe(24 * HOUR);
+      expect(lengthMsOfDayNumber(z, d30), src).toBe(0);
+      expect(firstEpochMsOfDayNumber(z, d30), src).toBe(firstEpochMsOfDayNumber(z, d30 + 1));
+      expect(lengthMsOfDayNumber(z, d30 - 1), src).toBe(24 * HOUR);
       const r = resolveWallMs(z, d30 * 86_400_000 + 12 * HOUR);
       expect(r.kind, src).toBe('gap');
       if (r.kind === 'gap') {
@@ -113,7 +113,7 @@ describe('Samoa skipped 30 December 2011 (it moved west of the date line; IANA t
         expect(r.gapEndWallMs - r.gapStartWallMs).toBe(24 * HOUR);
       }
       // The instant after 29 December 23:59:59 local is 31 December 00:00 local.
-      const t = dayStartEpochMs(z, d30 + 1);
+      const t = firstEpochMsOfDayNumber(z, d30 + 1);
       expect(dayNumberFromEpochMs(z, t - 1), src).toBe(d30 - 1);
       expect(dayNumberFromEpochMs(z, t), src).toBe(d30 + 1);
     }
@@ -121,8 +121,8 @@ describe('Samoa skipped 30 December 2011 (it moved west of the date line; IANA t
 
   it('Kiribati Line Islands likewise skipped 31 December 1994 (IANA tz data, Pacific/Kiritimati)', () => {
     for (const [src, z] of both('Pacific/Kiritimati')) {
-      expect(dayLengthMs(z, dayNumberFromYmd(1994, 12, 31)), src).toBe(0);
-      expect(offsetSecondsAt(z, Date.UTC(2025, 0, 1)), src).toBe(14 * 3600);
+      expect(lengthMsOfDayNumber(z, dayNumberFromYmd(1994, 12, 31)), src).toBe(0);
+      expect(offsetSecondsFromEpochMs(z, Date.UTC(2025, 0, 1)), src).toBe(14 * 3600);
     }
   });
 });
@@ -133,10 +133,10 @@ describe("Lord Howe Island's 30-minute daylight saving (IANA tz data, Australia/
       for (let year = 2009; year <= 2035; year++) {
         const oct = dayNumberFromYmd(year, 10, nthWeekday(year, 10, SUNDAY, 1));
         const apr = dayNumberFromYmd(year, 4, nthWeekday(year, 4, SUNDAY, 1));
-        expect(dayLengthMs(z, oct) / HOUR, `${src} ${year}`).toBe(23.5);
-        expect(dayLengthMs(z, apr) / HOUR, `${src} ${year}`).toBe(24.5);
-        expect(offsetSecondsAt(z, Date.UTC(year, 0, 15))).toBe(11 * 3600);
-        expect(offsetSecondsAt(z, Date.UTC(year, 6, 15))).toBe(10.5 * 3600);
+        expect(lengthMsOfDayNumber(z, oct) / HOUR, `${src} ${year}`).toBe(23.5);
+        expect(lengthMsOfDayNumber(z, apr) / HOUR, `${src} ${year}`).toBe(24.5);
+        expect(offsetSecondsFromEpochMs(z, Date.UTC(year, 0, 15))).toBe(11 * 3600);
+        expect(offsetSecondsFromEpochMs(z, Date.UTC(year, 6, 15))).toBe(10.5 * 3600);
       }
     }
   });
@@ -155,11 +155,11 @@ describe('days that do not start at midnight (spring-forward at 00:00; IANA tz 2
     it(`${id} ${y}-${m}-${d} starts at 01:00 and lasts 23 hours`, () => {
       for (const [src, z] of both(id)) {
         const dn = dayNumberFromYmd(y, m, d);
-        const start = dayStartEpochMs(z, dn);
+        const start = firstEpochMsOfDayNumber(z, dn);
         expect(start, src).toBe(Date.UTC(y, m - 1, d, 1) - offAfter * HOUR);
         const f = wallFieldsFromEpochMs(z, start);
         expect([f.hour, f.minute], src).toEqual([1, 0]);
-        expect(dayLengthMs(z, dn), src).toBe(23 * HOUR);
+        expect(lengthMsOfDayNumber(z, dn), src).toBe(23 * HOUR);
         expect(resolveWallMs(z, dn * 86_400_000).kind).toBe('gap');
       }
     });
@@ -168,7 +168,7 @@ describe('days that do not start at midnight (spring-forward at 00:00; IANA tz 2
 
 describe('offsets with seconds and odd minutes (IANA tz data)', () => {
   it('Asia/Kolkata used Madras time, +05:21:10, until 1906', () => {
-    for (const [src, z] of both('Asia/Kolkata')) expect(offsetSecondsAt(z, Date.UTC(1900, 0, 1)), src).toBe(5 * 3600 + 21 * 60 + 10);
+    for (const [src, z] of both('Asia/Kolkata')) expect(offsetSecondsFromEpochMs(z, Date.UTC(1900, 0, 1)), src).toBe(5 * 3600 + 21 * 60 + 10);
   });
   it('Asia/Kathmandu +05:45 since 1986, America/St_Johns -03:30 / -02:30, Pacific/Chatham +12:45 / +13:45, Asia/Tehran +03:30', () => {
     for (const [id, jan, jul] of [
@@ -179,15 +179,15 @@ describe('offsets with seconds and odd minutes (IANA tz data)', () => {
       ['America/Sao_Paulo', -10800, -10800],
     ] as const) {
       for (const [src, z] of both(id)) {
-        expect(offsetSecondsAt(z, Date.UTC(2025, 0, 15)), `${src} ${id}`).toBe(jan);
-        expect(offsetSecondsAt(z, Date.UTC(2025, 6, 15)), `${src} ${id}`).toBe(jul);
+        expect(offsetSecondsFromEpochMs(z, Date.UTC(2025, 0, 15)), `${src} ${id}`).toBe(jan);
+        expect(offsetSecondsFromEpochMs(z, Date.UTC(2025, 6, 15)), `${src} ${id}`).toBe(jul);
       }
     }
   });
   it('Antarctica/Troll: a two-hour daylight saving change, days of 22 and 26 hours (footer <+00>0<+02>-2,M3.5.0/1,M10.5.0/3)', () => {
     for (const [src, z] of both('Antarctica/Troll')) {
-      expect(dayLengthMs(z, dayNumberFromYmd(2025, 3, 30)) / HOUR, src).toBe(22);
-      expect(dayLengthMs(z, dayNumberFromYmd(2025, 10, 26)) / HOUR, src).toBe(26);
+      expect(lengthMsOfDayNumber(z, dayNumberFromYmd(2025, 3, 30)) / HOUR, src).toBe(22);
+      expect(lengthMsOfDayNumber(z, dayNumberFromYmd(2025, 10, 26)) / HOUR, src).toBe(26);
     }
   });
   it('America/Sao_Paulo: no daylight saving since 2019 (IANA tz data; Brazil decree 9,772 of 2019, from memory)', () => {

@@ -9,10 +9,10 @@ import {
   INVALID_DAY_NUMBER,
   dayNumberFromEpochMs,
   dayNumberFromEpochMsBulk,
-  dayStartEpochMs,
+  firstEpochMsOfDayNumber,
   epochMsFromWallMs,
   listTransitions,
-  offsetSecondsAt,
+  offsetSecondsFromEpochMs,
   resolveWallMs,
   wallMsFromEpochMs,
   wallMsFromEpochMsBulk,
@@ -33,7 +33,7 @@ describe('round trip: instant -> local -> instant', () => {
     fc.assert(
       fc.property(anyZone, instant, (z, t) => {
         const wall = wallMsFromEpochMs(z, t);
-        expect(wall - offsetSecondsAt(z, t) * 1000).toBe(t);
+        expect(wall - offsetSecondsFromEpochMs(z, t) * 1000).toBe(t);
         const r = resolveWallMs(z, wall);
         if (r.kind === 'unique') expect(r.epochMs).toBe(t);
         else if (r.kind === 'overlap') expect([r.earlierEpochMs, r.laterEpochMs]).toContain(t);
@@ -49,8 +49,8 @@ describe('round trip: instant -> local -> instant', () => {
     fc.assert(
       fc.property(anyZone, instant, (z, t) => {
         const dn = dayNumberFromEpochMs(z, t);
-        expect(dayStartEpochMs(z, dn)).toBeLessThanOrEqual(t);
-        expect(dayStartEpochMs(z, dn + 1)).toBeGreaterThan(t);
+        expect(firstEpochMsOfDayNumber(z, dn)).toBeLessThanOrEqual(t);
+        expect(firstEpochMsOfDayNumber(z, dn + 1)).toBeGreaterThan(t);
       }),
       { seed: SEED, numRuns: 1500 },
     );
@@ -65,7 +65,7 @@ describe('offsets change only at listed transitions', () => {
         const end = Date.UTC(year + 2, 0, 1);
         const ts = listTransitions(z, start, end);
         const bounds = [start, ...ts.map((t) => t.epochMs), end];
-        let expected = offsetSecondsAt(z, start);
+        let expected = offsetSecondsFromEpochMs(z, start);
         for (let i = 0; i + 1 < bounds.length; i++) {
           if (i > 0) {
             expect(ts[i - 1]!.offsetBeforeSeconds).toBe(expected);
@@ -75,9 +75,9 @@ describe('offsets change only at listed transitions', () => {
           const a = bounds[i]!;
           const b = bounds[i + 1]!;
           const inside = Math.floor(a + frac * (b - a - 1));
-          expect(offsetSecondsAt(z, a)).toBe(expected);
-          expect(offsetSecondsAt(z, inside)).toBe(expected);
-          expect(offsetSecondsAt(z, b - 1)).toBe(expected);
+          expect(offsetSecondsFromEpochMs(z, a)).toBe(expected);
+          expect(offsetSecondsFromEpochMs(z, inside)).toBe(expected);
+          expect(offsetSecondsFromEpochMs(z, b - 1)).toBe(expected);
         }
       }),
       { seed: SEED, numRuns: 400 },

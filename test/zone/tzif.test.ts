@@ -4,7 +4,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { CorruptTzifError, listTransitions, offsetSecondsAt, zoneFromId, zoneFromTzif } from '../../src/zone/index.js';
+import { CorruptTzifError, listTransitions, offsetSecondsFromEpochMs, zoneFromId, zoneFromTzif } from '../../src/zone/index.js';
 import { parseTzif } from '../../src/zone/tzif.js';
 import { parsePosixTz, posixTransitions } from '../../src/zone/posix.js';
 import { KalendsSyntaxError } from '../../src/errors.js';
@@ -50,7 +50,7 @@ describe('TZif reader: the vendored IANA files (tz 2025b)', () => {
     const z2 = fixtureZone('America/New_York');
     // The 32-bit table covers 1901-12-13 to 2038-01-19; inside it the two agree at every transition ±1 s.
     for (const t of listTransitions(z2, Date.UTC(1902, 0, 1), Date.UTC(2037, 0, 1))) {
-      for (const dt of [-1000, 0, 1000]) expect(offsetSecondsAt(z1, t.epochMs + dt)).toBe(offsetSecondsAt(z2, t.epochMs + dt));
+      for (const dt of [-1000, 0, 1000]) expect(offsetSecondsFromEpochMs(z1, t.epochMs + dt)).toBe(offsetSecondsFromEpochMs(z2, t.epochMs + dt));
     }
   });
 
@@ -67,7 +67,7 @@ describe('TZif reader: the vendored IANA files (tz 2025b)', () => {
     const ts = listTransitions(plain, Date.UTC(1970, 0, 1), Date.UTC(2026, 0, 1));
     expect(ts.length).toBe(112);
     for (const t of ts) {
-      for (const dt of [-1000, 0, 1000]) expect(offsetSecondsAt(right, t.epochMs + dt)).toBe(offsetSecondsAt(plain, t.epochMs + dt));
+      for (const dt of [-1000, 0, 1000]) expect(offsetSecondsFromEpochMs(right, t.epochMs + dt)).toBe(offsetSecondsFromEpochMs(plain, t.epochMs + dt));
     }
   });
 
@@ -98,15 +98,15 @@ describe('TZif reader: the vendored IANA files (tz 2025b)', () => {
   it('a hand-made version 2 file: table, then footer rule (RFC 8536 section 3.3)', () => {
     const z = zoneFromTzif(buildTzif({ ...base, version: 2, footer: 'AAA-1BBB,M3.5.0/1,M10.5.0' }), 'Hand/Made');
     // Before the first transition, local time type 0 applies (RFC 8536 section 3.2).
-    expect(offsetSecondsAt(z, -1)).toBe(3600);
-    expect(offsetSecondsAt(z, 0)).toBe(7200);
-    expect(offsetSecondsAt(z, 15552000 * 1000)).toBe(3600);
+    expect(offsetSecondsFromEpochMs(z, -1)).toBe(3600);
+    expect(offsetSecondsFromEpochMs(z, 0)).toBe(7200);
+    expect(offsetSecondsFromEpochMs(z, 15552000 * 1000)).toBe(3600);
     // After the last transition the footer governs: daylight time from the last Sunday of March 1971 at 01:00
     // local standard time (00:00Z) to the last Sunday of October at 02:00 local daylight time (00:00Z).
-    expect(offsetSecondsAt(z, Date.UTC(1971, 2, 27, 23, 59, 59))).toBe(3600);
-    expect(offsetSecondsAt(z, Date.UTC(1971, 2, 28, 0))).toBe(7200);
-    expect(offsetSecondsAt(z, Date.UTC(1971, 9, 30, 23, 59, 59))).toBe(7200);
-    expect(offsetSecondsAt(z, Date.UTC(1971, 9, 31, 0))).toBe(3600);
+    expect(offsetSecondsFromEpochMs(z, Date.UTC(1971, 2, 27, 23, 59, 59))).toBe(3600);
+    expect(offsetSecondsFromEpochMs(z, Date.UTC(1971, 2, 28, 0))).toBe(7200);
+    expect(offsetSecondsFromEpochMs(z, Date.UTC(1971, 9, 30, 23, 59, 59))).toBe(7200);
+    expect(offsetSecondsFromEpochMs(z, Date.UTC(1971, 9, 31, 0))).toBe(3600);
   });
 });
 
@@ -154,7 +154,7 @@ describe('TZif reader: corrupt bytes give CorruptTzifError (code corrupt-tzif), 
           try {
             const z = zoneFromTzif(bytes);
             for (const t of [Date.UTC(1900, 0, 1), 0, Date.UTC(2025, 6, 1), Date.UTC(2400, 0, 1)]) {
-              expect(Number.isInteger(offsetSecondsAt(z, t))).toBe(true);
+              expect(Number.isInteger(offsetSecondsFromEpochMs(z, t))).toBe(true);
             }
             listTransitions(z, Date.UTC(2020, 0, 1), Date.UTC(2030, 0, 1));
           } catch (e) {
@@ -237,7 +237,7 @@ describe('far future: Intl against the TZif footers (RFC 8536 section 3.3) in 24
         expect(b, `${id} ${year}`).toEqual(a);
         for (const m of [0, 3, 6, 9]) {
           const t = Date.UTC(year, m, 15, 12);
-          expect(offsetSecondsAt(z, t), `${id} ${year}-${m + 1}`).toBe(offsetSecondsAt(f, t));
+          expect(offsetSecondsFromEpochMs(z, t), `${id} ${year}-${m + 1}`).toBe(offsetSecondsFromEpochMs(f, t));
         }
       }
     });

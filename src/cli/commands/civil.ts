@@ -6,7 +6,7 @@
  */
 import {
   dayOfYearOfDayNumber,
-  daysInMonth,
+  dayCountOfMonth,
   formatInstant,
   formatIsoWeekDate,
   formatOffset,
@@ -57,13 +57,13 @@ function dateFacts(dayNumber: number): Record<string, string | number | boolean>
     dayOfYear: dayOfYearOfDayNumber(dayNumber),
     dayNumber,
     leapYear: isLeapYear(year),
-    daysInMonth: daysInMonth(year, month),
+    daysInMonth: dayCountOfMonth(year, month),
   };
 }
 
 function describeInstant(input: string, epochMs: number, offsetSeconds: number | null, zoneAnnotation: string | null, leapSecond = false): Row {
   // ZONE LAYER: a `--zone <id>` option belongs here. With a zone, add its local date-time and offset at
-  // `epochMs` (wallMsFromEpochMs, offsetSecondsAt) and take the date facts of the local day
+  // `epochMs` (wallMsFromEpochMs, offsetSecondsFromEpochMs) and take the date facts of the local day
   // (dayNumberFromEpochMs) instead of the UTC day. Without one, the facts stay those of the UTC date.
   const utcDay = Math.floor(epochMs / 86_400_000);
   return {

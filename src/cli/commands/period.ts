@@ -16,19 +16,19 @@ import {
   formatPeriod,
   formatPlainDate,
   listSubPeriods,
-  offsetSecondsAt,
+  offsetSecondsFromEpochMs,
   parseInstant,
   parsePeriod,
   parsePlainDate,
   parsePlainDateTime,
   periodContaining,
-  periodEndDayNumber,
-  periodEndEpochMs,
-  periodFirstDayNumber,
+  firstDayNumberAfterPeriod,
+  firstEpochMsAfterPeriod,
+  firstDayNumberOfPeriod,
   periodFromDayNumber,
   periodFromEpochMs,
-  periodLastDayNumber,
-  periodStartEpochMs,
+  lastDayNumberOfPeriod,
+  firstEpochMsOfPeriod,
   toZone,
   zoneFromOffset,
 } from '../../index.js';
@@ -75,7 +75,7 @@ function readUnit(args: ParsedArgs): PeriodUnit {
 }
 
 function instantText(epochMs: number, zone: ZoneInput): string {
-  return formatInstant(epochMs, { offsetSeconds: offsetSecondsAt(zone, epochMs) });
+  return formatInstant(epochMs, { offsetSeconds: offsetSecondsFromEpochMs(zone, epochMs) });
 }
 
 const PERIOD_COLUMNS = ['input', 'label', 'first', 'last', 'end', 'days', 'start', 'endInstant'] as const;
@@ -92,7 +92,7 @@ function periodOfValue(unit: PeriodUnit, value: string, zoneOption: ZoneInput | 
     try {
       dayNumber = parsePlainDate(value);
     } catch (e) {
-      throw new UsageError(`${JSON.stringify(value)} is neither a label of unit ${unit.id} (${unit.formatLabel(unit.ordinalOfDayNumber(0))} is one) nor a date: ${errorMessage(e)}`);
+      throw new UsageError(`${JSON.stringify(value)} is neither a label of unit ${unit.id} (${unit.formatOrdinal(unit.ordinalFromDayNumber(0))} is one) nor a date: ${errorMessage(e)}`);
     }
     return { period: periodFromDayNumber(unit, dayNumber), zone: zoneOption };
   }
@@ -112,17 +112,17 @@ function periodOfValue(unit: PeriodUnit, value: string, zoneOption: ZoneInput | 
 }
 
 function periodRow(input: string, p: Period, zone: ZoneInput | undefined): Row {
-  const first = periodFirstDayNumber(p);
-  const end = periodEndDayNumber(p);
-  const start = zone === undefined ? null : periodStartEpochMs(p, zone);
-  const endMs = zone === undefined ? null : periodEndEpochMs(p, zone);
+  const first = firstDayNumberOfPeriod(p);
+  const end = firstDayNumberAfterPeriod(p);
+  const start = zone === undefined ? null : firstEpochMsOfPeriod(p, zone);
+  const endMs = zone === undefined ? null : firstEpochMsAfterPeriod(p, zone);
   return {
     input,
     label: formatPeriod(p),
     ordinal: p.ordinal,
     unit: p.unit.id,
     first: formatPlainDate(first),
-    last: formatPlainDate(periodLastDayNumber(p)),
+    last: formatPlainDate(lastDayNumberOfPeriod(p)),
     end: formatPlainDate(end),
     days: end - first,
     zone: zone === undefined ? null : typeof zone === 'string' ? zone : zone.id,
@@ -262,15 +262,15 @@ Examples
     if (yearText !== undefined) fy = parsePeriod(year, /^[+-]?\d+$/.test(yearText) ? `FY${yearText}` : yearText);
     else fy = periodFromDayNumber(year, dateText !== undefined ? parsePlainDate(dateText) : Math.floor(Date.now() / 86_400_000));
     const writer = new RowWriter(io, json, LAYOUT_COLUMNS);
-    if (!json) io.stdout(`${formatPeriod(fy)}: ${formatPlainDate(periodFirstDayNumber(fy))} .. ${formatPlainDate(periodLastDayNumber(fy))} (${periodEndDayNumber(fy) - periodFirstDayNumber(fy)} days)\n`);
+    if (!json) io.stdout(`${formatPeriod(fy)}: ${formatPlainDate(firstDayNumberOfPeriod(fy))} .. ${formatPlainDate(lastDayNumberOfPeriod(fy))} (${firstDayNumberAfterPeriod(fy) - firstDayNumberOfPeriod(fy)} days)\n`);
     for (const p of listSubPeriods(fy, sub)) {
-      const first = periodFirstDayNumber(p);
-      const days = periodEndDayNumber(p) - first;
+      const first = firstDayNumberOfPeriod(p);
+      const days = firstDayNumberAfterPeriod(p) - first;
       writer.write({
         label: formatPeriod(p),
         quarter: formatPeriod(periodContaining(p, quarter)),
         first: formatPlainDate(first),
-        last: formatPlainDate(periodLastDayNumber(p)),
+        last: formatPlainDate(lastDayNumberOfPeriod(p)),
         days,
         weeks: days % 7 === 0 ? days / 7 : Math.round((days / 7) * 10) / 10,
       });

@@ -12,10 +12,10 @@ import {
   type EmptyPolicy,
   type UnitDefinition,
   AGGREGATION_NAMES,
-  createBucketAccumulator,
+  defineBucketAccumulator,
   epochMsFromWallMs,
   formatInstant,
-  offsetSecondsAt,
+  offsetSecondsFromEpochMs,
   parsePlainDate,
   parsePlainDateTime,
   toEpochMs,
@@ -152,7 +152,7 @@ async function runBucket(args: ParsedArgs, io: CliIo): Promise<number> {
     range = { start: m[1]!, end: m[2]! };
   }
   const json = optionFlag(args, 'json');
-  const acc = createBucketAccumulator({ unit: unit as never, zone, aggregations: aggs });
+  const acc = defineBucketAccumulator({ unit: unit as never, zone, aggregations: aggs });
 
   function instantOf(text: string, line: number): number {
     const s = text.trim();
@@ -279,7 +279,7 @@ async function runBucket(args: ParsedArgs, io: CliIo): Promise<number> {
 }
 
 function writeTable(table: BucketTable, names: readonly string[], json: boolean, io: CliIo): void {
-  const instant = (ms: number) => formatInstant(ms, { offsetSeconds: offsetSecondsAt(table.zone, ms) });
+  const instant = (ms: number) => formatInstant(ms, { offsetSeconds: offsetSecondsFromEpochMs(table.zone, ms) });
   if (!json) io.stdout(`${['period', 'start', 'end', 'rows', ...names].map(csvCell).join(',')}\n`);
   for (let i = 0; i < table.length; i++) {
     const values = table.columnNames.map((c) => table.columns[c]![i]!);

@@ -9,14 +9,14 @@ import {
   type Disambiguation,
   type Zone,
   dayNumberFromEpochMs,
-  dayStartEpochMs,
+  firstEpochMsOfDayNumber,
   epochMsFromWallMs,
   formatInstant,
   formatOffset,
   formatPlainDate,
   formatPlainDateTime,
   listTransitions,
-  offsetSecondsAt,
+  offsetSecondsFromEpochMs,
   parseInstant,
   parsePlainDate,
   parsePlainDateTime,
@@ -86,7 +86,7 @@ Examples
       seen++;
       try {
         const epochMs = readInstant(value);
-        const off = offsetSecondsAt(zone, epochMs);
+        const off = offsetSecondsFromEpochMs(zone, epochMs);
         writer.write({
           input: value,
           zone: zone.id,
@@ -153,7 +153,7 @@ Examples
         } catch (e) {
           error = errorMessage(e);
         }
-        const off = epochMs === null ? null : offsetSecondsAt(zone, epochMs);
+        const off = epochMs === null ? null : offsetSecondsFromEpochMs(zone, epochMs);
         writer.write({
           input: value,
           zone: zone.id,
@@ -179,8 +179,8 @@ Examples
 
 /** A range bound: a year ("2025"), a local date ("2025-03-01", the day's first instant in the zone), or an instant. */
 function readBound(zone: Zone, text: string): number {
-  if (/^\d{4}$/.test(text)) return dayStartEpochMs(zone, parsePlainDate(`${text}-01-01`));
-  if (/^[+-]?\d{4,6}-\d{2}-\d{2}$/.test(text)) return dayStartEpochMs(zone, parsePlainDate(text));
+  if (/^\d{4}$/.test(text)) return firstEpochMsOfDayNumber(zone, parsePlainDate(`${text}-01-01`));
+  if (/^[+-]?\d{4,6}-\d{2}-\d{2}$/.test(text)) return firstEpochMsOfDayNumber(zone, parsePlainDate(text));
   return readInstant(text);
 }
 
