@@ -21,4 +21,5 @@ export {
   isoWeekDateFromDayNumber,
   dayNumberFromIsoWeekDate,
 } from './isoweek.js';
+export { type WeekdayName, WEEKDAY_NAMES } from './names.js';
 export { easterDayNumberOfYear, julianEasterDayNumberOfYear, EASTER_MIN_YEAR, JULIAN_EASTER_MIN_YEAR } from './easter.js';

@@ -9,7 +9,8 @@ import { dayCountOfMonthUnchecked } from '../civil/gregorian.js';
 import { parseDayLabel } from './labels.js';
 
 /** A weekday by its English name, lower case. */
-export type WeekdayName = 'monday' | 'tuesday' | 'wednesday' | 'thursday' | 'friday' | 'saturday' | 'sunday';
+import type { WeekdayName } from '../civil/names.js';
+export type { WeekdayName };
 
 /** The weekday names in ISO order: index + 1 is the ISO weekday number (1 = Monday). */
 export const WEEKDAY_NAMES: readonly WeekdayName[] = Object.freeze([

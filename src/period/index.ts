@@ -1,6 +1,5 @@
 /** Public surface of the period layer: calendar, fiscal and 52/53-week units; period values and arithmetic. */
 export {
-  type WeekdayName,
   type YearNaming,
   type MonthDay,
   type YearEndRule,

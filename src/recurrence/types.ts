@@ -8,7 +8,7 @@
  * @module
  */
 
-import type { WeekdayName } from '../period/index.js';
+import type { WeekdayName } from '../civil/index.js';
 import type { BusinessDayConvention } from '../business/index.js';
 
 export type { WeekdayName };
