@@ -145,7 +145,7 @@ function failCalendarYears(calendar: CalendarInput, a: number, b: number, i: num
   const [name, value] = a < first ? [`starts[${i}]`, a] : [`ends[${i}]`, b];
   const id = typeof calendar === 'string' ? calendar : (calendar as { id?: string }).id;
   throw new KalendsRangeError(
-    `${name}: expected a day number from ${showDay(first)} to ${showDay(after)}, the years calendar ${JSON.stringify(id)} answers for, got ${showDay(value)}`,
+    `${name}: expected a day number from ${showDay(first)} up to ${showDay(after)} (the day after the last year calendar ${JSON.stringify(id)} answers for), got ${showDay(value)}`,
     { code: 'out-of-range', received: value },
   );
 }
