@@ -10,7 +10,7 @@
  * @module
  */
 import { type CalendarInput, calendarFromName, countBusinessDays } from '../business/index.js';
-import { dayNumberFromYmdUnchecked } from '../civil/gregorian.js';
+import { dayNumberFromYmdUnchecked, yearOfDayNumberUnchecked } from '../civil/gregorian.js';
 import { readOptions, requireDayNumberArgument, requireNumberArray, requireOutArray } from '../diagnostics/index.js';
 import { KalendsRangeError, KalendsTypeError } from '../errors.js';
 import {
@@ -144,8 +144,9 @@ function business252Kernel(s: Days, e: Days, out: Float64Array, n: number, calen
 function failCalendarYears(calendar: CalendarInput, a: number, b: number, i: number, first: number, after: number): never {
   const [name, value] = a < first ? [`starts[${i}]`, a] : [`ends[${i}]`, b];
   const id = typeof calendar === 'string' ? calendar : (calendar as { id?: string }).id;
+  const years = `${yearOfDayNumberUnchecked(first)}..${yearOfDayNumberUnchecked(after - 1)}`;
   throw new KalendsRangeError(
-    `${name}: expected a day number from ${showDay(first)} up to ${showDay(after)} (the day after the last year calendar ${JSON.stringify(id)} answers for), got ${showDay(value)}`,
+    `${name}: expected a day number in the years ${years} that calendar ${JSON.stringify(id)} answers for (an end may be the day after), got ${showDay(value)}`,
     { code: 'out-of-range', received: value },
   );
 }
