@@ -15,10 +15,11 @@ import { benchmarks as instant } from './instant.js';
 import { benchmarks as zone } from './zone.js';
 import { benchmarks as period } from './period.js';
 import { benchmarks as business } from './business.js';
+import { benchmarks as daycount } from './daycount.js';
 import { benchmarks as recurrence } from './recurrence.js';
 import { benchmarks as series } from './series.js';
 
-const all: readonly (() => Benchmark)[] = [...civil, ...instant, ...zone, ...period, ...business, ...recurrence, ...series];
+const all: readonly (() => Benchmark)[] = [...civil, ...instant, ...zone, ...period, ...business, ...daycount, ...recurrence, ...series];
 const args = process.argv.slice(2);
 const at = args.indexOf('--only-index');
 const only = at >= 0 ? Number(args[at + 1]) : undefined;

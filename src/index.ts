@@ -19,5 +19,6 @@ export * from './instant/index.js';
 export * from './zone/index.js';
 export * from './period/index.js';
 export * from './business/index.js';
+export * from './daycount/index.js';
 export * from './recurrence/index.js';
 export * from './series/index.js';
