@@ -589,10 +589,11 @@ function isKalendsError(e: unknown): e is Error {
 
 /**
  * The message of an error in shell words: no class name, no stack, no library parameter names (`wallMs`) or
- * day numbers; a library function's name that leads a message is dropped. An error that is neither a usage
- * error nor a kalends error is a defect, and says so.
+ * day numbers; a library function's name that leads a message is dropped. `words` maps a command's own library
+ * words to its options (`options.start` to `--start`). An error that is neither a usage error nor a kalends
+ * error is a defect, and says so.
  */
-export function shellMessage(e: unknown): string {
+export function shellMessage(e: unknown, words: Readonly<Record<string, string>> = {}): string {
   let text: string;
   if (e instanceof UsageError || e instanceof InputError) text = e.message;
   else if (isKalendsError(e)) {
@@ -601,6 +602,7 @@ export function shellMessage(e: unknown): string {
     if (lead && (FUNCTION_NAMES.has(lead[1]!) || LEADING_PARAMETERS.has(lead[1]!))) text = text.slice(lead[0].length);
     text = text.replace(/\s*\(day number -?\d+\)/g, '');
     text = text.replace(/\b(wallMs|epochMs|dayNumber|startEpochMs|endEpochMs)\b/g, (w) => SHELL_WORDS[w]!);
+    for (const [word, shell] of Object.entries(words)) text = text.split(word).join(shell);
   } else if (e instanceof Error) text = `internal error (${e.name}: ${e.message}); this is a defect in kalends, please report it with the command line`;
   else text = `internal error (${String(e)}); this is a defect in kalends, please report it with the command line`;
   return text.length > LONGEST_MESSAGE ? `${text.slice(0, LONGEST_MESSAGE - 3)}...` : text;

@@ -88,6 +88,9 @@ describe('cli: fiscal-layout', () => {
     expect(r.out).toMatch(/\nFY2025-Q4\s+2026-01-06\s+2026-04-05\s+90\s/);
     const json = await run(['fiscal-layout', '--unit', def, '--date', '2025-05-01', '--level', 'quarter', '--json']);
     expect(Object.keys(JSON.parse(json.out.split('\n')[0]!) as object)).toEqual(['period', 'first', 'last', 'days', 'weeks']);
+    const year = await run(['fiscal-layout', '--unit', def, '--year', 'FY999999']);
+    expect(year.code).toBe(2);
+    expect(year.err).toMatch(/^kalends fiscal-layout: --year: expected a fiscal year FYyyyy/);
     const positional = await run(['fiscal-layout', def]);
     expect(positional.code).toBe(2);
     expect(positional.err).toContain('the definition goes in --unit');

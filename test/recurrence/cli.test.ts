@@ -89,6 +89,13 @@ describe('kalends explain-rule', () => {
     expect(r.out).toBe('Friday of every 2nd week, counted from the week of 2025-01-03\nRFC 5545:\nDTSTART;VALUE=DATE:20250103\nRRULE:FREQ=WEEKLY;INTERVAL=2;BYDAY=FR\n');
   });
 
+  it("names the CLI's own options in library messages (--start, not options.start)", async () => {
+    const r = await cli(['explain-rule', 'FREQ=DAILY']);
+    expect(r.code).toBe(1);
+    expect(r.err).toContain('(or --start)');
+    expect(r.err).not.toContain('options.');
+  });
+
   it('--json, and a rule with no RFC 5545 form', async () => {
     const r = await cli(['explain-rule', '{"kind":"monthly","on":{"businessDay":1},"calendar":"us-federal"}', '--json']);
     expect(JSON.parse(r.out)).toEqual({ kind: 'monthly', values: 'dates', description: 'the first business day of every month; business days from calendar "us-federal"', rfc5545: null });

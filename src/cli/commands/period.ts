@@ -223,8 +223,12 @@ Columns: period (the label), quarter, first and last (both days included), days,
     const dateText = optionString(args, 'date');
     if (yearText !== undefined && dateText !== undefined) throw new UsageError('give --year or --date, not both');
     let fy: Period;
-    if (yearText !== undefined) fy = parsePeriod(year, /^[+-]?\d+$/.test(yearText) ? `FY${yearText}` : yearText);
-    else fy = periodFromDayNumber(year, dateText !== undefined ? parsePlainDate(dateText) : Math.floor(Date.now() / 86_400_000));
+    try {
+      if (yearText !== undefined) fy = parsePeriod(year, /^[+-]?\d+$/.test(yearText) ? `FY${yearText}` : yearText);
+      else fy = periodFromDayNumber(year, dateText !== undefined ? parsePlainDate(dateText) : Math.floor(Date.now() / 86_400_000));
+    } catch (e) {
+      throw new UsageError(`--${yearText !== undefined ? 'year' : 'date'}: ${shellMessage(e, { 'label: ': '' })}`);
+    }
     const json = optionFlag(args, 'json');
     const out = new Output(io);
     // At quarter level each row is its own quarter: no quarter column.

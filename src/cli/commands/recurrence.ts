@@ -23,6 +23,7 @@ import {
   type Command,
   type OptionSpec,
   type ParsedArgs,
+  InputError,
   JSON_OPTION,
   Output,
   RowWriter,
@@ -57,7 +58,12 @@ async function ruleArgument(args: ParsedArgs, io: CliIo): Promise<Rule> {
   if (isRfc5545(text)) {
     const start = optionString(args, 'start');
     const zone = optionString(args, 'zone');
-    return parseRecurrenceRule(text.replace(/\\n/g, '\n'), { ...(start !== undefined ? { start } : {}), ...(zone !== undefined ? { zone } : {}) });
+    try {
+      return parseRecurrenceRule(text.replace(/\\n/g, '\n'), { ...(start !== undefined ? { start } : {}), ...(zone !== undefined ? { zone } : {}) });
+    } catch (e) {
+      // The library names its options; the shell user gave --start and --zone.
+      throw new InputError(shellMessage(e, { 'options.start': '--start', 'options.zone': '--zone' }));
+    }
   }
   throw new UsageError(`<rule>: ${source.origin} is neither a JSON rule definition (starting with "{") nor RFC 5545 text (with FREQ=)`);
 }
