@@ -69,7 +69,7 @@ async function ruleArgument(args: ParsedArgs, io: CliIo): Promise<Rule> {
 }
 
 const START_OPTION: OptionSpec = { name: 'start', value: '<date>', text: "DTSTART for a bare 'FREQ=...' rule" };
-const ZONE_OPTION: OptionSpec = { name: 'zone', value: '<id>', text: 'zone for a floating RFC 5545 DTSTART (a local time without TZID)' };
+const ZONE_OPTION: OptionSpec = { name: 'zone', value: '<zone>', text: 'zone for a floating RFC 5545 DTSTART (a local time without TZID)' };
 
 /** A range bound read the way the rule's values are: dates for date rules, instants for the others. */
 function bound(rule: Rule, option: string, text: string): number {
@@ -138,7 +138,7 @@ ${RULE_TEXT}`,
 const explainCommand: Command = {
   name: 'explain-rule',
   summary: 'Explain a frequency rule (JSON or RFC 5545) in plain words',
-  usage: ['<rule> [--start <date>] [--zone <id>] [--json]'],
+  usage: ['<rule> [--start <date>] [--zone <zone>] [--json]'],
   description: `Prints the rule in plain words, and its RFC 5545 text when it has one. With --json, one JSON object: kind,
 values, description, rfc5545 (or null).
 

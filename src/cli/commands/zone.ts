@@ -38,7 +38,7 @@ import {
   writeRowsPerValue,
 } from '../kit.js';
 
-const ZONE_OPTION: OptionSpec = { name: 'zone', value: '<id>', text: 'IANA zone id ("Europe/Dublin"), "UTC", or a fixed offset ("+05:30"). Required.' };
+const ZONE_OPTION: OptionSpec = { name: 'zone', value: '<zone>', text: 'IANA zone id ("Europe/Dublin"), "UTC", or a fixed offset ("+05:30"). Required.' };
 
 function requireZone(args: ParsedArgs): Zone {
   const zone = optionZone(args, 'zone');
@@ -64,7 +64,7 @@ function hours(seconds: number): string {
 const zoneAt: Command = {
   name: 'zone-at',
   summary: "A zone's UTC offset and local time at instants",
-  usage: ['[<instant>...] --zone <id> [--json]'],
+  usage: ['[<instant>...] --zone <zone> [--json]'],
   description: `Shows, for each instant, the zone's UTC offset and the local date-time there. An instant is an RFC 3339 /
 RFC 9557 date-time with an offset ("2025-03-09T07:00:00Z") or an integer of epoch milliseconds. With no
 instants, reads one per line from standard input.`,
@@ -99,7 +99,7 @@ const DISAMBIGUATIONS: readonly Disambiguation[] = ['compatible', 'earlier', 'la
 const zoneResolve: Command = {
   name: 'zone-resolve',
   summary: 'Local date-times to instants in a zone, showing gaps and overlaps',
-  usage: ['[<local date-time>...] --zone <id> [--disambiguation <how>] [--json]'],
+  usage: ['[<local date-time>...] --zone <zone> [--disambiguation <how>] [--json]'],
   description: `Converts local date-times ("2025-03-09T02:30") in a zone to instants. The status column says whether the
 local time is unique, fell in a gap (the clocks skipped it) or in an overlap (it happened twice). With no
 date-times, reads one per line from standard input.
