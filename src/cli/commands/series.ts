@@ -29,7 +29,6 @@ import {
   CALENDAR_UNIT_NAMES,
   EXIT_DONE,
   EXIT_REFUSED,
-  JSON_OPTION,
   Output,
   UsageError,
   optionChoice,
@@ -360,9 +359,9 @@ export const commands: readonly Command[] = [
       {
         name: 'malformed',
         value: '<policy>',
-        text: 'stop (default): stop at the first malformed row, naming its line, exit code 1.\nskip: leave malformed rows out, count them, report the count and the first one on\nstderr at the end, exit code 0. (Renamed in 0.2; it was --on-bad-row.)',
+        text: 'stop (default): stop at the first malformed row, naming its line, exit code 1.\nskip: leave malformed rows out, count them, and report the count and the first one on stderr at the end, exit code 0.\n(Renamed in 0.2; it was --on-bad-row.)',
       },
-      JSON_OPTION,
+      { name: 'json', text: 'one JSON object per line (JSON Lines) instead of CSV' },
     ],
     examples: [
       "printf 'at,amount\\n2025-03-01T04:30:00Z,10\\n' | kalends bucket --unit month --zone America/New_York",
