@@ -71,10 +71,28 @@ describe('usage errors', () => {
     const conv = await cli(['adjust', '2025-01-01', '--convention', 'modified', '--calendar', 'us-federal']);
     expect(conv.code).toBe(2);
     expect(conv.err).toMatch(/expected one of following, modified-following/);
+    const typo = await cli(['adjust', '2025-01-01', '--convention', 'modifed-folowing', '--calendar', 'us-federal']);
+    expect(typo.err).toContain('did you mean "modified-following"?');
   });
-  it('dates outside the calendar years fail with the range error', async () => {
-    const r = await cli(['business-day', '1960-01-04', '--calendar', 'us-federal']);
+  it('dates outside the calendar years are refused with the range, in shell words (no class name, no day number)', async () => {
+    const r = await cli(['business-day', '1960-01-04', '2025-01-02', '--calendar', 'us-federal']);
     expect(r.code).toBe(1);
-    expect(r.err).toMatch(/KalendsRangeError.*outside the years 1971/);
+    expect(r.err).toMatch(/^kalends business-day: "1960-01-04": .*outside the years 1971/m);
+    expect(r.err).not.toMatch(/Kalends\w*Error|day number -?\d/);
+    expect(r.out).toContain('2025-01-02'); // the other date is still checked
+  });
+
+  it('--calendar takes JSON text as well as a file (the one form of every definition option)', async () => {
+    const r = await cli(['business-day', '2025-12-24', '--calendar', '{"id":"company","extends":"us-federal","additions":[{"date":"2025-12-24","name":"Company shutdown"}]}', '--json']);
+    expect(r.code).toBe(0);
+    expect(lines(r.out)[0]).toMatchObject({ businessDay: false, holidays: 'Company shutdown' });
+    const missing = await cli(['business-day', '2025-12-24', '--calendar', 'no-such-file.json']);
+    expect(missing.code).toBe(2);
+    expect(missing.err).toContain('is not a name (us-federal, england-and-wales, euro-t2), JSON text starting with "{", "-" for standard input, or an existing file');
+  });
+
+  it('the caution comes first, so a reader that stops early still sees it', async () => {
+    const r = await cli(['holidays', '--year', '2025', '--calendar', 'us-federal']);
+    expect(r.err).toMatch(/^note: holiday calendars change by proclamation/);
   });
 });

@@ -50,11 +50,50 @@ describe('kalends schedule', () => {
   });
 });
 
+describe('kalends schedule: the one form of definitions, and bounds', () => {
+  it('reads the rule from standard input with "-", like every definition option', async () => {
+    const r = await cli(['schedule', '-', '--from', '2024-02-01', '--to', '2024-03-01', '--json'], '{"kind":"semi-monthly","days":[15,"last"]}\n');
+    expect(r.code).toBe(0);
+    // The last day of February 2024, from @js-temporal/polyfill (PlainDate.daysInMonth).
+    const last = `2024-02-${Temporal.PlainDate.from('2024-02-01').daysInMonth}`;
+    expect(r.out.trim().split('\n').map((l) => (JSON.parse(l) as { date: string }).date)).toEqual(['2024-02-15', last]);
+  });
+
+  it('--end-inclusive includes an occurrence on --to; it does not go with --count', async () => {
+    const rule = '{"kind":"semi-monthly","days":[15,"last"]}';
+    const open = await cli(['schedule', rule, '--from', '2024-03-01', '--to', '2024-03-15']);
+    expect(open.out).toBe('');
+    const closed = await cli(['schedule', rule, '--from', '2024-03-01', '--to', '2024-03-15', '--end-inclusive']);
+    expect(closed.out.trim().split('\n')).toEqual(['date        weekday', '2024-03-15  Friday']);
+    expect(Temporal.PlainDate.from('2024-03-15').dayOfWeek).toBe(5);
+    const both = await cli(['schedule', rule, '--from', '2024-03-01', '--count', '2', '--end-inclusive']);
+    expect(both.code).toBe(2);
+  });
+
+  it('a rule that is neither JSON, RFC 5545 nor a file says which forms are valid; bounds are usage errors', async () => {
+    const r = await cli(['schedule', 'every friday', '--from', '2025-01-01', '--count', '1']);
+    expect(r.code).toBe(2);
+    expect(r.err).toContain('is not JSON text starting with "{", RFC 5545 text (with FREQ=), "-" for standard input, or an existing file');
+    const to = await cli(['schedule', '{"kind":"days"}', '--from', '2025-01-01', '--to', 'someday']);
+    expect(to.code).toBe(2);
+    expect(to.err).toMatch(/^kalends schedule: --to: /);
+    const back = await cli(['schedule', '{"kind":"days"}', '--from', '2025-01-02', '--to', '2025-01-01']);
+    expect(back.code).toBe(2);
+  });
+});
+
 describe('kalends explain-rule', () => {
   it('explains a rule in words with its RFC 5545 text', async () => {
     const r = await cli(['explain-rule', '{"kind":"weekly","weekdays":["friday"],"every":2,"anchor":"2025-01-03"}']);
     expect(r.code).toBe(0);
     expect(r.out).toBe('Friday of every 2nd week, counted from the week of 2025-01-03\nRFC 5545:\nDTSTART;VALUE=DATE:20250103\nRRULE:FREQ=WEEKLY;INTERVAL=2;BYDAY=FR\n');
+  });
+
+  it("names the CLI's own options in library messages (--start, not options.start)", async () => {
+    const r = await cli(['explain-rule', 'FREQ=DAILY']);
+    expect(r.code).toBe(1);
+    expect(r.err).toContain('(or --start)');
+    expect(r.err).not.toContain('options.');
   });
 
   it('--json, and a rule with no RFC 5545 form', async () => {

@@ -11,7 +11,16 @@ async function run(argv: string[], input: string, chunk = 7, tty = false, delayM
       yield new TextEncoder().encode(input.slice(i, i + chunk));
     }
   }
-  const code = await runCli(argv, { stdin: stdin(), stdout: (t) => (out += t), stderr: (t) => (err += t), stderrIsTty: tty });
+  const code = await runCli(argv, {
+    stdin: stdin(),
+    stdout: (t) => {
+      out += t;
+    },
+    stderr: (t) => {
+      err += t;
+    },
+    stderrIsTty: tty,
+  });
   return { code, out, err };
 }
 
@@ -53,9 +62,9 @@ describe('kalends bucket (in-process, fake stdin)', () => {
     expect(r.err).toContain('"not-a-time"');
   });
 
-  it('skips malformed rows with --on-bad-row skip, counting them on stderr, exit code 0', async () => {
+  it('skips malformed rows with --malformed skip, counting them on stderr, exit code 0', async () => {
     const bad = `${CSV}\nnot-a-time,4\n2025-03-21T00:00:00Z,x\n2025-03-22T00:00:00Z`;
-    const r = await run(['bucket', '--unit', 'month', '--zone', 'UTC', '--on-bad-row', 'skip'], bad);
+    const r = await run(['bucket', '--unit', 'month', '--zone', 'UTC', '--malformed', 'skip'], bad);
     expect(r.code).toBe(0);
     expect(r.err).toContain('skipped 3 malformed rows (first: line 7');
     expect(r.out).toContain('2025-03,');
@@ -74,9 +83,12 @@ describe('kalends bucket (in-process, fake stdin)', () => {
     // US federal fiscal year: begins 1 October, named by the year in which it ends (31 U.S.C. 1102).
     expect(r.out.split('\n')[1]).toMatch(/^FY2025-Q2,/);
     expect((await run(['bucket'], CSV)).code).toBe(2);
-    expect((await run(['bucket', '--unit', 'month', '--on-bad-row', 'maybe'], CSV)).code).toBe(2);
+    expect((await run(['bucket', '--unit', 'month', '--malformed', 'maybe'], CSV)).code).toBe(2);
+    const renamed = await run(['bucket', '--unit', 'month', '--on-bad-row', 'skip'], CSV);
+    expect(renamed.code).toBe(2); // renamed in 0.2, no alias
+    expect(renamed.err).toContain('unknown option "--on-bad-row"');
     const unknown = await run(['bucket', '--unit', 'month', '--aggregate', 'avg'], CSV);
-    expect(unknown.code).toBe(1);
+    expect(unknown.code).toBe(2);
     expect(unknown.err).toMatch(/unknown aggregation "avg"/);
   });
 
@@ -91,5 +103,59 @@ describe('kalends bucket (in-process, fake stdin)', () => {
     const tty = await run(['bucket', '--unit', 'day'], big, chunk, true, 60);
     expect(tty.err).toMatch(/MB read, [\d,]+ rows, [\d,]+ rows\/s/);
     expect(tty.out).toBe(quiet.out);
+  });
+
+  it('--delimiter takes one character or tab; anything else is a usage error that says what is valid', async () => {
+    for (const bad of ['', ';;', '"', '\n']) {
+      const r = await run(['bucket', '--unit', 'day', '--delimiter', bad], CSV);
+      expect(r.code, JSON.stringify(bad)).toBe(2);
+      expect(r.err).toContain('--delimiter: expected one character other than a quote or a line end (such as ";" or "|"), or the word tab');
+      expect(r.err).not.toMatch(/Invalid option|CSV_/);
+    }
+    const semi = await run(['bucket', '--unit', 'month', '--delimiter', ';'], 'at;amount\n2025-03-01T05:00:00Z;20\n');
+    expect(semi.code).toBe(0);
+    expect(semi.out.split('\n')[1]).toMatch(/^2025-03,.*,1,20$/);
+    const tab = await run(['bucket', '--unit', 'month', '--delimiter', 'tab'], 'at\tamount\n2025-03-01T05:00:00Z\t20\n');
+    expect(tab.out.split('\n')[1]).toMatch(/^2025-03,.*,1,20$/);
+  });
+
+  it('a CSV with another delimiter gets a hint naming --delimiter', async () => {
+    const semi = await run(['bucket', '--unit', 'month'], 'at;amount\n2025-03-01T05:00:00Z;20\n');
+    expect(semi.code).toBe(1);
+    expect(semi.err).toContain(`the row has one field holding ";": if the file is separated by it, add --delimiter ';'`);
+    const tab = await run(['bucket', '--unit', 'month', '--malformed', 'skip'], 'at\tamount\n2025-03-01T05:00:00Z\t20\n');
+    expect(tab.err).toContain('add --delimiter tab');
+    const plain = await run(['bucket', '--unit', 'month'], 'at,amount\n2025-03-01T05:00:00Z\n');
+    expect(plain.err).not.toContain('--delimiter');
+  });
+
+  it('broken CSV stops even with --malformed skip: the rows after a stray quote are never silently lost', async () => {
+    // With its own skipping, the CSV reader would drop every row after x,"y"z. RFC 4180 section 2, rules 5 to 7:
+    // double quotes enclose a whole field, so the row is broken CSV, not merely a malformed row.
+    const r = await run(['bucket', '--unit', 'month', '--malformed', 'skip'], 'at,v\n2025-01-01T00:00:00Z,1\nx,"y"z\n2025-01-02T00:00:00Z,2\n', 1_000);
+    expect(r.code).toBe(1);
+    expect(r.err).toBe('kalends bucket: malformed CSV at line 3: text right after a closing quote; stopped\n');
+    expect(r.out).toBe('');
+  });
+
+  it(`--range over more periods than the threshold needs --max-rows, named in the message`, async () => {
+    // 10,000 years of days: 3,652,425 periods (400 Gregorian years have 146,097 days: 25 cycles).
+    const r = await run(['bucket', '--unit', 'day', '--range', '2000-01-01..+012000-01-01'], '');
+    expect(r.code).toBe(2);
+    expect(r.err).toBe('kalends bucket: --range 2000-01-01..+012000-01-01 holds 3652425 periods, more than 100000 (the most without --max-rows); narrow --range or allow them with --max-rows 3652425\n');
+    const ok = await run(['bucket', '--unit', 'month', '--range', '2025-01..2025-04', '--max-rows', '3', '--json'], CSV);
+    expect(ok.code).toBe(0);
+    expect(ok.out.trim().split('\n')).toHaveLength(3);
+    const short = await run(['bucket', '--unit', 'month', '--range', '2025-01..2025-04', '--max-rows', '2'], CSV);
+    expect(short.code).toBe(2);
+    expect(short.err).toContain('holds 3 periods, more than 2 (--max-rows)');
+  });
+
+  it('names start and end as kalends period does, and --json adds them as epoch milliseconds', async () => {
+    const r = await run(['bucket', '--unit', 'month', '--zone', 'America/New_York', '--json'], CSV);
+    const first = JSON.parse(r.out.split('\n')[0]!) as Record<string, unknown>;
+    expect(first).toMatchObject({ period: '2025-01', start: '2025-01-01T00:00:00-05:00', end: '2025-02-01T00:00:00-05:00' });
+    expect(first['startEpochMs']).toBe(Date.parse('2025-01-01T00:00:00-05:00')); // ECMA-262 Date.parse
+    expect(first['endEpochMs']).toBe(Date.parse('2025-02-01T00:00:00-05:00'));
   });
 });

@@ -1,5 +1,6 @@
 /** The zone commands, run in-process through runCli. Expected values follow IANA tz data (see facts.test.ts). */
 import { describe, expect, it } from 'vitest';
+import { MAX_REFUSED } from '../../src/cli/kit.js';
 import { cli as run } from '../cli/helpers.js';
 
 
@@ -19,10 +20,10 @@ describe('kalends zone-at', () => {
     expect(r.out).toContain('1970-01-01T05:30:00');
     expect(r.out.split('\n')[0]).toMatch(/^input\s+utc\s+local\s+offset\s+localDate/);
   });
-  it('a missing --zone is a usage error (exit 2); a bad zone names it (exit 1)', async () => {
+  it('a missing or unknown --zone is a usage error (exit 2), with a suggestion', async () => {
     expect((await run(['zone-at', '0'])).code).toBe(2);
     const bad = await run(['zone-at', '0', '--zone', 'Europe/Londn']);
-    expect(bad.code).toBe(1);
+    expect(bad.code).toBe(2);
     expect(bad.err).toContain('did you mean "Europe/London"');
   });
 });
@@ -40,8 +41,16 @@ describe('kalends zone-resolve', () => {
     expect(lines(later.out)[0]!.instant).toBe('2025-11-02T01:30:00-05:00');
     const reject = await run(['zone-resolve', '2025-03-09T02:30', '--zone', 'America/New_York', '--disambiguation', 'reject', '--json']);
     expect(reject.code).toBe(1);
-    expect(lines(reject.out)[0]!.note).toMatch(/does not exist in America\/New_York/);
+    // In shell words: the local date-time text and the option to use, never the library's wallMs.
+    expect(lines(reject.out)[0]!.note).toBe(
+      '2025-03-09T02:30:00 does not exist in America/New_York: the clocks went from 2025-03-09T02:00:00 to 2025-03-09T03:00:00; --disambiguation compatible, earlier or later picks an instant',
+    );
+    const twice = await run(['zone-resolve', '2025-11-02T01:30', '--zone', 'America/New_York', '--disambiguation', 'reject']);
+    expect(twice.code).toBe(1);
+    expect(twice.out).toContain('2025-11-02T01:30:00 happened twice in America/New_York');
+    expect(twice.out + twice.err).not.toMatch(/wallMs|epochMs|Error/);
     expect((await run(['zone-resolve', 'x', '--zone', 'UTC', '--disambiguation', 'sometimes'])).code).toBe(2);
+    expect((await run(['zone-resolve', 'x', '--zone', 'UTC', '--disambiguation', 'eralier'])).err).toContain('did you mean "earlier"?');
   });
 });
 
@@ -58,5 +67,27 @@ describe('kalends zone-changes', () => {
     const r = await run(['zone-changes', '--from', '2024', '--to', '2025'], 'Europe/Dublin\nAsia/Tokyo\n');
     expect(r.code).toBe(0);
     expect(r.out.trim().split('\n').length).toBe(3); // header + two Dublin rows; Tokyo has none
+  });
+  it('bounds work: at most the stated number of refused zone ids, each suggestion on bounded text', async () => {
+    const many = Array.from({ length: 200_000 }, (_, i) => `Europe/Nowhere${i}`).join('\n');
+    const r = await run(['zone-changes', '--from', '2025', '--to', '2026'], many);
+    expect(r.code).toBe(1);
+    expect(r.err.trim().split('\n')).toHaveLength(MAX_REFUSED + 1);
+    expect(r.err).toContain(`stopped after ${MAX_REFUSED} refused zone ids (at line ${MAX_REFUSED})`);
+  });
+
+  it('a malformed --from is a usage error before any zone is read', async () => {
+    const r = await run(['zone-changes', 'Europe/Dublin', '--from', 'soon']);
+    expect(r.code).toBe(2);
+    expect(r.err).toMatch(/^kalends zone-changes: --from: /);
+  });
+
+  it('long ranges stream in windows: transitions across 400-year windows all appear once', async () => {
+    // IANA tz data, europe file: Europe/Dublin changes its offset on the EU dates, twice a year, in every future year.
+    const r = await run(['zone-changes', 'Europe/Dublin', '--from', '2001', '--to', '3001-01-01', '--json']);
+    expect(r.code).toBe(0);
+    const rows = lines(r.out);
+    expect(rows).toHaveLength(2 * 1000);
+    expect(new Set(rows.map((x) => x.at)).size).toBe(rows.length);
   });
 });

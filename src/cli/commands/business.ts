@@ -5,14 +5,13 @@
  *
  * @module
  */
-import { existsSync, readFileSync } from 'node:fs';
 import {
   BUNDLED_CALENDAR_NAMES,
   BUSINESS_DAY_CONVENTIONS,
+  MAX_DAY_NUMBER,
+  MIN_DAY_NUMBER,
   type BusinessCalendar,
-  type BusinessDayConvention,
   type CalendarDefinition,
-  UnknownCalendarError,
   adjustDayNumber,
   calendarFromName,
   countBusinessDays,
@@ -25,89 +24,94 @@ import {
   parsePlainDate,
   previousBusinessDay,
   shiftBusinessDays,
-  weekdayOfDayNumber,
 } from '../../index.js';
 import {
   type CliIo,
   type Command,
+  type OptionSpec,
   type ParsedArgs,
+  type Row,
+  InputError,
+  JSON_OPTION,
+  Output,
   RowWriter,
   UsageError,
-  inputValues,
+  writeRowsPerValue,
+  optionChoice,
   optionFlag,
+  optionInteger,
   optionString,
-  rejectUnknownOptions,
+  parseDefinitionJson,
+  readDefinitionSource,
+  shellMessage,
+  weekdayTitle,
 } from '../kit.js';
 
-const WEEKDAYS = ['Monday', 'Tuesday', 'Wednesday', 'Thursday', 'Friday', 'Saturday', 'Sunday'] as const;
-
-const CALENDAR_HELP = `  --calendar <name|file>  A bundled calendar (${BUNDLED_CALENDAR_NAMES.join(', ')}) or a JSON file
-                          holding a calendar definition (see docs/business-days.md). Required.`;
+const CALENDAR_OPTION: OptionSpec = {
+  name: 'calendar',
+  value: '<calendar>',
+  text: `a bundled calendar (${BUNDLED_CALENDAR_NAMES.join(', ')}), a calendar definition as JSON text, the path of a JSON file holding one, or "-" for standard input (see docs/business-days.md). Required.`,
+};
 
 const CAUTION_NOTE =
   'note: holiday calendars change by proclamation; verify dates against the official calendar of the jurisdiction.\n';
 
-/** The calendar named by --calendar: a bundled name, or a JSON definition file. */
-function calendarOption(args: ParsedArgs): BusinessCalendar {
+/** The calendar of --calendar, in the kit's one form: a bundled name, JSON text, "-" or a JSON file. */
+async function calendarOption(args: ParsedArgs, io: CliIo): Promise<BusinessCalendar> {
   const value = optionString(args, 'calendar');
   if (value === undefined) {
-    throw new UsageError(
-      `--calendar is required: a bundled calendar (${BUNDLED_CALENDAR_NAMES.join(', ')}) or a JSON definition file`,
-    );
+    throw new UsageError(`--calendar is required: a bundled calendar (${BUNDLED_CALENDAR_NAMES.join(', ')}), a definition as JSON text, or a JSON file`);
   }
-  if ((BUNDLED_CALENDAR_NAMES as readonly string[]).includes(value)) return calendarFromName(value);
-  if (existsSync(value)) {
-    let def: unknown;
-    try {
-      def = JSON.parse(readFileSync(value, 'utf8'));
-    } catch (e) {
-      throw new UsageError(`--calendar ${value}: not a readable JSON file (${e instanceof Error ? e.message : String(e)})`);
-    }
-    return defineCalendar(def as CalendarDefinition);
-  }
-  const suggestions = new UnknownCalendarError(value, '--calendar').suggestions;
-  throw new UsageError(
-    `--calendar: no bundled calendar and no file named ${JSON.stringify(value)}${suggestions.length ? `; did you mean ${suggestions.map((s) => JSON.stringify(s)).join(' or ')}?` : ''} (bundled calendars: ${BUNDLED_CALENDAR_NAMES.join(', ')})`,
-  );
+  const source = await readDefinitionSource(value, '--calendar', io, { names: BUNDLED_CALENDAR_NAMES });
+  if ('name' in source) return calendarFromName(source.name);
+  return defineCalendar(parseDefinitionJson(source, '--calendar') as CalendarDefinition);
 }
 
-function weekdayName(dayNumber: number): string {
-  return WEEKDAYS[weekdayOfDayNumber(dayNumber) - 1]!;
-}
-
-function integerOption(args: ParsedArgs, name: string): number | undefined {
-  const v = optionString(args, name);
-  if (v === undefined) return undefined;
-  if (!/^[+-]?\d+$/.test(v)) throw new UsageError(`--${name}: expected an integer, got ${JSON.stringify(v)}`);
-  return Number(v);
-}
-
+/** The caution goes first, so that it is seen even when the reader stops early (| head). */
 function caution(io: CliIo, json: boolean): void {
   if (!json) io.stderr(CAUTION_NOTE);
 }
 
+/**
+ * Runs a command that writes one row per date (arguments, or lines of stdin) on the calendar of --calendar,
+ * after the caution. `row` gives the row of one date.
+ */
+async function rowsPerDate(
+  args: ParsedArgs,
+  io: CliIo,
+  command: string,
+  columns: readonly string[],
+  row: (cal: BusinessCalendar, dayNumber: number) => Row,
+): Promise<number> {
+  const cal = await calendarOption(args, io);
+  caution(io, optionFlag(args, 'json'));
+  return writeRowsPerValue(args, io, { command, noun: 'dates', columns, handle: (text, writer) => writer.write(row(cal, parsePlainDate(text))) });
+}
+
+/** A date argument of a range: a usage error names it. */
+function dateArgument(text: string, what: string): number {
+  try {
+    return parsePlainDate(text);
+  } catch (e) {
+    throw new UsageError(`${what}: ${shellMessage(e)}`);
+  }
+}
+
+/** Holidays are listed in windows of 100 years, so that any range streams in bounded memory. */
+const HOLIDAY_WINDOW_DAYS = 36_525;
+
 const holidays: Command = {
   name: 'holidays',
   summary: 'List the holidays of a business calendar in a range, with observed and actual dates',
-  valueOptions: ['calendar', 'year'],
-  help: `Usage: kalends holidays <start> <end> --calendar <name|file> [--json]
-       kalends holidays --year <year> --calendar <name|file> [--json]
-
-Lists the holidays observed in [start, end) (end-exclusive) or in one calendar year, in date order: the day
+  usage: ['<start> <end> --calendar <calendar> [--json]', '--year <year> --calendar <calendar> [--json]'],
+  description: `Lists the holidays observed in [start, end) (end-exclusive) or in one calendar year, in date order: the day
 each holiday is observed, its name, the date its rule gives, and whether it was moved off a weekend.
-
-${CALENDAR_HELP}
-  --year <year>           The whole calendar year instead of <start> <end>.
-  --json                  One JSON object per line.
-
-Example:
-  kalends holidays --year 2022 --calendar england-and-wales
-`,
+Long ranges are streamed.`,
+  options: [CALENDAR_OPTION, { name: 'year', value: '<year>', text: 'the whole calendar year instead of <start> <end>' }, JSON_OPTION],
+  examples: ['kalends holidays --year 2022 --calendar england-and-wales', 'kalends holidays 2025-01-01 2030-01-01 --calendar us-federal --json'],
   async run(args, io) {
-    rejectUnknownOptions(args, ['calendar', 'year']);
     const json = optionFlag(args, 'json');
-    const cal = calendarOption(args);
-    const year = integerOption(args, 'year');
+    const year = optionInteger(args, 'year', -271820, 275759);
     let start: number;
     let end: number;
     if (year !== undefined) {
@@ -115,24 +119,32 @@ Example:
       start = dayNumberFromYmd(year, 1, 1);
       end = dayNumberFromYmd(year + 1, 1, 1);
     } else {
-      if (args.positionals.length !== 2) throw new UsageError('expected <start> <end> (end-exclusive) or --year <year>');
-      start = parsePlainDate(args.positionals[0]!);
-      end = parsePlainDate(args.positionals[1]!);
+      if (args.positionals.length !== 2) throw new UsageError(`expected <start> <end> (end-exclusive) or --year <year>, got ${args.positionals.length} arguments`);
+      start = dateArgument(args.positionals[0]!, '<start>');
+      end = dateArgument(args.positionals[1]!, '<end>');
+      if (end < start) throw new UsageError(`<end> ${args.positionals[1]} is before <start> ${args.positionals[0]}; the range is [start, end)`);
     }
-    const out = new RowWriter(io, json, ['date', 'weekday', 'name', 'actualDate', 'moved', 'oneOff']);
-    for (const h of listHolidays(cal, start, end)) {
-      out.write({
-        calendar: cal.id,
-        date: h.date,
-        weekday: weekdayName(h.dayNumber),
-        name: h.name,
-        actualDate: h.actualDate,
-        moved: h.moved,
-        oneOff: h.oneOff,
-      });
-    }
-    out.end();
+    const cal = await calendarOption(args, io);
+    // Checks both ends against the calendar's years before anything is written.
+    listHolidays(cal, start, start);
+    listHolidays(cal, end, end);
     caution(io, json);
+    const out = new Output(io);
+    const writer = new RowWriter(out, json, ['date', 'weekday', 'name', 'actualDate', 'moved', 'oneOff']);
+    for (let lo = start; lo < end; lo += HOLIDAY_WINDOW_DAYS) {
+      for (const h of listHolidays(cal, lo, Math.min(end, lo + HOLIDAY_WINDOW_DAYS))) {
+        await writer.write({
+          calendar: cal.id,
+          date: h.date,
+          weekday: weekdayTitle(h.dayNumber),
+          name: h.name,
+          actualDate: h.actualDate,
+          moved: h.moved,
+          oneOff: h.oneOff,
+        });
+      }
+    }
+    await writer.end();
     return 0;
   },
 };
@@ -140,166 +152,99 @@ Example:
 const businessDay: Command = {
   name: 'business-day',
   summary: 'Say whether dates are business days, with the holiday names and the next and previous business days',
-  valueOptions: ['calendar'],
-  help: `Usage: kalends business-day <date>... --calendar <name|file> [--json]
-
-For each date (arguments, or one per line on stdin): whether it is a business day, the holidays observed on it,
-and the next and previous business days (strictly after and before).
-
-${CALENDAR_HELP}
-  --json                  One JSON object per line.
-
-Example:
-  kalends business-day 2025-07-04 2025-07-07 --calendar us-federal
-`,
-  async run(args, io) {
-    rejectUnknownOptions(args, ['calendar']);
-    const json = optionFlag(args, 'json');
-    const cal = calendarOption(args);
-    const out = new RowWriter(io, json, ['date', 'weekday', 'businessDay', 'holidays', 'previous', 'next']);
-    for await (const text of inputValues(args, io)) {
-      const dn = parsePlainDate(text);
+  usage: ['[<date>...] --calendar <calendar> [--json]'],
+  description: `For each date (arguments, or one per line on standard input): whether it is a business day, the holidays
+observed on it, and the next and previous business days (strictly after and before).`,
+  options: [CALENDAR_OPTION, JSON_OPTION],
+  examples: ['kalends business-day 2025-07-04 2025-07-07 --calendar us-federal'],
+  run(args, io) {
+    return rowsPerDate(args, io, 'business-day', ['date', 'weekday', 'businessDay', 'holidays', 'previous', 'next'], (cal, dn) => {
       const names = listHolidays(cal, dn, dn + 1).map((h) => (h.moved ? `${h.name} (observed)` : h.name));
-      out.write({
+      return {
         date: formatPlainDate(dn),
-        weekday: weekdayName(dn),
+        weekday: weekdayTitle(dn),
         businessDay: isBusinessDay(cal, dn),
         holidays: names.length ? names.join('; ') : null,
         previous: formatPlainDate(previousBusinessDay(cal, dn)),
         next: formatPlainDate(nextBusinessDay(cal, dn)),
-      });
-    }
-    out.end();
-    caution(io, json);
-    return 0;
+      };
+    });
   },
 };
+
+/** The widest shift that can stay within the supported days. */
+const MAX_SHIFT = MAX_DAY_NUMBER - MIN_DAY_NUMBER;
 
 const businessShift: Command = {
   name: 'business-shift',
   summary: 'Move dates by a number of business days (negative: back)',
-  valueOptions: ['calendar', 'by'],
-  help: `Usage: kalends business-shift <date>... --by <n> --calendar <name|file> [--json]
-
-Moves each date (arguments, or one per line on stdin) by n business days: n > 0 counts business days strictly
-after the date, n < 0 strictly before it, n = 0 gives the date itself if it is a business day, else the next one.
-
-${CALENDAR_HELP}
-  --by <n>                Business days to move (an integer, may be negative). Required.
-  --json                  One JSON object per line.
-
-Example:
-  kalends business-shift 2025-12-23 --by 2 --calendar us-federal
-`,
-  async run(args, io) {
-    rejectUnknownOptions(args, ['calendar', 'by']);
-    const json = optionFlag(args, 'json');
-    const cal = calendarOption(args);
-    const by = integerOption(args, 'by');
+  usage: ['[<date>...] --by <n> --calendar <calendar> [--json]'],
+  description: `Moves each date (arguments, or one per line on standard input) by n business days: n > 0 counts business
+days strictly after the date, n < 0 strictly before it, n = 0 gives the date itself if it is a business
+day, else the next one.`,
+  options: [CALENDAR_OPTION, { name: 'by', value: '<n>', text: 'business days to move (a whole number, may be negative). Required.' }, JSON_OPTION],
+  examples: ['kalends business-shift 2025-12-23 --by 2 --calendar us-federal', 'kalends business-shift 2025-12-26 --by=-2 --calendar us-federal'],
+  run(args, io) {
+    const by = optionInteger(args, 'by', -MAX_SHIFT, MAX_SHIFT);
     if (by === undefined) throw new UsageError('--by <n> is required (the number of business days to move)');
-    const out = new RowWriter(io, json, ['date', 'by', 'result', 'weekday']);
-    for await (const text of inputValues(args, io)) {
-      const dn = parsePlainDate(text);
+    return rowsPerDate(args, io, 'business-shift', ['date', 'by', 'result', 'weekday'], (cal, dn) => {
       const r = shiftBusinessDays(cal, dn, by);
-      out.write({ date: formatPlainDate(dn), by, result: formatPlainDate(r), weekday: weekdayName(r) });
-    }
-    out.end();
-    caution(io, json);
-    return 0;
+      return { date: formatPlainDate(dn), by, result: formatPlainDate(r), weekday: weekdayTitle(r) };
+    });
   },
 };
 
 const businessCount: Command = {
   name: 'business-count',
   summary: 'Count the business days in [start, end) (end-exclusive)',
-  valueOptions: ['calendar'],
-  help: `Usage: kalends business-count <start> <end> --calendar <name|file> [--json]
-
-Counts the business days from start (included) to end (excluded). With no arguments, reads one "start end" pair
-per line from stdin (separated by a space or a comma). When end is before start the count is negative.
-
-${CALENDAR_HELP}
-  --json                  One JSON object per line.
-
-Example:
-  kalends business-count 2025-01-01 2026-01-01 --calendar euro-t2
-`,
+  usage: ['[<start> <end>]... --calendar <calendar> [--json]'],
+  description: `Counts the business days from start (included) to end (excluded). With no arguments, reads one "start end"
+pair per line from standard input (separated by a space or a comma). When end is before start the count is
+negative.`,
+  options: [CALENDAR_OPTION, JSON_OPTION],
+  examples: ['kalends business-count 2025-01-01 2026-01-01 --calendar euro-t2', "printf '2025-01-01,2026-01-01\\n' | kalends business-count --calendar us-federal --json"],
   async run(args, io) {
-    rejectUnknownOptions(args, ['calendar']);
-    const json = optionFlag(args, 'json');
-    const cal = calendarOption(args);
-    const pairs: [string, string][] = [];
-    if (args.positionals.length > 0) {
-      if (args.positionals.length % 2 !== 0) throw new UsageError('expected pairs of dates: <start> <end>');
-      for (let i = 0; i < args.positionals.length; i += 2) pairs.push([args.positionals[i]!, args.positionals[i + 1]!]);
-    }
-    const out = new RowWriter(io, json, ['start', 'end', 'businessDays', 'calendarDays']);
-    const emit = (a: string, b: string) => {
-      const start = parsePlainDate(a);
-      const end = parsePlainDate(b);
-      out.write({ start: formatPlainDate(start), end: formatPlainDate(end), businessDays: countBusinessDays(cal, start, end), calendarDays: end - start });
-    };
-    if (pairs.length > 0) for (const [a, b] of pairs) emit(a, b);
-    else {
-      for await (const line of inputValues(args, io)) {
+    if (args.positionals.length % 2 !== 0) throw new UsageError(`expected pairs of dates <start> <end>, got ${args.positionals.length} arguments`);
+    const pairs: string[] = [];
+    for (let i = 0; i < args.positionals.length; i += 2) pairs.push(`${args.positionals[i]} ${args.positionals[i + 1]}`);
+    const cal = await calendarOption(args, io);
+    caution(io, optionFlag(args, 'json'));
+    return writeRowsPerValue({ positionals: pairs, options: args.options }, io, {
+      command: 'business-count',
+      noun: 'pairs',
+      columns: ['start', 'end', 'businessDays', 'calendarDays'],
+      handle(line, writer) {
         const parts = line.split(/[\s,]+/).filter((p) => p !== '');
-        if (parts.length !== 2) throw new UsageError(`expected "start end" on each input line, got ${JSON.stringify(line)}`);
-        emit(parts[0]!, parts[1]!);
-      }
-    }
-    out.end();
-    caution(io, json);
-    return 0;
+        if (parts.length !== 2) throw new InputError(`expected "start end" (two dates separated by a space or a comma), got ${parts.length} fields`);
+        const start = parsePlainDate(parts[0]!);
+        const end = parsePlainDate(parts[1]!);
+        return writer.write({ start: formatPlainDate(start), end: formatPlainDate(end), businessDays: countBusinessDays(cal, start, end), calendarDays: end - start });
+      },
+    });
   },
 };
 
 const adjust: Command = {
   name: 'adjust',
   summary: 'Adjust dates that fall on non-business days by a business-day convention',
-  valueOptions: ['calendar', 'convention'],
-  help: `Usage: kalends adjust <date>... --convention <convention> --calendar <name|file> [--json]
-
-Adjusts each date (arguments, or one per line on stdin) by a business-day convention; business days are never
-moved. Conventions (ISDA 2006 Definitions, section 4.12, plus modified preceding, which is common practice):
+  usage: ['[<date>...] --convention <convention> --calendar <calendar> [--json]'],
+  description: `Adjusts each date (arguments, or one per line on standard input) by a business-day convention; business days
+are never moved. Conventions (ISDA 2006 Definitions, section 4.12, plus modified preceding, which is common
+practice):
   following            the next business day
   modified-following   the next business day, unless it is in the next month: then the previous one
   preceding            the previous business day
   modified-preceding   the previous business day, unless it is in the previous month: then the next one
-  none                 no adjustment
-
-${CALENDAR_HELP}
-  --convention <name>     One of ${BUSINESS_DAY_CONVENTIONS.join(', ')}. Required.
-  --json                  One JSON object per line.
-
-Example:
-  kalends adjust 2026-01-31 --convention modified-following --calendar us-federal
-`,
-  async run(args, io) {
-    rejectUnknownOptions(args, ['calendar', 'convention']);
-    const json = optionFlag(args, 'json');
-    const cal = calendarOption(args);
-    const convention = optionString(args, 'convention');
-    if (convention === undefined || !(BUSINESS_DAY_CONVENTIONS as readonly string[]).includes(convention)) {
-      throw new UsageError(
-        `--convention: expected one of ${BUSINESS_DAY_CONVENTIONS.join(', ')}${convention === undefined ? '' : `, got ${JSON.stringify(convention)}`}`,
-      );
-    }
-    const out = new RowWriter(io, json, ['date', 'weekday', 'convention', 'adjusted', 'adjustedWeekday', 'moved']);
-    for await (const text of inputValues(args, io)) {
-      const dn = parsePlainDate(text);
-      const r = adjustDayNumber(cal, dn, convention as BusinessDayConvention);
-      out.write({
-        date: formatPlainDate(dn),
-        weekday: weekdayName(dn),
-        convention,
-        adjusted: formatPlainDate(r),
-        adjustedWeekday: weekdayName(r),
-        moved: r !== dn,
-      });
-    }
-    out.end();
-    caution(io, json);
-    return 0;
+  none                 no adjustment`,
+  options: [CALENDAR_OPTION, { name: 'convention', value: '<name>', text: `one of ${BUSINESS_DAY_CONVENTIONS.join(', ')}. Required.` }, JSON_OPTION],
+  examples: ['kalends adjust 2026-01-31 --convention modified-following --calendar us-federal'],
+  run(args, io) {
+    const convention = optionChoice(args, 'convention', BUSINESS_DAY_CONVENTIONS);
+    if (convention === undefined) throw new UsageError(`--convention is required: one of ${BUSINESS_DAY_CONVENTIONS.join(', ')}`);
+    return rowsPerDate(args, io, 'adjust', ['date', 'weekday', 'convention', 'adjusted', 'adjustedWeekday', 'moved'], (cal, dn) => {
+      const r = adjustDayNumber(cal, dn, convention);
+      return { date: formatPlainDate(dn), weekday: weekdayTitle(dn), convention, adjusted: formatPlainDate(r), adjustedWeekday: weekdayTitle(r), moved: r !== dn };
+    });
   },
 };
 

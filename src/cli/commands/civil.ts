@@ -27,16 +27,12 @@ import {
   type Command,
   type ParsedArgs,
   type Row,
-  RowWriter,
-  UsageError,
-  errorMessage,
-  inputValues,
-  optionFlag,
-  optionString,
-  rejectUnknownOptions,
+  JSON_OPTION,
+  InputError,
+  optionChoice,
+  weekdayTitle,
+  writeRowsPerValue,
 } from '../kit.js';
-
-const WEEKDAY_NAMES = ['Monday', 'Tuesday', 'Wednesday', 'Thursday', 'Friday', 'Saturday', 'Sunday'] as const;
 
 /** How a bare integer on the command line is read (`--numbers`). */
 type NumberReading = 'epoch-ms' | 'epoch-seconds' | 'day-number';
@@ -51,7 +47,7 @@ function dateFacts(dayNumber: number): Record<string, string | number | boolean>
   const weekday = weekdayOfDayNumber(dayNumber);
   return {
     date: formatPlainDate(dayNumber),
-    weekday: WEEKDAY_NAMES[weekday - 1]!,
+    weekday: weekdayTitle(dayNumber),
     weekdayNumber: weekday,
     isoWeek: formatIsoWeekDate(dayNumber),
     dayOfYear: dayOfYearOfDayNumber(dayNumber),
@@ -82,7 +78,7 @@ function describeInstant(input: string, epochMs: number, offsetSeconds: number |
 function describeValue(input: string, numbers: NumberReading | undefined): Row {
   if (/^[+-]?\d+$/.test(input)) {
     if (numbers === undefined) {
-      throw new UsageError(`${JSON.stringify(input)} is a bare number, which could be epoch ms, epoch seconds or a day number; say which with --numbers ${NUMBER_READINGS.join('|')}`);
+      throw new InputError(`a bare number, which could be epoch ms, epoch seconds or a day number; say which with --numbers ${NUMBER_READINGS.join('|')}`);
     }
     const n = Number(input);
     if (numbers === 'day-number') {
@@ -119,10 +115,8 @@ function describeValue(input: string, numbers: NumberReading | undefined): Row {
 const describe: Command = {
   name: 'describe',
   summary: 'Convert and describe dates and instants (ISO week, weekday, day of year, day number)',
-  valueOptions: ['numbers'],
-  help: `kalends describe [value ...] [--numbers epoch-ms|epoch-seconds|day-number] [--json]
-
-Describes each value: its ISO date, weekday (name and number, 1 = Monday), ISO week date (2025-W07-5),
+  usage: ['[<value>...] [--numbers epoch-ms|epoch-seconds|day-number] [--json]'],
+  description: `Describes each value: its ISO date, weekday (name and number, 1 = Monday), ISO week date (2025-W07-5),
 day of the year, day number (days since 1970-01-01), whether the year is a leap year, and the days in
 its month. With no values, reads one value per line from standard input.
 
@@ -133,41 +127,16 @@ A value can be
   a local date-time 2025-02-14T09:30 (no offset: described by its own date)
   a number          only with --numbers, which says whether it is epoch-ms, epoch-seconds or a day-number
 
-Options
-  --numbers <kind>  how to read bare integers: epoch-ms, epoch-seconds or day-number
-  --json            one JSON object per line (JSON Lines) instead of a table
-
-A value that cannot be read is reported on standard error, naming it; the others are still described,
-and the exit code is 1.
-
-Examples
-  kalends describe 2025-02-14 2025-W07-5 1996-12-19T16:39:57-08:00
-  printf '2024-02-29\\n2025-045\\n' | kalends describe --json
-  kalends describe 1739525400000 --numbers epoch-ms
-`,
+A value that cannot be read is named on standard error; the others are still described.`,
+  options: [{ name: 'numbers', value: '<kind>', text: 'how to read bare integers: epoch-ms, epoch-seconds or day-number' }, JSON_OPTION],
+  examples: [
+    'kalends describe 2025-02-14 2025-W07-5 1996-12-19T16:39:57-08:00',
+    "printf '2024-02-29\\n2025-045\\n' | kalends describe --json",
+    'kalends describe 1739525400000 --numbers epoch-ms',
+  ],
   async run(args: ParsedArgs, io: CliIo): Promise<number> {
-    rejectUnknownOptions(args, ['numbers']);
-    const json = optionFlag(args, 'json');
-    const numbersText = optionString(args, 'numbers');
-    if (numbersText !== undefined && !(NUMBER_READINGS as readonly string[]).includes(numbersText)) {
-      throw new UsageError(`--numbers: expected one of ${NUMBER_READINGS.join(', ')}, got ${JSON.stringify(numbersText)}`);
-    }
-    const numbers = numbersText as NumberReading | undefined;
-    const writer = new RowWriter(io, json, TABLE_COLUMNS);
-    let failed = 0;
-    let seen = 0;
-    for await (const value of inputValues(args, io)) {
-      seen++;
-      try {
-        writer.write(describeValue(value, numbers));
-      } catch (e) {
-        failed++;
-        io.stderr(`kalends describe: cannot describe ${JSON.stringify(value)}: ${errorMessage(e)}\n`);
-      }
-    }
-    if (seen === 0) throw new UsageError('no values: give dates or instants as arguments, or one per line on standard input');
-    if (seen > failed) writer.end();
-    return failed > 0 ? 1 : 0;
+    const numbers = optionChoice(args, 'numbers', NUMBER_READINGS);
+    return writeRowsPerValue(args, io, { command: 'describe', noun: 'values', columns: TABLE_COLUMNS, handle: (value, writer) => writer.write(describeValue(value, numbers)) });
   },
 };
 

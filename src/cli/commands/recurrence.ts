@@ -5,7 +5,6 @@
  *
  * @module
  */
-import { existsSync, readFileSync } from 'node:fs';
 import {
   type Rule,
   type RuleDefinition,
@@ -15,98 +14,123 @@ import {
   formatPlainDate,
   formatRecurrenceRule,
   iterateOccurrences,
-  listOccurrences,
   parseRecurrenceRule,
-  weekdayOfDayNumber,
+  toDayNumber,
+  toEpochMs,
 } from '../../index.js';
-import { type CliIo, type Command, type ParsedArgs, RowWriter, UsageError, optionFlag, optionString, rejectUnknownOptions } from '../kit.js';
+import {
+  type CliIo,
+  type Command,
+  type OptionSpec,
+  type ParsedArgs,
+  InputError,
+  JSON_OPTION,
+  Output,
+  RowWriter,
+  UsageError,
+  optionFlag,
+  optionInteger,
+  optionString,
+  parseDefinitionJson,
+  readDefinitionSource,
+  shellMessage,
+  weekdayTitle,
+} from '../kit.js';
 
-const WEEKDAYS = ['Monday', 'Tuesday', 'Wednesday', 'Thursday', 'Friday', 'Saturday', 'Sunday'] as const;
+const RULE_TEXT = `<rule> is a JSON rule definition ('{"kind":"monthly","on":{"day":15}}'), RFC 5545 text
+('DTSTART;VALUE=DATE:20250101\\nRRULE:FREQ=WEEKLY;BYDAY=FR', or a bare 'FREQ=...' with --start),
+the path of a file holding either, or "-" for standard input. See docs/schedules.md for every rule kind.`;
 
-const RULE_HELP = `  <rule>               The rule: a JSON rule definition ('{"kind":"monthly","on":{"day":15}}'),
-                       RFC 5545 text ('DTSTART;VALUE=DATE:20250101\\nRRULE:FREQ=WEEKLY;BYDAY=FR',
-                       or a bare 'FREQ=...' with --start), or a file holding either. "-" reads stdin.
-                       See docs/schedules.md for every rule kind.`;
+/** The most occurrences one schedule lists (also the most --count takes). */
+const MAX_OCCURRENCES = 10_000_000;
 
-async function readAll(io: CliIo): Promise<string> {
-  if (!io.stdin) throw new UsageError('<rule> is "-" but there is no standard input');
-  const decoder = new TextDecoder();
-  let text = '';
-  for await (const chunk of io.stdin) text += typeof chunk === 'string' ? chunk : decoder.decode(chunk, { stream: true });
-  return text + decoder.decode();
-}
+const isRfc5545 = (text: string) => /FREQ=/i.test(text);
 
-/** The rule named by the first positional argument. */
+/** The rule named by the first positional argument: JSON, RFC 5545 text, a file holding either, or "-". */
 async function ruleArgument(args: ParsedArgs, io: CliIo): Promise<Rule> {
   const given = args.positionals[0];
-  if (given === undefined) throw new UsageError('a rule is required: JSON, RFC 5545 text, or a file holding either (see --help)');
+  if (given === undefined) throw new UsageError('a rule is required: JSON, RFC 5545 text, a file holding either, or "-" (see --help)');
   if (args.positionals.length > 1) throw new UsageError(`expected one rule argument, got ${args.positionals.length}; quote the rule`);
-  let text = given;
-  if (given === '-') text = await readAll(io);
-  else if (!given.trimStart().startsWith('{') && !/FREQ=/i.test(given) && existsSync(given)) text = readFileSync(given, 'utf8');
-  text = text.trim();
-  if (text.startsWith('{')) {
-    let def: unknown;
-    try {
-      def = JSON.parse(text);
-    } catch (e) {
-      throw new UsageError(`the rule is not valid JSON: ${e instanceof Error ? e.message : String(e)}`);
-    }
-    return defineRule(def as RuleDefinition);
-  }
-  if (/FREQ=/i.test(text)) {
+  const source = await readDefinitionSource(given, '<rule>', io, { text: { test: isRfc5545, name: 'RFC 5545 text (with FREQ=)' } });
+  if ('name' in source) throw new UsageError('<rule>: expected a rule'); // no rule has a name
+  const text = source.text.trim();
+  if (text.startsWith('{')) return defineRule(parseDefinitionJson({ text, origin: source.origin }, '<rule>') as RuleDefinition);
+  if (isRfc5545(text)) {
     const start = optionString(args, 'start');
     const zone = optionString(args, 'zone');
-    return parseRecurrenceRule(text.replace(/\\n/g, '\n'), { ...(start !== undefined ? { start } : {}), ...(zone !== undefined ? { zone } : {}) });
+    try {
+      return parseRecurrenceRule(text.replace(/\\n/g, '\n'), { ...(start !== undefined ? { start } : {}), ...(zone !== undefined ? { zone } : {}) });
+    } catch (e) {
+      // The library names its options; the shell user gave --start and --zone.
+      throw new InputError(shellMessage(e, { 'options.start': '--start', 'options.zone': '--zone' }));
+    }
   }
-  throw new UsageError(`expected a JSON rule definition, RFC 5545 text (with FREQ=) or a file, got ${JSON.stringify(given)}`);
+  throw new UsageError(`<rule>: ${source.origin} is neither a JSON rule definition (starting with "{") nor RFC 5545 text (with FREQ=)`);
 }
 
-function countOption(args: ParsedArgs): number | undefined {
-  const v = optionString(args, 'count');
-  if (v === undefined) return undefined;
-  if (!/^\d+$/.test(v) || Number(v) < 1 || Number(v) > 10_000_000) throw new UsageError(`--count: expected a whole number from 1 to 10000000, got ${JSON.stringify(v)}`);
-  return Number(v);
+const START_OPTION: OptionSpec = { name: 'start', value: '<date>', text: "DTSTART for a bare 'FREQ=...' rule" };
+const ZONE_OPTION: OptionSpec = { name: 'zone', value: '<zone>', text: 'zone for a floating RFC 5545 DTSTART (a local time without TZID)' };
+
+/** A range bound read the way the rule's values are: dates for date rules, instants for the others. */
+function bound(rule: Rule, option: string, text: string): number {
+  try {
+    return rule.values === 'dates' ? toDayNumber(text) : toEpochMs(text);
+  } catch (e) {
+    throw new UsageError(`--${option}: ${shellMessage(e)}`);
+  }
 }
 
 const scheduleCommand: Command = {
   name: 'schedule',
   summary: 'List the dates or instants of a frequency rule (JSON or RFC 5545) between bounds',
-  valueOptions: ['from', 'to', 'count', 'start', 'zone'],
-  help: `Usage: kalends schedule <rule> --from <when> (--to <when> | --count <n>) [--end-inclusive] [--json]
+  usage: ['<rule> --from <when> (--to <when> [--end-inclusive] | --count <n>) [--json]'],
+  description: `Lists the occurrences of a rule in [--from, --to), or the first --count of them from --from, as a stream.
+Date rules print dates (YYYY-MM-DD) with their weekday; rules with a time of day print instants (RFC 3339,
+UTC).
 
-Lists the occurrences of a rule in [--from, --to), or the first --count of them from --from.
-Date rules print dates (YYYY-MM-DD) with their weekday; rules with a time of day print instants (RFC 3339, UTC).
-
-${RULE_HELP}
-  --from <when>        First date (YYYY-MM-DD) or instant (RFC 3339) to consider, inclusive. Required.
-  --to <when>          End of the range, exclusive (add --end-inclusive to include it).
-  --count <n>          Instead of --to: the first n occurrences from --from.
-  --start <date>       DTSTART for a bare 'FREQ=...' rule.
-  --zone <id>          Zone for a floating RFC 5545 DTSTART (a local time without TZID).
-  --json               One JSON object per line.
-
-Examples:
-  kalends schedule '{"kind":"semi-monthly","days":[15,"last"]}' --from 2025-01-01 --to 2025-04-01
-  kalends schedule '{"kind":"monthly","on":{"businessDay":"last"},"calendar":"us-federal"}' --from 2025-01-01 --count 3
-  kalends schedule 'DTSTART;TZID=America/New_York:19970902T090000\\nRRULE:FREQ=DAILY;COUNT=10' --from 1997-09-01T00:00Z --count 100
-`,
+${RULE_TEXT}`,
+  options: [
+    { name: 'from', value: '<when>', text: 'first date (YYYY-MM-DD) or instant (RFC 3339) to consider, inclusive. Required.' },
+    { name: 'to', value: '<when>', text: 'end of the range, exclusive (add --end-inclusive to include it)' },
+    { name: 'end-inclusive', text: 'include an occurrence that falls exactly on --to' },
+    { name: 'count', value: '<n>', text: `instead of --to: the first n occurrences from --from (1 to ${MAX_OCCURRENCES})` },
+    START_OPTION,
+    ZONE_OPTION,
+    JSON_OPTION,
+  ],
+  examples: [
+    `kalends schedule '{"kind":"semi-monthly","days":[15,"last"]}' --from 2025-01-01 --to 2025-04-01`,
+    `kalends schedule '{"kind":"monthly","on":{"businessDay":"last"},"calendar":"us-federal"}' --from 2025-01-01 --count 3`,
+    `kalends schedule 'DTSTART;TZID=America/New_York:19970902T090000\\nRRULE:FREQ=DAILY;COUNT=10' --from 1997-09-01T00:00Z --count 100`,
+  ],
   async run(args, io) {
-    rejectUnknownOptions(args, ['from', 'to', 'count', 'start', 'zone', 'end-inclusive']);
+    const fromText = optionString(args, 'from');
+    if (fromText === undefined) throw new UsageError('--from is required (a date YYYY-MM-DD or an RFC 3339 instant)');
+    const toText = optionString(args, 'to');
+    const count = optionInteger(args, 'count', 1, MAX_OCCURRENCES);
+    if ((toText === undefined) === (count === undefined)) throw new UsageError('give exactly one of --to (end of the range) or --count (how many occurrences)');
+    if (count !== undefined && optionFlag(args, 'end-inclusive')) throw new UsageError('--end-inclusive goes with --to, not with --count');
     const rule = await ruleArgument(args, io);
-    const from = optionString(args, 'from');
-    if (from === undefined) throw new UsageError('--from is required (a date YYYY-MM-DD or an RFC 3339 instant)');
-    const to = optionString(args, 'to');
-    const count = countOption(args);
-    if ((to === undefined) === (count === undefined)) throw new UsageError('give exactly one of --to (end of the range) or --count (how many occurrences)');
-    const values =
-      to !== undefined
-        ? listOccurrences(rule, from, to, { endInclusive: optionFlag(args, 'end-inclusive') })
-        : [...iterateOccurrences(rule, from, { limit: count! })];
+    const from = bound(rule, 'from', fromText);
+    let end = Number.POSITIVE_INFINITY;
+    if (toText !== undefined) {
+      end = bound(rule, 'to', toText) + (optionFlag(args, 'end-inclusive') ? 1 : 0);
+      if (end < from) throw new UsageError(`--to ${toText} is before --from ${fromText}`);
+    }
     const dates = rule.values === 'dates';
-    const out = new RowWriter(io, optionFlag(args, 'json'), dates ? ['date', 'weekday'] : ['instant']);
-    for (const v of values) out.write(dates ? { date: formatPlainDate(v), weekday: WEEKDAYS[weekdayOfDayNumber(v) - 1]! } : { instant: formatInstant(v) });
-    out.end();
+    const out = new Output(io);
+    const writer = new RowWriter(out, optionFlag(args, 'json'), dates ? ['date', 'weekday'] : ['instant']);
+    let n = 0;
+    for (const v of iterateOccurrences(rule, from, { limit: count ?? MAX_OCCURRENCES })) {
+      if (v >= end) break;
+      n++;
+      await writer.write(dates ? { date: formatPlainDate(v), weekday: weekdayTitle(v) } : { instant: formatInstant(v) });
+    }
+    await writer.end();
+    if (count === undefined && n === MAX_OCCURRENCES) {
+      io.stderr(`kalends schedule: stopped after ${MAX_OCCURRENCES} occurrences, the most one run lists; narrow --from and --to to go on\n`);
+      return 1;
+    }
     return 0;
   },
 };
@@ -114,21 +138,18 @@ Examples:
 const explainCommand: Command = {
   name: 'explain-rule',
   summary: 'Explain a frequency rule (JSON or RFC 5545) in plain words',
-  valueOptions: ['start', 'zone'],
-  help: `Usage: kalends explain-rule <rule> [--start <date>] [--json]
+  usage: ['<rule> [--start <date>] [--zone <zone>] [--json]'],
+  description: `Prints the rule in plain words, and its RFC 5545 text when it has one. With --json, one JSON object: kind,
+values, description, rfc5545 (or null).
 
-Prints the rule in plain words, and its RFC 5545 text when it has one.
-
-${RULE_HELP}
-  --start <date>       DTSTART for a bare 'FREQ=...' rule, or where the RFC 5545 text of a rule without a start begins.
-  --zone <id>          Zone for a floating RFC 5545 DTSTART.
-  --json               One JSON object: kind, values, description, rfc5545 (or null).
-
-Example:
-  kalends explain-rule '{"kind":"weekly","weekdays":["friday"],"every":2,"anchor":"2025-01-03"}'
-`,
+${RULE_TEXT}`,
+  options: [
+    { name: 'start', value: '<date>', text: "DTSTART for a bare 'FREQ=...' rule, or where the RFC 5545 text of a rule without a start begins" },
+    ZONE_OPTION,
+    JSON_OPTION,
+  ],
+  examples: [`kalends explain-rule '{"kind":"weekly","weekdays":["friday"],"every":2,"anchor":"2025-01-03"}'`],
   async run(args, io) {
-    rejectUnknownOptions(args, ['start', 'zone']);
     const rule = await ruleArgument(args, io);
     const description = describeRule(rule);
     let rfc: string | null = null;
@@ -138,12 +159,13 @@ Example:
     } catch {
       rfc = null;
     }
+    const out = new Output(io);
     if (optionFlag(args, 'json')) {
-      io.stdout(`${JSON.stringify({ kind: rule.kind, values: rule.values, description, rfc5545: rfc })}\n`);
+      await out.write(`${JSON.stringify({ kind: rule.kind, values: rule.values, description, rfc5545: rfc })}\n`);
     } else {
-      io.stdout(`${description}\n`);
-      io.stdout(rfc === null ? '(no RFC 5545 form)\n' : `RFC 5545:\n${rfc}\n`);
+      await out.write(`${description}\n${rfc === null ? '(no RFC 5545 form)' : `RFC 5545:\n${rfc}`}\n`);
     }
+    await out.flush();
     return 0;
   },
 };

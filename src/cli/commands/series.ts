@@ -4,14 +4,15 @@
  *
  * @module
  */
-import { readFileSync } from 'node:fs';
-import { parse } from 'csv-parse';
+import { CsvError, parse } from 'csv-parse';
 import {
   type Aggregation,
   type BucketTable,
   type EmptyPolicy,
+  type PeriodUnit,
   type UnitDefinition,
   AGGREGATION_NAMES,
+  MAX_BUCKET_PERIODS,
   defineBucketAccumulator,
   epochMsFromWallMs,
   formatInstant,
@@ -19,67 +20,77 @@ import {
   parsePlainDate,
   parsePlainDateTime,
   toEpochMs,
-  toZone,
+  toUnit,
 } from '../../index.js';
-import { type CliIo, type Command, type ParsedArgs, UsageError, optionFlag, optionString, rejectUnknownOptions } from '../kit.js';
+import {
+  type CliIo,
+  type Command,
+  type ParsedArgs,
+  CALENDAR_UNIT_NAMES,
+  EXIT_DONE,
+  EXIT_REFUSED,
+  Output,
+  UsageError,
+  optionChoice,
+  optionFlag,
+  optionInteger,
+  optionString,
+  optionZone,
+  quote,
+  readDefinition,
+  shellMessage,
+} from '../kit.js';
 
-const HELP = `kalends bucket: aggregate a CSV of timestamp,value rows into periods.
+/** `--range` may produce at most this many rows unless --max-rows allows more. */
+const RANGE_ROWS_WITHOUT_FLAG = 100_000;
+/** The longest CSV row, in characters; a longer one stops the command (it is no timestamp,value row). */
+const MAX_ROW_LENGTH = 65_536;
 
-Usage: kalends bucket --unit <unit> [--zone <zone>] [--aggregate <names>] [options] < rows.csv
+const MALFORMED = ['stop', 'skip'] as const;
 
-Reads CSV rows from standard input: the first field is the instant, the second the value (choose others with
+const DESCRIPTION = `Reads CSV rows from standard input: the first field is the instant, the second the value (choose others with
 --time-field / --value-field, counted from 1). Rows may come in any order. Writes one row per period, in
 period order, once the input ends: CSV with a header, or JSON Lines with --json.
 
-Options:
-  --unit <unit>          month, iso-week, day, quarter, half-year, year, a unit definition as JSON text
-                         (e.g. '{"kind":"fiscal-quarter","start":{"month":10,"day":1},"naming":"end-year"}'),
-                         or @file.json holding one.
-  --zone <zone>          IANA zone id or fixed offset whose local days decide the period (default UTC).
-  --aggregate <names>    comma-separated: ${AGGREGATION_NAMES.filter((n) => n !== 'quantile').join(', ')},
-                         p<percent> for a quantile (p90 = 0.9, Hyndman & Fan definition 7). Default sum.
-  --range <start>..<end> report every period from start up to end (exclusive), as labels; rows outside are
-                         dropped and counted.
-  --empty <policy>       empty periods inside --range: nan (default, written as an empty field), zero, previous.
-  --header <mode>        auto (default: the first row is a header when its value field is not a number), yes, no.
-  --delimiter <char>     field delimiter (default ",").
-  --time-field <n>       1-based field of the instant (default 1).   --value-field <n>  of the value (default 2).
-  --on-bad-row <policy>  stop (default): stop at the first malformed row, naming its line, exit code 1.
-                         skip: leave malformed rows out, count them, report the count and the first one on
-                         stderr at the end, exit code 0.
+Columns: period (the label), start and end (instants in --zone: [start, end), end-exclusive, so end is the
+first instant of the next period), rows (rows read into it), then one column per aggregation. --json adds
+startEpochMs and endEpochMs. kalends period uses the same names.
 
 Instants: RFC 3339 with an offset (2025-03-01T10:00:00-05:00), epoch milliseconds, or a local date or
 date-time without an offset (2025-03-01, 2025-03-01T10:00), read on the wall clock of --zone (a time in a
 DST gap or fold resolves as Temporal's "compatible"). An empty value field is a missing value (skipped and
-counted, not malformed). A row is malformed when its instant cannot be read, its value is not a number, it
-lacks a field, or the CSV itself is broken (an unclosed quote).
+counted, not malformed). A row is malformed when its instant cannot be read, its value is not a number, or
+it lacks a field. Broken CSV (an unclosed quote, a row over ${MAX_ROW_LENGTH} characters) always stops.
 
-Exit codes: 0 done; 1 stopped at a malformed row or a library error; 2 usage error.
 A progress line (bytes read, rows, rows per second) appears on stderr when stderr is a terminal and the
 input is large (past 4 MB, or still being read after one second).`;
 
-const VALUE_OPTIONS = ['unit', 'zone', 'aggregate', 'range', 'empty', 'header', 'delimiter', 'time-field', 'value-field', 'on-bad-row'];
-
-function readUnit(text: string): UnitDefinition | string {
-  if (text.startsWith('@')) {
-    let raw: string;
-    try {
-      raw = readFileSync(text.slice(1), 'utf8');
-    } catch (e) {
-      throw new UsageError(`--unit: cannot read ${text.slice(1)}: ${(e as Error).message}`);
-    }
-    return parseJson(raw, `--unit ${text}`) as UnitDefinition;
+/** The delimiter of --delimiter: one character (not a quote or a line end), or the word "tab". */
+function readDelimiter(args: ParsedArgs): string {
+  const text = optionString(args, 'delimiter', ',')!;
+  const d = text === 'tab' ? '\t' : text;
+  if ([...d].length !== 1 || d === '"' || d === '\n' || d === '\r') {
+    throw new UsageError(`--delimiter: expected one character other than a quote or a line end (such as ";" or "|"), or the word tab; got ${quote(text)}`);
   }
-  if (text.trimStart().startsWith('{')) return parseJson(text, '--unit') as UnitDefinition;
-  return text;
+  return d;
 }
 
-function parseJson(text: string, what: string): unknown {
-  try {
-    return JSON.parse(text) as unknown;
-  } catch (e) {
-    throw new UsageError(`${what}: not valid JSON (${(e as Error).message})`);
+/** Characters that separate fields in other CSV dialects, with the --delimiter value that reads them. */
+const OTHER_DELIMITERS: readonly (readonly [string, string])[] = [
+  [';', ';'],
+  ['\t', 'tab'],
+  ['|', '|'],
+];
+
+/** A hint for a row that has one field holding another dialect's delimiter. */
+function delimiterHint(record: readonly string[], delimiter: string): string {
+  if (record.length !== 1) return '';
+  for (const [c, option] of OTHER_DELIMITERS) {
+    if (c !== delimiter && record[0]!.includes(c)) {
+      return `; the row has one field holding ${JSON.stringify(c)}: if the file is separated by it, add --delimiter ${option === ';' || option === '|' ? `'${option}'` : option}`;
+    }
   }
+  return '';
 }
 
 function readAggregations(text: string): { aggs: Aggregation[]; names: string[] } {
@@ -98,15 +109,24 @@ function readAggregations(text: string): { aggs: Aggregation[]; names: string[] 
   return { aggs, names };
 }
 
-function positiveField(args: ParsedArgs, name: string, fallback: number): number {
-  const v = optionString(args, name);
-  if (v === undefined) return fallback;
-  const n = Number(v);
-  if (!Number.isInteger(n) || n < 1) throw new UsageError(`--${name}: expected a field number from 1, got ${JSON.stringify(v)}`);
-  return n;
-}
-
 const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
+
+/** What is wrong with broken CSV, in our words (the CSV reader's own message may quote binary bytes). */
+function csvProblem(e: CsvError): string {
+  switch (e.code) {
+    case 'CSV_MAX_RECORD_SIZE':
+      return `a row longer than ${MAX_ROW_LENGTH} characters (is the input CSV?)`;
+    case 'CSV_QUOTE_NOT_CLOSED':
+      return 'a quote is opened and never closed';
+    case 'INVALID_OPENING_QUOTE':
+      return 'a quote inside a field that did not start with one';
+    case 'CSV_INVALID_CLOSING_QUOTE':
+    case 'CSV_NON_TRIMABLE_CHAR_AFTER_CLOSING_QUOTE':
+      return 'text right after a closing quote';
+    default:
+      return e.message.replace(/[^\x20-\x7e]/g, '?').slice(0, 200);
+  }
+}
 
 /** A malformed row: its line and why. */
 class BadRow extends Error {
@@ -127,32 +147,47 @@ function csvCell(s: string): string {
 }
 
 async function runBucket(args: ParsedArgs, io: CliIo): Promise<number> {
-  rejectUnknownOptions(args, VALUE_OPTIONS);
-  if (args.positionals.length > 0) throw new UsageError(`bucket reads rows from stdin; unexpected argument ${JSON.stringify(args.positionals[0])}`);
+  if (args.positionals.length > 0) throw new UsageError(`bucket reads rows from standard input; unexpected argument ${quote(args.positionals[0]!)}`);
   const unitText = optionString(args, 'unit');
   if (unitText === undefined) throw new UsageError('--unit is required (e.g. --unit month)');
-  const unit = readUnit(unitText);
-  const zoneText = optionString(args, 'zone', 'UTC')!;
-  const zone = toZone(zoneText, '--zone');
+  const unit: PeriodUnit = toUnit((await readDefinition(unitText, '--unit', io, CALENDAR_UNIT_NAMES)) as UnitDefinition, '--unit');
+  const zone = optionZone(args, 'zone', 'UTC')!;
   const { aggs, names } = readAggregations(optionString(args, 'aggregate', 'sum')!);
-  const empty = optionString(args, 'empty', 'nan')! as EmptyPolicy;
-  if (!['nan', 'zero', 'previous'].includes(empty)) throw new UsageError(`--empty: expected nan, zero or previous, got ${JSON.stringify(empty)}`);
-  const onBad = optionString(args, 'on-bad-row', 'stop')!;
-  if (onBad !== 'stop' && onBad !== 'skip') throw new UsageError(`--on-bad-row: expected stop or skip, got ${JSON.stringify(onBad)}`);
-  const header = optionString(args, 'header', 'auto')!;
-  if (!['auto', 'yes', 'no'].includes(header)) throw new UsageError(`--header: expected auto, yes or no, got ${JSON.stringify(header)}`);
-  const delimiter = optionString(args, 'delimiter', ',')!;
-  const timeField = positiveField(args, 'time-field', 1) - 1;
-  const valueField = positiveField(args, 'value-field', 2) - 1;
+  const empty: EmptyPolicy = optionChoice(args, 'empty', ['nan', 'zero', 'previous'] as const, 'nan')!;
+  const malformed = optionChoice(args, 'malformed', MALFORMED, 'stop')!;
+  const header = optionChoice(args, 'header', ['auto', 'yes', 'no'] as const, 'auto')!;
+  const delimiter = readDelimiter(args);
+  const timeField = optionInteger(args, 'time-field', 1, 10_000, 1)! - 1;
+  const valueField = optionInteger(args, 'value-field', 1, 10_000, 2)! - 1;
+  const maxRows = optionInteger(args, 'max-rows', 1, MAX_BUCKET_PERIODS);
   let range: { start: string; end: string } | undefined;
   const rangeText = optionString(args, 'range');
   if (rangeText !== undefined) {
     const m = /^(.+?)\.\.(.+)$/.exec(rangeText);
-    if (!m) throw new UsageError(`--range: expected <start>..<end> (labels, end exclusive), got ${JSON.stringify(rangeText)}`);
+    if (!m) throw new UsageError(`--range: expected <start>..<end> (labels, end exclusive), got ${quote(rangeText)}`);
     range = { start: m[1]!, end: m[2]! };
+    let rows: number;
+    try {
+      rows = unit.parseOrdinal(range.end) - unit.parseOrdinal(range.start);
+    } catch (e) {
+      throw new UsageError(`--range: ${shellMessage(e)}`);
+    }
+    if (rows < 0) throw new UsageError(`--range: the end ${quote(range.end)} is before the start ${quote(range.start)}`);
+    const allowed = maxRows ?? RANGE_ROWS_WITHOUT_FLAG;
+    if (rows > allowed) {
+      throw new UsageError(
+        `--range ${rangeText} holds ${rows} periods, more than ${allowed}${maxRows === undefined ? ' (the most without --max-rows)' : ' (--max-rows)'}; narrow --range or allow them with --max-rows ${rows}`,
+      );
+    }
   }
+  if (maxRows !== undefined && range === undefined) throw new UsageError('--max-rows goes with --range (without --range only periods with rows are written)');
   const json = optionFlag(args, 'json');
-  const acc = defineBucketAccumulator({ unit: unit as never, zone, aggregations: aggs });
+  let acc: ReturnType<typeof defineBucketAccumulator>;
+  try {
+    acc = defineBucketAccumulator({ unit, zone, aggregations: aggs });
+  } catch (e) {
+    throw new UsageError(`--aggregate: ${shellMessage(e)}`);
+  }
 
   function instantOf(text: string, line: number): number {
     const s = text.trim();
@@ -167,7 +202,7 @@ async function runBucket(args: ParsedArgs, io: CliIo): Promise<number> {
         const wall = s.length <= 10 ? parsePlainDate(s) * 86_400_000 : parsePlainDateTime(s);
         return epochMsFromWallMs(zone, wall, 'compatible');
       } catch {
-        throw new BadRow(line, `cannot read the instant ${JSON.stringify(s)} (${(first as Error).message})`);
+        throw new BadRow(line, `cannot read the instant ${quote(s)} (${shellMessage(first)})`);
       }
     }
   }
@@ -198,24 +233,14 @@ async function runBucket(args: ParsedArgs, io: CliIo): Promise<number> {
 
   let skipped = 0;
   let firstSkipped: string | undefined;
-  const skip = (why: string) => {
-    skipped++;
-    firstSkipped ??= why;
-  };
-  const parser = parse({
-    delimiter,
-    relax_column_count: true,
-    skip_empty_lines: true,
-    trim: true,
-    info: true,
-    skip_records_with_error: onBad === 'skip',
-  });
-  parser.on('skip', (err: Error & { lines?: number }) => skip(`line ${err.lines ?? '?'}: ${err.message}`));
+  // Broken CSV always stops: the CSV reader's own skipping can lose the rows after a stray quote.
+  const parser = parse({ delimiter, relax_column_count: true, skip_empty_lines: true, trim: true, info: true, max_record_size: MAX_ROW_LENGTH });
   let failure: unknown;
   parser.on('error', (e: unknown) => {
     failure ??= e;
   });
   let first = true;
+  const needed = Math.max(timeField, valueField) + 1;
   const handle = (record: string[], line: number) => {
     try {
       if (first) {
@@ -223,20 +248,19 @@ async function runBucket(args: ParsedArgs, io: CliIo): Promise<number> {
         const v = record[valueField];
         if (header === 'yes' || (header === 'auto' && v !== undefined && v !== '' && !NUMBER.test(v.trim()))) return;
       }
-      if (record.length <= Math.max(timeField, valueField)) {
-        throw new BadRow(line, `expected at least ${Math.max(timeField, valueField) + 1} fields, got ${record.length}`);
-      }
+      if (record.length < needed) throw new BadRow(line, `expected at least ${needed} fields, got ${record.length}${delimiterHint(record, delimiter)}`);
       const t = instantOf(record[timeField]!, line);
       const vText = record[valueField]!.trim();
-      if (vText !== '' && !NUMBER.test(vText)) throw new BadRow(line, `the value ${JSON.stringify(vText)} is not a number`);
+      if (vText !== '' && !NUMBER.test(vText)) throw new BadRow(line, `the value ${quote(vText)} is not a number`);
       try {
         acc.add(t, vText === '' ? Number.NaN : Number(vText));
       } catch (e) {
-        throw new BadRow(line, (e as Error).message);
+        throw new BadRow(line, shellMessage(e));
       }
     } catch (e) {
-      if (!(e instanceof BadRow) || onBad === 'stop') throw e;
-      skip(e.message);
+      if (!(e instanceof BadRow) || malformed === 'stop') throw e;
+      skipped++;
+      firstSkipped ??= e.message;
     }
   };
   // Records are drained synchronously after each chunk is written: no promise per record.
@@ -259,46 +283,51 @@ async function runBucket(args: ParsedArgs, io: CliIo): Promise<number> {
   } catch (e) {
     if (progressShown) io.stderr('\n');
     if (e instanceof BadRow) {
-      io.stderr(`kalends bucket: malformed row at ${e.message}; stopped (use --on-bad-row skip to leave such rows out)\n`);
-      return 1;
+      io.stderr(`kalends bucket: malformed row at ${e.message}; stopped (--malformed skip leaves such rows out)\n`);
+      return EXIT_REFUSED;
     }
-    const csv = e as Error & { lines?: number; code?: string };
-    if (typeof csv.code === 'string' && csv.code.startsWith('CSV_')) {
-      io.stderr(`kalends bucket: malformed CSV at line ${csv.lines ?? '?'}: ${csv.message}; stopped\n`);
-      return 1;
+    if (e instanceof CsvError) {
+      const lines = (e as CsvError & { lines?: number }).lines;
+      io.stderr(`kalends bucket: malformed CSV at line ${lines ?? '?'}: ${csvProblem(e)}; stopped\n`);
+      return EXIT_REFUSED;
     }
     throw e;
   }
   progress(acc.rows, true);
   if (progressShown) io.stderr('\n');
   const table = acc.finish(range ? { range, empty } : { empty });
-  writeTable(table, names, json, io);
+  await writeTable(table, names, json, new Output(io));
   if (table.outsideRange > 0) io.stderr(`kalends bucket: ${table.outsideRange} rows fell outside --range and were left out\n`);
   if (skipped > 0) io.stderr(`kalends bucket: skipped ${skipped} malformed row${skipped === 1 ? '' : 's'} (first: ${firstSkipped})\n`);
-  return 0;
+  return EXIT_DONE;
 }
 
-function writeTable(table: BucketTable, names: readonly string[], json: boolean, io: CliIo): void {
+async function writeTable(table: BucketTable, names: readonly string[], json: boolean, out: Output): Promise<void> {
   const instant = (ms: number) => formatInstant(ms, { offsetSeconds: offsetSecondsFromEpochMs(table.zone, ms) });
-  if (!json) io.stdout(`${['period', 'start', 'end', 'rows', ...names].map(csvCell).join(',')}\n`);
+  if (!json) await out.write(`${['period', 'start', 'end', 'rows', ...names].map(csvCell).join(',')}\n`);
   for (let i = 0; i < table.length; i++) {
     const values = table.columnNames.map((c) => table.columns[c]![i]!);
+    const startMs = table.startEpochMs[i]!;
+    const endMs = table.endEpochMs[i]!;
     if (json) {
       const row: Record<string, string | number | null> = {
         period: table.labels[i]!,
-        start: instant(table.startEpochMs[i]!),
-        end: instant(table.endEpochMs[i]!),
+        start: instant(startMs),
+        end: instant(endMs),
         rows: table.rowCounts[i]!,
       };
       names.forEach((n, k) => {
         row[n] = Number.isNaN(values[k]!) ? null : values[k]!;
       });
-      io.stdout(`${JSON.stringify(row)}\n`);
+      row['startEpochMs'] = startMs;
+      row['endEpochMs'] = endMs;
+      await out.write(`${JSON.stringify(row)}\n`);
     } else {
-      const cells = [table.labels[i]!, instant(table.startEpochMs[i]!), instant(table.endEpochMs[i]!), String(table.rowCounts[i]!), ...values.map(formatNumber)];
-      io.stdout(`${cells.map(csvCell).join(',')}\n`);
+      const cells = [table.labels[i]!, instant(startMs), instant(endMs), String(table.rowCounts[i]!), ...values.map(formatNumber)];
+      await out.write(`${cells.map(csvCell).join(',')}\n`);
     }
   }
+  await out.flush();
 }
 
 /** Commands of the series layer. */
@@ -306,8 +335,39 @@ export const commands: readonly Command[] = [
   {
     name: 'bucket',
     summary: 'Aggregate CSV timestamp,value rows from stdin into periods (sum, mean, quantiles, ...)',
-    help: HELP,
-    valueOptions: VALUE_OPTIONS,
+    usage: ['--unit <unit> [--zone <zone>] [--aggregate <names>] [options] < rows.csv'],
+    description: DESCRIPTION,
+    options: [
+      {
+        name: 'unit',
+        value: '<unit>',
+        text: `${CALENDAR_UNIT_NAMES.join(', ')}, a unit definition as JSON text ('{"kind":"fiscal-quarter","start":{"month":10,"day":1},"naming":"end-year"}'), the path of a JSON file holding one, or "-" for standard input. Required.`,
+      },
+      { name: 'zone', value: '<zone>', text: 'IANA zone id or fixed offset whose local days decide the period (default UTC)' },
+      {
+        name: 'aggregate',
+        value: '<names>',
+        text: `comma-separated: ${AGGREGATION_NAMES.filter((n) => n !== 'quantile').join(', ')}, p<percent> for a quantile (p90 = 0.9, Hyndman & Fan definition 7). Default sum.`,
+      },
+      { name: 'range', value: '<start>..<end>', text: 'report every period from start up to end (exclusive), as labels; rows outside are dropped and counted' },
+      { name: 'max-rows', value: '<n>', text: `allow --range to write more than ${RANGE_ROWS_WITHOUT_FLAG} periods (up to n)` },
+      { name: 'empty', value: '<policy>', text: 'empty periods inside --range: nan (default, written as an empty field), zero, previous' },
+      { name: 'header', value: '<mode>', text: 'auto (default: the first row is a header when its value field is not a number), yes, no' },
+      { name: 'delimiter', value: '<char>', text: 'field delimiter: one character (default ","), or tab' },
+      { name: 'time-field', value: '<n>', text: '1-based field of the instant (default 1)' },
+      { name: 'value-field', value: '<n>', text: '1-based field of the value (default 2)' },
+      {
+        name: 'malformed',
+        value: '<policy>',
+        text: 'stop (default): stop at the first malformed row, naming its line, exit code 1.\nskip: leave malformed rows out, count them, and report the count and the first one on stderr at the end, exit code 0.\n(Renamed in 0.2; it was --on-bad-row.)',
+      },
+      { name: 'json', text: 'one JSON object per line (JSON Lines) instead of CSV' },
+    ],
+    examples: [
+      "printf 'at,amount\\n2025-03-01T04:30:00Z,10\\n' | kalends bucket --unit month --zone America/New_York",
+      'kalends bucket --unit day --aggregate sum,count,p90 --range 2025-01-01..2025-02-01 --empty zero < rows.csv',
+      "kalends bucket --unit iso-week --delimiter ';' --malformed skip --json < rows.csv",
+    ],
     run: runBucket,
   },
 ];

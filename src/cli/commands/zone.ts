@@ -27,20 +27,23 @@ import {
 import {
   type CliIo,
   type Command,
+  type OptionSpec,
   type ParsedArgs,
-  RowWriter,
+  JSON_OPTION,
   UsageError,
-  errorMessage,
-  inputValues,
-  optionFlag,
+  optionChoice,
   optionString,
-  rejectUnknownOptions,
+  optionZone,
+  shellMessage,
+  writeRowsPerValue,
 } from '../kit.js';
 
+const ZONE_OPTION: OptionSpec = { name: 'zone', value: '<zone>', text: 'IANA zone id ("Europe/Dublin"), "UTC", or a fixed offset ("+05:30"). Required.' };
+
 function requireZone(args: ParsedArgs): Zone {
-  const id = optionString(args, 'zone');
-  if (id === undefined) throw new UsageError('--zone is required: an IANA id such as America/New_York, "UTC", or an offset such as +05:30');
-  return zoneFromId(id);
+  const zone = optionZone(args, 'zone');
+  if (zone === undefined) throw new UsageError('--zone is required: an IANA id such as America/New_York, "UTC", or an offset such as +05:30');
+  return zone;
 }
 
 /** An instant from an argument: RFC 3339 / RFC 9557 text, or an integer of epoch milliseconds. */
@@ -61,33 +64,22 @@ function hours(seconds: number): string {
 const zoneAt: Command = {
   name: 'zone-at',
   summary: "A zone's UTC offset and local time at instants",
-  valueOptions: ['zone'],
-  help: `Usage: kalends zone-at <instant>... --zone <id> [--json]
-
-Shows, for each instant, the zone's UTC offset and the local date-time there. An instant is an RFC 3339 /
+  usage: ['[<instant>...] --zone <zone> [--json]'],
+  description: `Shows, for each instant, the zone's UTC offset and the local date-time there. An instant is an RFC 3339 /
 RFC 9557 date-time with an offset ("2025-03-09T07:00:00Z") or an integer of epoch milliseconds. With no
-instants, reads one per line from standard input.
-
-Options
-  --zone <id>   IANA zone id ("Europe/Dublin"), "UTC", or a fixed offset ("+05:30"). Required.
-  --json        One JSON object per line.
-
-Examples
-  kalends zone-at 2025-03-30T00:59:59Z 2025-03-30T01:00:00Z --zone Europe/Dublin
-  echo 0 | kalends zone-at --zone Asia/Kolkata --json
-`,
+instants, reads one per line from standard input.`,
+  options: [ZONE_OPTION, JSON_OPTION],
+  examples: ['kalends zone-at 2025-03-30T00:59:59Z 2025-03-30T01:00:00Z --zone Europe/Dublin', 'echo 0 | kalends zone-at --zone Asia/Kolkata --json'],
   async run(args: ParsedArgs, io: CliIo): Promise<number> {
-    rejectUnknownOptions(args, ['zone']);
     const zone = requireZone(args);
-    const writer = new RowWriter(io, optionFlag(args, 'json'), ['input', 'utc', 'local', 'offset', 'localDate']);
-    let failed = 0;
-    let seen = 0;
-    for await (const value of inputValues(args, io)) {
-      seen++;
-      try {
+    return writeRowsPerValue(args, io, {
+      command: 'zone-at',
+      noun: 'instants',
+      columns: ['input', 'utc', 'local', 'offset', 'localDate'],
+      handle(value, writer) {
         const epochMs = readInstant(value);
         const off = offsetSecondsFromEpochMs(zone, epochMs);
-        writer.write({
+        return writer.write({
           input: value,
           zone: zone.id,
           utc: formatInstant(epochMs),
@@ -97,14 +89,8 @@ Examples
           offsetSeconds: off,
           localDate: formatPlainDate(dayNumberFromEpochMs(zone, epochMs)),
         });
-      } catch (e) {
-        failed++;
-        io.stderr(`kalends zone-at: ${JSON.stringify(value)}: ${errorMessage(e)}\n`);
-      }
-    }
-    if (seen === 0) throw new UsageError('no instants: give them as arguments, or one per line on standard input');
-    if (seen > failed) writer.end();
-    return failed > 0 ? 1 : 0;
+      },
+    });
   },
 };
 
@@ -113,67 +99,65 @@ const DISAMBIGUATIONS: readonly Disambiguation[] = ['compatible', 'earlier', 'la
 const zoneResolve: Command = {
   name: 'zone-resolve',
   summary: 'Local date-times to instants in a zone, showing gaps and overlaps',
-  valueOptions: ['zone', 'disambiguation'],
-  help: `Usage: kalends zone-resolve <local date-time>... --zone <id> [--disambiguation <how>] [--json]
-
-Converts local date-times ("2025-03-09T02:30") in a zone to instants. The status column says whether the
+  usage: ['[<local date-time>...] --zone <zone> [--disambiguation <how>] [--json]'],
+  description: `Converts local date-times ("2025-03-09T02:30") in a zone to instants. The status column says whether the
 local time is unique, fell in a gap (the clocks skipped it) or in an overlap (it happened twice). With no
 date-times, reads one per line from standard input.
 
-Options
-  --zone <id>               IANA zone id, "UTC", or a fixed offset. Required.
-  --disambiguation <how>    compatible (default: earlier instant in an overlap, shifted forward in a gap),
-                            earlier, later, or reject (a gap or overlap is an error; exit code 1).
-  --json                    One JSON object per line.
-
-Examples
-  kalends zone-resolve 2025-03-09T02:30 2025-11-02T01:30 --zone America/New_York
-  kalends zone-resolve 2025-11-02T01:30 --zone America/New_York --disambiguation later --json
-`,
+With --disambiguation reject, a local time in a gap or an overlap gets no instant: the note says why, and
+the exit code is 1.`,
+  options: [
+    ZONE_OPTION,
+    {
+      name: 'disambiguation',
+      value: '<how>',
+      text: 'compatible (default: the earlier instant in an overlap, shifted forward in a gap),\nearlier, later, or reject (a gap or overlap gets no instant; exit code 1)',
+    },
+    JSON_OPTION,
+  ],
+  examples: [
+    'kalends zone-resolve 2025-03-09T02:30 2025-11-02T01:30 --zone America/New_York',
+    'kalends zone-resolve 2025-11-02T01:30 --zone America/New_York --disambiguation later --json',
+  ],
   async run(args: ParsedArgs, io: CliIo): Promise<number> {
-    rejectUnknownOptions(args, ['zone', 'disambiguation']);
     const zone = requireZone(args);
-    const how = (optionString(args, 'disambiguation') ?? 'compatible') as Disambiguation;
-    if (!DISAMBIGUATIONS.includes(how)) throw new UsageError(`--disambiguation: expected one of ${DISAMBIGUATIONS.join(', ')}, got ${JSON.stringify(how)}`);
-    const writer = new RowWriter(io, optionFlag(args, 'json'), ['input', 'status', 'instant', 'offset', 'note']);
-    let failed = 0;
-    let seen = 0;
-    for await (const value of inputValues(args, io)) {
-      seen++;
-      try {
+    const how = optionChoice(args, 'disambiguation', DISAMBIGUATIONS, 'compatible')!;
+    return writeRowsPerValue(args, io, {
+      command: 'zone-resolve',
+      noun: 'local date-times',
+      columns: ['input', 'status', 'instant', 'offset', 'note'],
+      async handle(value, writer) {
         const wallMs = parsePlainDateTime(value);
+        const local = formatPlainDateTime(wallMs);
         const r = resolveWallMs(zone, wallMs);
         let note = '';
-        if (r.kind === 'gap') note = `skipped: ${formatPlainDateTime(r.gapStartWallMs)} to ${formatPlainDateTime(r.gapEndWallMs)} (${formatOffset(r.offsetBeforeSeconds)} -> ${formatOffset(r.offsetAfterSeconds)})`;
-        if (r.kind === 'overlap') note = `twice: ${formatInstant(r.earlierEpochMs)} and ${formatInstant(r.laterEpochMs)}`;
-        let epochMs: number | null = null;
-        let error: string | null = null;
-        try {
-          epochMs = epochMsFromWallMs(zone, wallMs, how);
-        } catch (e) {
-          error = errorMessage(e);
+        if (r.kind === 'gap') {
+          note = `skipped: the clocks went from ${formatPlainDateTime(r.gapStartWallMs)} to ${formatPlainDateTime(r.gapEndWallMs)} (${formatOffset(r.offsetBeforeSeconds)} -> ${formatOffset(r.offsetAfterSeconds)})`;
         }
+        if (r.kind === 'overlap') note = `twice: ${formatInstant(r.earlierEpochMs)} and ${formatInstant(r.laterEpochMs)}`;
+        const rejected = how === 'reject' && r.kind !== 'unique';
+        if (rejected) {
+          note =
+            r.kind === 'gap'
+              ? `${local} does not exist in ${zone.id}: the clocks went from ${formatPlainDateTime(r.gapStartWallMs)} to ${formatPlainDateTime(r.gapEndWallMs)}; --disambiguation compatible, earlier or later picks an instant`
+              : `${local} happened twice in ${zone.id}; --disambiguation earlier, later or compatible picks one of the two instants`;
+        }
+        const epochMs = rejected ? null : epochMsFromWallMs(zone, wallMs, how);
         const off = epochMs === null ? null : offsetSecondsFromEpochMs(zone, epochMs);
-        writer.write({
+        await writer.write({
           input: value,
           zone: zone.id,
           status: r.kind,
           instant: epochMs === null ? null : formatInstant(epochMs, { offsetSeconds: off! }),
           epochMs,
           offset: off === null ? null : formatOffset(off),
-          note: error ?? note,
+          note,
           ...(r.kind === 'gap' ? { offsetBefore: formatOffset(r.offsetBeforeSeconds), offsetAfter: formatOffset(r.offsetAfterSeconds) } : {}),
           ...(r.kind === 'overlap' ? { earlierEpochMs: r.earlierEpochMs, laterEpochMs: r.laterEpochMs } : {}),
         });
-        if (error !== null) failed++;
-      } catch (e) {
-        failed++;
-        io.stderr(`kalends zone-resolve: ${JSON.stringify(value)}: ${errorMessage(e)}\n`);
-      }
-    }
-    if (seen === 0) throw new UsageError('no local date-times: give them as arguments, or one per line on standard input');
-    writer.end();
-    return failed > 0 ? 1 : 0;
+        return !rejected;
+      },
+    });
   },
 };
 
@@ -184,63 +168,64 @@ function readBound(zone: Zone, text: string): number {
   return readInstant(text);
 }
 
+/** Reads a bound once in UTC, so that a malformed --from or --to is a usage error before any zone is read. */
+function checkBound(option: string, text: string): void {
+  try {
+    readBound(zoneFromId('UTC'), text);
+  } catch (e) {
+    throw new UsageError(`--${option}: ${shellMessage(e)}`);
+  }
+}
+
+/** Transitions are listed in windows of 400 Gregorian years (146,097 days), well inside the library's limit. */
+const TRANSITION_WINDOW_MS = 146_097 * 86_400_000;
+
 const zoneChanges: Command = {
   name: 'zone-changes',
   summary: "A zone's offset changes (transitions) in a range",
-  valueOptions: ['from', 'to'],
-  help: `Usage: kalends zone-changes <zone id>... --from <when> --to <when> [--json]
-
-Lists the instants where each zone's UTC offset changes within [from, to), with the local clock just before
+  usage: ['[<zone id>...] [--from <when>] [--to <when>] [--json]'],
+  description: `Lists the instants where each zone's UTC offset changes within [from, to), with the local clock just before
 and after, and whether the change skips local times (gap) or repeats them (overlap). With no zone ids,
-reads one per line from standard input.
-
-Options
-  --from <when>   A year ("2025"), a local date ("2025-03-01"), or an instant. Default: this year.
-  --to <when>     The end (exclusive), same forms. Default: one year after --from.
-  --json          One JSON object per line.
-
-Examples
-  kalends zone-changes Europe/Dublin America/Sao_Paulo --from 2018 --to 2020
-  echo Australia/Lord_Howe | kalends zone-changes --from 2025 --to 2026 --json
-`,
+reads one per line from standard input. Long ranges are streamed.`,
+  options: [
+    { name: 'from', value: '<when>', text: 'a year ("2025"), a local date ("2025-03-01"), or an instant. Default: this year.' },
+    { name: 'to', value: '<when>', text: 'the end (exclusive), same forms. Default: one year after --from.' },
+    JSON_OPTION,
+  ],
+  examples: ['kalends zone-changes Europe/Dublin America/Sao_Paulo --from 2018 --to 2020', 'echo Australia/Lord_Howe | kalends zone-changes --from 2025 --to 2026 --json'],
   async run(args: ParsedArgs, io: CliIo): Promise<number> {
-    rejectUnknownOptions(args, ['from', 'to']);
-    const writer = new RowWriter(io, optionFlag(args, 'json'), ['zone', 'at', 'localBefore', 'localAfter', 'offsetBefore', 'offsetAfter', 'change', 'kind']);
     const thisYear = String(new Date().getUTCFullYear());
-    let failed = 0;
-    let seen = 0;
-    for await (const id of inputValues(args, io)) {
-      seen++;
-      try {
+    const fromText = optionString(args, 'from') ?? thisYear;
+    const toText = optionString(args, 'to') ?? String(Number(/^\d{4}/.exec(fromText)?.[0] ?? thisYear) + 1);
+    checkBound('from', fromText);
+    checkBound('to', toText);
+    return writeRowsPerValue(args, io, {
+      command: 'zone-changes',
+      noun: 'zone ids',
+      columns: ['zone', 'at', 'localBefore', 'localAfter', 'offsetBefore', 'offsetAfter', 'change', 'kind'],
+      async handle(id, writer) {
         const zone = zoneFromId(id);
-        const fromText = optionString(args, 'from') ?? thisYear;
         const start = readBound(zone, fromText);
-        const toText = optionString(args, 'to');
-        const end = toText !== undefined ? readBound(zone, toText) : readBound(zone, String(Number(/^\d{4}/.exec(fromText)?.[0] ?? thisYear) + 1));
+        const end = readBound(zone, toText);
         if (!(end > start)) throw new UsageError(`--to must be after --from, got ${formatInstant(start)} .. ${formatInstant(end)}`);
-        for (const t of listTransitions(zone, start, end)) {
-          const change = t.offsetAfterSeconds - t.offsetBeforeSeconds;
-          writer.write({
-            zone: zone.id,
-            at: formatInstant(t.epochMs),
-            epochMs: t.epochMs,
-            localBefore: formatPlainDateTime(t.epochMs + t.offsetBeforeSeconds * 1000),
-            localAfter: formatPlainDateTime(t.epochMs + t.offsetAfterSeconds * 1000),
-            offsetBefore: formatOffset(t.offsetBeforeSeconds),
-            offsetAfter: formatOffset(t.offsetAfterSeconds),
-            change: hours(change),
-            kind: change > 0 ? 'gap' : 'overlap',
-          });
+        for (let lo = start; lo < end; lo += TRANSITION_WINDOW_MS) {
+          for (const t of listTransitions(zone, lo, Math.min(end, lo + TRANSITION_WINDOW_MS))) {
+            const change = t.offsetAfterSeconds - t.offsetBeforeSeconds;
+            await writer.write({
+              zone: zone.id,
+              at: formatInstant(t.epochMs),
+              epochMs: t.epochMs,
+              localBefore: formatPlainDateTime(t.epochMs + t.offsetBeforeSeconds * 1000),
+              localAfter: formatPlainDateTime(t.epochMs + t.offsetAfterSeconds * 1000),
+              offsetBefore: formatOffset(t.offsetBeforeSeconds),
+              offsetAfter: formatOffset(t.offsetAfterSeconds),
+              change: hours(change),
+              kind: change > 0 ? 'gap' : 'overlap',
+            });
+          }
         }
-      } catch (e) {
-        if (e instanceof UsageError) throw e;
-        failed++;
-        io.stderr(`kalends zone-changes: ${JSON.stringify(id)}: ${errorMessage(e)}\n`);
-      }
-    }
-    if (seen === 0) throw new UsageError('no zones: give zone ids as arguments, or one per line on standard input');
-    if (seen > failed) writer.end();
-    return failed > 0 ? 1 : 0;
+      },
+    });
   },
 };
 
