@@ -9,7 +9,9 @@
 import { MAX_DAY_NUMBER, MAX_EPOCH_MS, MIN_DAY_NUMBER, MIN_EPOCH_MS, MS_PER_DAY } from '../bounds.js';
 import { KalendsRangeError, KalendsTypeError, describeValue, requireInteger } from '../errors.js';
 import { dayNumberFromYmd, requireDayNumber, ymdFromDayNumber } from '../civil/gregorian.js';
+import { optionOf, readOptions, requireEnum, requireEpochMs } from '../diagnostics/index.js';
 import { parseInstant, parsePlainDate, parsePlainDateTime } from './text.js';
+import { requireWallMs } from './format.js';
 
 /** The name of a value's kind for messages: Temporal objects by their tag (`Temporal.PlainDate`), others as usual. */
 function kindOf(value: unknown): string {
@@ -46,7 +48,7 @@ function checkEpochMs(fn: string, ms: number, received: unknown): number {
  * | input | result |
  * | --- | --- |
  * | string | {@link parseInstant}: RFC 3339 / RFC 9557 with a required offset |
- * | number | an integer within ±8.64e15 is taken as epoch ms; NaN, infinities and fractions are rejected |
+ * | number | a number within ±8.64e15 is taken as epoch ms, a fraction of a millisecond kept (the instant lies in millisecond `Math.floor(value)`); NaN and infinities are rejected |
  * | `Date` | its time value; an invalid `Date` is rejected |
  * | Temporal.Instant, Temporal.ZonedDateTime (any implementation) | `epochNanoseconds` floored to the ms, or `epochMilliseconds` |
  *
@@ -57,18 +59,17 @@ function checkEpochMs(fn: string, ms: number, received: unknown): number {
  * ```ts
  * toEpochMs('1970-01-01T00:00:01Z');   // 1000
  * toEpochMs(new Date(0));              // 0
+ * toEpochMs(1.5);                      // 1.5 (in millisecond 1)
  * toEpochMs(Temporal.Now.instant());   // works with any Temporal implementation
  * ```
  */
 export function toEpochMs(value: unknown): number {
   if (typeof value === 'string') return parseInstant(value).epochMs;
   if (typeof value === 'number') {
-    if (!Number.isInteger(value)) {
-      throw new KalendsRangeError(
-        `toEpochMs: expected an integer number of epoch milliseconds, got ${describeValue(value)}${Number.isFinite(value) ? '; round it first (Math.floor truncates toward the past)' : ''}`,
-        { code: 'out-of-range', received: value },
-      );
+    if (!Number.isFinite(value)) {
+      throw new KalendsRangeError(`toEpochMs: expected a finite number of epoch milliseconds, got ${describeValue(value)}`, { code: 'out-of-range', received: value });
     }
+    // A fraction of a millisecond is kept: the instant lies within millisecond Math.floor(value) (docs/design.md).
     return checkEpochMs('toEpochMs', value === 0 ? 0 : value, value);
   }
   if (value instanceof Date) {
@@ -114,6 +115,8 @@ export interface ToDayNumberOptions {
   readonly dateFields?: 'utc' | 'local';
 }
 
+const DATE_FIELDS: readonly ('utc' | 'local')[] = ['utc', 'local'];
+
 function ymdObjectToDayNumber(fn: string, value: object, tag: string | undefined): number | undefined {
   const o = value as { year?: unknown; month?: unknown; day?: unknown; calendarId?: unknown; calendar?: unknown };
   if (typeof o.year !== 'number' || typeof o.month !== 'number' || typeof o.day !== 'number') return undefined;
@@ -158,6 +161,8 @@ function ymdObjectToDayNumber(fn: string, value: object, tag: string | undefined
  * ```
  */
 export function toDayNumber(value: unknown, options?: ToDayNumberOptions): number {
+  const o = readOptions('options', options, ['dateFields']);
+  const dateFields = optionOf(o, 'dateFields') === undefined ? undefined : requireEnum('options.dateFields', optionOf(o, 'dateFields'), DATE_FIELDS);
   if (typeof value === 'string') return parsePlainDate(value);
   if (typeof value === 'number') {
     if (Number.isInteger(value) && (value > MAX_DAY_NUMBER || value < MIN_DAY_NUMBER)) {
@@ -169,7 +174,7 @@ export function toDayNumber(value: unknown, options?: ToDayNumberOptions): numbe
     return requireDayNumber(value === 0 ? 0 : value);
   }
   if (value instanceof Date) {
-    const mode = options?.dateFields;
+    const mode = dateFields;
     if (Number.isNaN(value.getTime())) {
       throw new KalendsRangeError('toDayNumber: got an invalid Date (its time value is NaN)', { code: 'out-of-range', received: value });
     }
@@ -199,7 +204,7 @@ export function toDayNumber(value: unknown, options?: ToDayNumberOptions): numbe
 
 /**
  * Converts what a user holds into wall milliseconds (a local date-time): a local ISO 8601 date-time string
- * ({@link parsePlainDateTime}), an integer number taken as wall ms, or a Temporal.PlainDateTime / PlainDate
+ * ({@link parsePlainDateTime}), a number taken as wall ms (a fraction of a millisecond kept), or a Temporal.PlainDateTime / PlainDate
  * (midnight) / ZonedDateTime (its wall-clock time in its own zone), duck-typed. Sub-millisecond fields of a
  * Temporal object are dropped (floored).
  *
@@ -212,7 +217,7 @@ export function toWallMs(value: unknown): number {
   const min = MIN_DAY_NUMBER * MS_PER_DAY;
   const max = MAX_DAY_NUMBER * MS_PER_DAY + MS_PER_DAY - 1;
   if (typeof value === 'string') return parsePlainDateTime(value);
-  if (typeof value === 'number') return requireInteger('wallMs', value === 0 ? 0 : value, min, max);
+  if (typeof value === 'number') return requireWallMs('wallMs', value === 0 ? 0 : value, min, max);
   if (typeof value === 'object' && value !== null && !(value instanceof Date)) {
     const tag = temporalTag(value);
     const dn = ymdObjectToDayNumber('toWallMs', value, tag);
@@ -272,7 +277,8 @@ function wrapTemporal<T>(fn: string, received: unknown, make: () => T): T {
 }
 
 /**
- * A `Temporal.Instant` for an instant, built with the Temporal namespace the caller passes.
+ * A `Temporal.Instant` for an instant, built with the Temporal namespace the caller passes. Temporal objects carry
+ * whole milliseconds here: a fractional instant gives the millisecond that holds it (`Math.floor`).
  *
  * @example
  * ```ts
@@ -284,9 +290,9 @@ export function temporalInstantFromEpochMs<T extends Pick<TemporalNamespaceLike,
   epochMs: number,
   temporal: T,
 ): ReturnType<T['Instant']['fromEpochMilliseconds']> {
-  requireInteger('epochMs', epochMs, MIN_EPOCH_MS, MAX_EPOCH_MS);
+  const whole = Math.floor(requireEpochMs('epochMs', epochMs));
   requireNamespace('temporalInstantFromEpochMs', temporal, 'Instant');
-  return wrapTemporal('temporalInstantFromEpochMs', epochMs, () => temporal.Instant.fromEpochMilliseconds(epochMs)) as ReturnType<
+  return wrapTemporal('temporalInstantFromEpochMs', epochMs, () => temporal.Instant.fromEpochMilliseconds(whole)) as ReturnType<
     T['Instant']['fromEpochMilliseconds']
   >;
 }
@@ -310,7 +316,8 @@ export function temporalPlainDateFromDayNumber<T extends Pick<TemporalNamespaceL
 }
 
 /**
- * A `Temporal.PlainDateTime` for wall milliseconds, built with the caller's Temporal namespace.
+ * A `Temporal.PlainDateTime` for wall milliseconds, built with the caller's Temporal namespace (a fractional wall
+ * time gives the millisecond that holds it).
  *
  * @example
  * ```ts
@@ -321,11 +328,11 @@ export function temporalPlainDateTimeFromWallMs<T extends Pick<TemporalNamespace
   wallMs: number,
   temporal: T,
 ): InstanceType<T['PlainDateTime']> {
-  requireInteger('wallMs', wallMs, MIN_DAY_NUMBER * MS_PER_DAY, MAX_DAY_NUMBER * MS_PER_DAY + MS_PER_DAY - 1);
+  const whole = Math.floor(requireWallMs('wallMs', wallMs));
   requireNamespace('temporalPlainDateTimeFromWallMs', temporal, 'PlainDateTime');
-  const dn = Math.floor(wallMs / MS_PER_DAY);
+  const dn = Math.floor(whole / MS_PER_DAY);
   const { year, month, day } = ymdFromDayNumber(dn);
-  let r = wallMs - dn * MS_PER_DAY;
+  let r = whole - dn * MS_PER_DAY;
   const h = Math.floor(r / 3_600_000);
   r -= h * 3_600_000;
   const mi = Math.floor(r / 60_000);
