@@ -144,8 +144,8 @@ Examples
         const wallMs = parsePlainDateTime(value);
         const r = resolveWallMs(zone, wallMs);
         let note = '';
-        if (r.kind === 'gap') note = `skipped: ${formatPlainDateTime(r.gapStartWallMs)} to ${formatPlainDateTime(r.gapEndWallMs)} (${formatOffset(r.offsetBeforeSeconds)} -> ${formatOffset(r.offsetAfterSeconds)})`;
-        if (r.kind === 'overlap') note = `twice: ${formatInstant(r.earlierEpochMs)} and ${formatInstant(r.laterEpochMs)}`;
+        if (r.kind === 'gap') note = `skipped: ${formatPlainDateTime(r.startWallMs)} to ${formatPlainDateTime(r.endWallMs)} (${formatOffset(r.offsetBeforeSeconds)} -> ${formatOffset(r.offsetAfterSeconds)})`;
+        if (r.kind === 'overlap') note = `twice: ${formatInstant(r.epochMsBeforeTransition)} and ${formatInstant(r.epochMsAfterTransition)}`;
         let epochMs: number | null = null;
         let error: string | null = null;
         try {
@@ -162,8 +162,8 @@ Examples
           epochMs,
           offset: off === null ? null : formatOffset(off),
           note: error ?? note,
-          ...(r.kind === 'gap' ? { offsetBefore: formatOffset(r.offsetBeforeSeconds), offsetAfter: formatOffset(r.offsetAfterSeconds) } : {}),
-          ...(r.kind === 'overlap' ? { earlierEpochMs: r.earlierEpochMs, laterEpochMs: r.laterEpochMs } : {}),
+          ...(r.kind !== 'unique' ? { offsetBefore: formatOffset(r.offsetBeforeSeconds), offsetAfter: formatOffset(r.offsetAfterSeconds) } : {}),
+          ...(r.kind === 'overlap' ? { epochMsBeforeTransition: r.epochMsBeforeTransition, epochMsAfterTransition: r.epochMsAfterTransition } : {}),
         });
         if (error !== null) failed++;
       } catch (e) {
