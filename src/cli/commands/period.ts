@@ -21,7 +21,7 @@ import {
   parsePeriod,
   parsePlainDate,
   parsePlainDateTime,
-  periodContaining,
+  periodFromPeriod,
   firstDayNumberAfterPeriod,
   firstEpochMsAfterPeriod,
   firstDayNumberOfPeriod,
@@ -268,7 +268,7 @@ Examples
       const days = firstDayNumberAfterPeriod(p) - first;
       writer.write({
         label: formatPeriod(p),
-        quarter: formatPeriod(periodContaining(p, quarter)),
+        quarter: formatPeriod(periodFromPeriod(quarter, p)),
         first: formatPlainDate(first),
         last: formatPlainDate(lastDayNumberOfPeriod(p)),
         days,
