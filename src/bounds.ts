@@ -25,6 +25,9 @@ export const MS_PER_DAY = 86_400_000;
 /** Largest absolute UTC offset accepted, in seconds (exclusive of 24 hours, as in RFC 9557 and Temporal). */
 export const MAX_OFFSET_SECONDS = 86_399;
 
+/** Largest magnitude of a duration's calendar field (years, months, weeks, days): below 2^32, as in Temporal. */
+export const MAX_DURATION_CALENDAR_FIELD = 4_294_967_295;
+
 // ---------------------------------------------------------------------------------------------------------
 // Derived ranges
 

@@ -217,7 +217,7 @@ export function monthIndexOfDayNumberUnchecked(dayNumber: number): number {
 }
 
 /** @internal */
-export function unpackYmd(packed: number): Ymd {
+function unpackYmd(packed: number): Ymd {
   return { year: yearOfPacked(packed), month: monthOfPacked(packed), day: dayOfPacked(packed) };
 }
 
@@ -227,12 +227,12 @@ export function yearOfDayNumberUnchecked(dayNumber: number): number {
 }
 
 /** @internal */
-export function monthOfDayNumberUnchecked(dayNumber: number): number {
+function monthOfDayNumberUnchecked(dayNumber: number): number {
   return monthOfPacked(packedYmdUnchecked(dayNumber));
 }
 
 /** @internal */
-export function dayOfMonthOfDayNumberUnchecked(dayNumber: number): number {
+function dayOfMonthOfDayNumberUnchecked(dayNumber: number): number {
   return dayOfPacked(packedYmdUnchecked(dayNumber));
 }
 

@@ -67,40 +67,40 @@ export function toEpochMs(value: unknown): number {
   if (typeof value === 'string') return parseInstant(value).epochMs;
   if (typeof value === 'number') {
     if (!Number.isFinite(value)) {
-      throw new KalendsRangeError(`toEpochMs: expected a finite number of epoch milliseconds, got ${describeValue(value)}`, { code: 'out-of-range', received: value });
+      throw new KalendsRangeError(`value: expected a finite number of epoch milliseconds, got ${describeValue(value)}`, { code: 'out-of-range', received: value });
     }
     // A fraction of a millisecond is kept: the instant lies within millisecond Math.floor(value) (docs/design.md).
-    return checkEpochMs('toEpochMs', value === 0 ? 0 : value, value);
+    return checkEpochMs('value', value === 0 ? 0 : value, value);
   }
   if (value instanceof Date) {
     const t = value.getTime();
     if (Number.isNaN(t)) {
-      throw new KalendsRangeError('toEpochMs: got an invalid Date (its time value is NaN)', { code: 'out-of-range', received: value });
+      throw new KalendsRangeError('value: got an invalid Date (its time value is NaN)', { code: 'out-of-range', received: value });
     }
     return t === 0 ? 0 : t;
   }
   if (typeof value === 'object' && value !== null) {
     const o = value as { epochNanoseconds?: unknown; epochMilliseconds?: unknown };
-    if (typeof o.epochNanoseconds === 'bigint') return checkEpochMs('toEpochMs', floorDivBig(o.epochNanoseconds), value);
+    if (typeof o.epochNanoseconds === 'bigint') return checkEpochMs('value', floorDivBig(o.epochNanoseconds), value);
     if (typeof o.epochMilliseconds === 'number' && Number.isInteger(o.epochMilliseconds)) {
-      return checkEpochMs('toEpochMs', o.epochMilliseconds, value);
+      return checkEpochMs('value', o.epochMilliseconds, value);
     }
     const tag = temporalTag(value);
     if (tag === 'Temporal.PlainDateTime' || tag === 'Temporal.PlainDate') {
       throw new KalendsTypeError(
-        `toEpochMs: got a ${tag}, which names no instant until a zone is chosen; convert it with a zone (Temporal's toZonedDateTime, or the zone layer) first`,
+        `value: got a ${tag}, which names no instant until a zone is chosen; convert it with a zone (Temporal's toZonedDateTime, or the zone layer) first`,
         { code: 'invalid-type', received: value },
       );
     }
   }
   if (typeof value === 'bigint') {
     throw new KalendsTypeError(
-      `toEpochMs: got a bigint (${value}n); a bigint is ambiguous (nanoseconds? milliseconds?). Pass epoch milliseconds as a number, e.g. Number(ns / 1000000n)`,
+      `value: got a bigint (${value}n); a bigint is ambiguous (nanoseconds? milliseconds?). Pass epoch milliseconds as a number, e.g. Number(ns / 1000000n)`,
       { code: 'invalid-type', received: value },
     );
   }
   throw new KalendsTypeError(
-    `toEpochMs: expected an RFC 3339 string with an offset, an integer number of epoch ms, a valid Date or a Temporal.Instant / ZonedDateTime, got ${kindOf(value)}`,
+    `value: expected an RFC 3339 string with an offset, an integer number of epoch ms, a valid Date or a Temporal.Instant / ZonedDateTime, got ${kindOf(value)}`,
     { code: 'invalid-type', received: value },
   );
 }
@@ -167,7 +167,7 @@ export function toDayNumber(value: unknown, options?: ToDayNumberOptions): numbe
   if (typeof value === 'number') {
     if (Number.isInteger(value) && (value > MAX_DAY_NUMBER || value < MIN_DAY_NUMBER)) {
       throw new KalendsRangeError(
-        `toDayNumber: ${describeValue(value)} is outside the day numbers ${MIN_DAY_NUMBER} to ${MAX_DAY_NUMBER}; if it is epoch milliseconds, it is an instant: choose a zone and use the zone layer's dayNumberFromEpochMs`,
+        `value: ${describeValue(value)} is outside the day numbers ${MIN_DAY_NUMBER} to ${MAX_DAY_NUMBER}; if it is epoch milliseconds, it is an instant: choose a zone and use the zone layer's dayNumberFromEpochMs`,
         { code: 'out-of-range', received: value },
       );
     }
@@ -176,28 +176,28 @@ export function toDayNumber(value: unknown, options?: ToDayNumberOptions): numbe
   if (value instanceof Date) {
     const mode = dateFields;
     if (Number.isNaN(value.getTime())) {
-      throw new KalendsRangeError('toDayNumber: got an invalid Date (its time value is NaN)', { code: 'out-of-range', received: value });
+      throw new KalendsRangeError('value: got an invalid Date (its time value is NaN)', { code: 'out-of-range', received: value });
     }
     if (mode === 'utc') return dayNumberFromYmd(value.getUTCFullYear(), value.getUTCMonth() + 1, value.getUTCDate());
     if (mode === 'local') return dayNumberFromYmd(value.getFullYear(), value.getMonth() + 1, value.getDate());
     throw new KalendsTypeError(
-      `toDayNumber: got a Date${mode === undefined ? '' : ` with options.dateFields ${describeValue(mode)}`}; a Date is an instant, and its calendar date depends on the zone. Pass { dateFields: 'utc' } or { dateFields: 'local' } to choose, or use the zone layer's dayNumberFromEpochMs`,
+      `value: got a Date${mode === undefined ? '' : ` with options.dateFields ${describeValue(mode)}`}; a Date is an instant, and its calendar date depends on the zone. Pass { dateFields: 'utc' } or { dateFields: 'local' } to choose, or use the zone layer's dayNumberFromEpochMs`,
       { code: 'invalid-type', received: value },
     );
   }
   if (typeof value === 'object' && value !== null) {
     const tag = temporalTag(value);
-    const dn = ymdObjectToDayNumber('toDayNumber', value, tag);
+    const dn = ymdObjectToDayNumber('value', value, tag);
     if (dn !== undefined) return dn;
     if (tag === 'Temporal.Instant') {
       throw new KalendsTypeError(
-        'toDayNumber: got a Temporal.Instant, which has no calendar date until a zone is chosen; use toEpochMs and the zone layer, or Temporal toZonedDateTimeISO first',
+        'value: got a Temporal.Instant, which has no calendar date until a zone is chosen; use toEpochMs and the zone layer, or Temporal toZonedDateTimeISO first',
         { code: 'invalid-type', received: value },
       );
     }
   }
   throw new KalendsTypeError(
-    `toDayNumber: expected an ISO 8601 date string, an integer day number, a Temporal.PlainDate / PlainDateTime / ZonedDateTime or { year, month, day }, got ${kindOf(value)}`,
+    `value: expected an ISO 8601 date string, an integer day number, a Temporal.PlainDate / PlainDateTime / ZonedDateTime or { year, month, day }, got ${kindOf(value)}`,
     { code: 'invalid-type', received: value },
   );
 }
@@ -220,7 +220,7 @@ export function toWallMs(value: unknown): number {
   if (typeof value === 'number') return requireWallMs('wallMs', value === 0 ? 0 : value, min, max);
   if (typeof value === 'object' && value !== null && !(value instanceof Date)) {
     const tag = temporalTag(value);
-    const dn = ymdObjectToDayNumber('toWallMs', value, tag);
+    const dn = ymdObjectToDayNumber('value', value, tag);
     if (dn !== undefined) {
       const o = value as { hour?: unknown; minute?: unknown; second?: unknown; millisecond?: unknown };
       const part = (name: 'hour' | 'minute' | 'second' | 'millisecond', hi: number): number => {
@@ -232,7 +232,7 @@ export function toWallMs(value: unknown): number {
     }
   }
   throw new KalendsTypeError(
-    `toWallMs: expected a local ISO 8601 date-time string, an integer of wall ms, or a Temporal.PlainDateTime / PlainDate / ZonedDateTime, got ${kindOf(value)}${value instanceof Date ? '; a Date is an instant: use toEpochMs and the zone layer' : ''}`,
+    `value: expected a local ISO 8601 date-time string, an integer of wall ms, or a Temporal.PlainDateTime / PlainDate / ZonedDateTime, got ${kindOf(value)}${value instanceof Date ? '; a Date is an instant: use toEpochMs and the zone layer' : ''}`,
     { code: 'invalid-type', received: value },
   );
 }
@@ -258,7 +258,7 @@ export interface TemporalNamespaceLike {
 function requireNamespace(fn: string, ns: unknown, member: 'Instant' | 'PlainDate' | 'PlainDateTime'): void {
   const m = typeof ns === 'object' && ns !== null ? (ns as Record<string, unknown>)[member] : undefined;
   if (typeof m !== 'function' && (typeof m !== 'object' || m === null)) {
-    throw new KalendsTypeError(`${fn}: expected a Temporal namespace (with Temporal.${member}) as the last argument, got ${describeValue(ns)}`, {
+    throw new KalendsTypeError(`temporal: expected a Temporal namespace (with Temporal.${member}) as the last argument, got ${describeValue(ns)}; pass Temporal from the runtime or from a polyfill`, {
       code: 'invalid-type',
       received: ns,
     });
@@ -269,7 +269,7 @@ function wrapTemporal<T>(fn: string, received: unknown, make: () => T): T {
   try {
     return make();
   } catch (e) {
-    throw new KalendsRangeError(`${fn}: the Temporal implementation refused ${describeValue(received)}: ${(e as Error).message}`, {
+    throw new KalendsRangeError(`${fn}: the Temporal implementation refused ${describeValue(received)} (Temporal's range is -271821-04-19 to +275760-09-13): ${(e as Error).message}`, {
       code: 'out-of-range',
       received,
     });
@@ -292,7 +292,7 @@ export function temporalInstantFromEpochMs<T extends Pick<TemporalNamespaceLike,
 ): ReturnType<T['Instant']['fromEpochMilliseconds']> {
   const whole = Math.floor(requireEpochMs('epochMs', epochMs));
   requireNamespace('temporalInstantFromEpochMs', temporal, 'Instant');
-  return wrapTemporal('temporalInstantFromEpochMs', epochMs, () => temporal.Instant.fromEpochMilliseconds(whole)) as ReturnType<
+  return wrapTemporal('epochMs', epochMs, () => temporal.Instant.fromEpochMilliseconds(whole)) as ReturnType<
     T['Instant']['fromEpochMilliseconds']
   >;
 }
@@ -312,7 +312,7 @@ export function temporalPlainDateFromDayNumber<T extends Pick<TemporalNamespaceL
 ): InstanceType<T['PlainDate']> {
   const { year, month, day } = ymdFromDayNumber(dayNumber);
   requireNamespace('temporalPlainDateFromDayNumber', temporal, 'PlainDate');
-  return wrapTemporal('temporalPlainDateFromDayNumber', dayNumber, () => new temporal.PlainDate(year, month, day)) as InstanceType<T['PlainDate']>;
+  return wrapTemporal('dayNumber', dayNumber, () => new temporal.PlainDate(year, month, day)) as InstanceType<T['PlainDate']>;
 }
 
 /**
@@ -339,7 +339,7 @@ export function temporalPlainDateTimeFromWallMs<T extends Pick<TemporalNamespace
   r -= mi * 60_000;
   const s = Math.floor(r / 1000);
   const ms = r - s * 1000;
-  return wrapTemporal('temporalPlainDateTimeFromWallMs', wallMs, () => new temporal.PlainDateTime(year, month, day, h, mi, s, ms)) as InstanceType<
+  return wrapTemporal('wallMs', wallMs, () => new temporal.PlainDateTime(year, month, day, h, mi, s, ms)) as InstanceType<
     T['PlainDateTime']
   >;
 }

@@ -5,7 +5,7 @@
  *
  * @module
  */
-import { MAX_DAY_NUMBER, MAX_YEAR, MIN_DAY_NUMBER, MIN_YEAR, MS_PER_DAY } from '../bounds.js';
+import { MAX_DAY_NUMBER, MAX_DURATION_CALENDAR_FIELD, MAX_YEAR, MIN_DAY_NUMBER, MIN_YEAR, MS_PER_DAY } from '../bounds.js';
 import { KalendsRangeError, KalendsTypeError, describeValue, requireInteger } from '../errors.js';
 import { dayCountOfMonthUnchecked, dayNumberFromYmdUnchecked, dayOfPacked, monthIndexOfPacked, packedYmdUnchecked, requireDayNumber } from '../civil/gregorian.js';
 import { monthOfMonthIndex, yearOfMonthIndex } from '../civil/names.js';
@@ -36,8 +36,6 @@ export type DurationFields = Partial<Omit<Duration, 'sign'>>;
 const FIELD_NAMES = ['years', 'months', 'weeks', 'days', 'hours', 'minutes', 'seconds', 'milliseconds'] as const;
 type FieldName = (typeof FIELD_NAMES)[number];
 
-/** Largest magnitude of a calendar field (years, months, weeks, days): below 2^32, as in Temporal. */
-export const MAX_DURATION_CALENDAR_FIELD = 4_294_967_295;
 const MS_PER_HOUR = 3_600_000;
 const MS_PER_MINUTE = 60_000;
 
@@ -138,7 +136,7 @@ export function exactMsOfDuration(duration: Duration): number {
 
 function requireDuration(fn: string, d: unknown): Duration {
   if (typeof d !== 'object' || d === null || typeof (d as Duration).sign !== 'number' || typeof (d as Duration).milliseconds !== 'number') {
-    throw new KalendsTypeError(`${fn}: expected a Duration (from parseDuration or durationFromFields), got ${describeValue(d)}`, {
+    throw new KalendsTypeError(`duration: expected a Duration (from parseDuration or durationFromFields), got ${describeValue(d)}${typeof d === 'string' ? '; parse text first with parseDuration(text)' : ''}`, {
       code: 'invalid-type',
       received: d,
     });
@@ -307,7 +305,7 @@ function shiftDays(fn: string, dayNumber: number, d: Duration, overflow: 'constr
     const ny = yearOfMonthIndex(total);
     const nm = monthOfMonthIndex(total);
     if (ny < MIN_YEAR || ny > MAX_YEAR) {
-      throw new KalendsRangeError(`${fn}: ${shown} + ${formatDuration(d)} reaches year ${ny}, outside the supported years ${MIN_YEAR} to ${MAX_YEAR}`, {
+      throw new KalendsRangeError(`duration: ${shown} + ${formatDuration(d)} reaches year ${ny}, outside the supported years ${MIN_YEAR} to ${MAX_YEAR}`, {
         code: 'out-of-range',
         received: d,
       });
@@ -316,7 +314,7 @@ function shiftDays(fn: string, dayNumber: number, d: Duration, overflow: 'constr
     if (day > dim) {
       if (overflow === 'reject') {
         throw new KalendsRangeError(
-          `${fn}: ${shown} + ${formatDuration(d)} asks for day ${day} of ${ny}-${String(nm).padStart(2, '0')}, which has ${dim} days, and options.overflow is "reject"; use "constrain" to clamp to the last day`,
+          `duration: ${shown} + ${formatDuration(d)} asks for day ${day} of ${ny}-${String(nm).padStart(2, '0')}, which has ${dim} days, and options.overflow is "reject"; use "constrain" to clamp to the last day`,
           { code: 'out-of-range', received: d },
         );
       }
@@ -357,13 +355,13 @@ export function shiftDayNumber(dayNumber: number, duration: Duration, options?: 
   const exact = exactMsOfDuration(d);
   if (exact % MS_PER_DAY !== 0) {
     throw new KalendsRangeError(
-      `shiftDayNumber: ${formatDuration(d)} has exact parts that are not a whole number of days, so it cannot move the date ${shown}; use shiftWallMs to move a date-time`,
+      `duration: ${formatDuration(d)} has exact parts that are not a whole number of days, so it cannot move the date ${shown}; use shiftWallMs to move a date-time`,
       { code: 'out-of-range', received: duration },
     );
   }
   const dn = shiftDays('shiftDayNumber', dayNumber, d, overflow, shown) + exact / MS_PER_DAY;
   if (!(dn >= MIN_DAY_NUMBER && dn <= MAX_DAY_NUMBER)) {
-    throw new KalendsRangeError(`shiftDayNumber: ${shown} + ${formatDuration(d)} falls outside the supported day numbers ${MIN_DAY_NUMBER} to ${MAX_DAY_NUMBER}`, {
+    throw new KalendsRangeError(`duration: ${shown} + ${formatDuration(d)} falls outside the supported day numbers ${MIN_DAY_NUMBER} to ${MAX_DAY_NUMBER}`, {
       code: 'out-of-range',
       received: duration,
     });
@@ -395,7 +393,7 @@ export function shiftWallMs(wallMs: number, duration: Duration, options?: ShiftO
   const dn3 = dn2 + exactDays;
   const result = dn3 * MS_PER_DAY + msOfDay + (exact - exactDays * MS_PER_DAY);
   if (!(result >= MIN_DAY_NUMBER * MS_PER_DAY && result <= MAX_DAY_NUMBER * MS_PER_DAY + MS_PER_DAY - 1)) {
-    throw new KalendsRangeError(`shiftWallMs: ${shown} + ${formatDuration(d)} falls outside the supported date-times`, {
+    throw new KalendsRangeError(`duration: ${shown} + ${formatDuration(d)} falls outside the supported date-times`, {
       code: 'out-of-range',
       received: duration,
     });

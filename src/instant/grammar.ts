@@ -206,7 +206,7 @@ export function failMinusSign(sc: Scanner): never {
 }
 
 /** @internal Reads `±HH:MM` or, when `allowSeconds`, `±HH:MM:SS`. Returns seconds east of UTC. */
-export function readNumericOffset(sc: Scanner, allowSeconds: boolean): number {
+function readNumericOffset(sc: Scanner, allowSeconds: boolean): number {
   const start = sc.pos;
   const sign = sc.peek() === 45 ? -1 : 1;
   sc.pos++;

@@ -28,7 +28,6 @@ export {
   type Duration,
   type DurationFields,
   type ShiftOptions,
-  MAX_DURATION_CALENDAR_FIELD,
   durationFromFields,
   negateDuration,
   exactMsOfDuration,

@@ -24,7 +24,7 @@ import { type UnitInput, coreOf, toUnit } from './units.js';
  */
 export function periodFromEpochMs(unit: UnitInput, zone: ZoneInput, epochMs: number): Period {
   const u = toUnit(unit);
-  return periodChecked(u, u.ordinalFromDayNumber(dayNumberFromEpochMs(zone, epochMs)), 'periodFromEpochMs');
+  return periodChecked(u, u.ordinalFromDayNumber(dayNumberFromEpochMs(zone, epochMs)), 'epochMs', 'periodFromEpochMs');
 }
 
 /**

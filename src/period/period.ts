@@ -33,11 +33,15 @@ function make(unit: PeriodUnit, ordinal: number): Period {
   return Object.freeze({ unit, ordinal });
 }
 
-/** @internal A period with a range-checked ordinal; `what` describes the operation for messages. */
-export function periodChecked(unit: PeriodUnit, ordinal: number, what: string): Period {
+/**
+ * @internal A period with a range-checked ordinal; `name` is the parameter that led there and `what` the
+ * operation, for the message (`years: shiftPeriodYears(+275760, 1) gives ordinal 275761, ...`).
+ */
+export function periodChecked(unit: PeriodUnit, ordinal: number, name: string, what: string): Period {
   if (!(ordinal >= unit.minOrdinal && ordinal <= unit.maxOrdinal)) {
+    const core = coreOf(unit)!;
     throw new KalendsRangeError(
-      `${what}: the result, ordinal ${ordinal}, is outside the supported range of unit ${unit.id} (${unit.minOrdinal}..${unit.maxOrdinal})`,
+      `${name}: ${what} gives ordinal ${ordinal}, outside the supported range of unit ${unit.id}; expected a result from ${core.format(unit.minOrdinal)} to ${core.format(unit.maxOrdinal)} (ordinals ${unit.minOrdinal}..${unit.maxOrdinal})`,
       { code: 'out-of-range', received: ordinal },
     );
   }
@@ -81,7 +85,7 @@ export function periodFromDayNumber(unit: UnitInput, dayNumber: number): Period 
 export function shiftPeriod(p: Period, n: number): Period {
   requirePeriod(p, 'p');
   requireWhole('n', n, -Number.MAX_SAFE_INTEGER, Number.MAX_SAFE_INTEGER);
-  return periodChecked(p.unit, p.ordinal + n, `shiftPeriod(${formatPeriod(p)}, ${n})`);
+  return periodChecked(p.unit, p.ordinal + n, 'n', `shiftPeriod(${formatPeriod(p)}, ${n})`);
 }
 
 function requireSameUnit(a: Period, b: Period): void {
@@ -237,7 +241,7 @@ const MAX_SHIFT_YEARS = MAX_YEAR - MIN_YEAR;
 export function shiftPeriodYears(p: Period, years: number): Period {
   const core = requirePeriod(p, 'p');
   requireWhole('years', years, -MAX_SHIFT_YEARS, MAX_SHIFT_YEARS);
-  return periodChecked(p.unit, core.shiftYears(p.ordinal, years), `shiftPeriodYears(${formatPeriod(p)}, ${years})`);
+  return periodChecked(p.unit, core.shiftYears(p.ordinal, years), 'years', `shiftPeriodYears(${formatPeriod(p)}, ${years})`);
 }
 
 function subPeriodRange(p: Period, unit: UnitInput): { sub: PeriodUnit; first: number; last: number; start: number; end: number } {

@@ -66,8 +66,8 @@ interface DayTable {
   readonly changeAfter: Float64Array;
 }
 
-export const CHANGE_DAY = 255;
-export const BUSY_DAY = 254;
+const CHANGE_DAY = 255;
+const BUSY_DAY = 254;
 
 /*
  * The kernels find an instant's UTC day, and its local day from its wall-clock time, as

@@ -191,8 +191,8 @@ export function wallFieldsFromEpochMs(zone: ZoneInput, epochMs: number): WallFie
   };
 }
 
-/** @internal Resolution on an engine, without validation. */
-export function resolveOn(e: Engine, wall: number): WallResolution {
+/** Resolution on an engine, without validation. */
+function resolveOn(e: Engine, wall: number): WallResolution {
   // Fast path: one offset holds across the whole ±1 day window around the wall time.
   e.offsetAt(wall);
   if (e.lo <= wall - MS_PER_DAY && e.hi > wall + MS_PER_DAY) return { kind: 'unique', epochMs: wall - e.off * 1000, offsetSeconds: e.off };
@@ -264,7 +264,7 @@ export function resolveWallMs(zone: ZoneInput, wallMs: number): WallResolution {
 const DISAMBIGUATIONS: readonly Disambiguation[] = ['compatible', 'earlier', 'later', 'reject'];
 
 /** @internal A disambiguation option: one of Temporal's four strings (a misspelling is named with the nearest). */
-export function requireDisambiguation(value: unknown, name = 'disambiguation'): Disambiguation {
+function requireDisambiguation(value: unknown, name = 'disambiguation'): Disambiguation {
   return requireEnum(name, value, DISAMBIGUATIONS, 'compatible');
 }
 
