@@ -14,7 +14,7 @@ import {
   formatPeriod,
   listSubPeriods,
   parsePeriod,
-  periodContaining,
+  periodFromPeriod,
   firstDayNumberOfPeriod,
   lastDayNumberOfPeriod,
   lengthDaysOfPeriod,
@@ -51,7 +51,7 @@ const periods = listSubPeriods(fy, periodUnit);
 const rows: string[] = [];
 let y = TOP;
 for (const p of periods) {
-  const q = periodContaining(p, quarterUnit);
+  const q = periodFromPeriod(quarterUnit, p);
   const qi = Number(formatPeriod(q).slice(-1)) - 1;
   // Retail months are named after the calendar month that holds most of their days (the middle day's month).
   const { month } = ymdFromDayNumber(firstDayNumberOfPeriod(p) + Math.floor(lengthDaysOfPeriod(p) / 2));

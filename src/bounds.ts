@@ -24,3 +24,42 @@ export const MAX_EPOCH_MS = 8.64e15;
 export const MS_PER_DAY = 86_400_000;
 /** Largest absolute UTC offset accepted, in seconds (exclusive of 24 hours, as in RFC 9557 and Temporal). */
 export const MAX_OFFSET_SECONDS = 86_399;
+
+/** Largest magnitude of a duration's calendar field (years, months, weeks, days): below 2^32, as in Temporal. */
+export const MAX_DURATION_CALENDAR_FIELD = 4_294_967_295;
+
+// ---------------------------------------------------------------------------------------------------------
+// Derived ranges
+
+/** Longest period a unit may have, in days: a cycle of a century (`{ kind: 'cycle', lengthDays }`). */
+export const MAX_CYCLE_DAYS = 36_525;
+/**
+ * The day numbers whose first instant the zone layer gives (`firstEpochMsOfDayNumber`, `lengthMsOfDayNumber`): the
+ * civil range widened by the longest period on each side, so that the first day and the exclusive end of every
+ * period of every unit, the partial periods at the ends of the range included, have a first instant. Days whose
+ * start lies outside ±8.64e15 ms get instants outside it, computed with the zone's rules at the nearest end of the
+ * instant range (its offset there before the range; its yearly rules repeated, 400 Gregorian years at a time,
+ * after it).
+ */
+export const MIN_ZONED_DAY_NUMBER = MIN_DAY_NUMBER - MAX_CYCLE_DAYS;
+/** The last day number of {@link MIN_ZONED_DAY_NUMBER}'s range. */
+export const MAX_ZONED_DAY_NUMBER = MAX_DAY_NUMBER + MAX_CYCLE_DAYS;
+
+// ---------------------------------------------------------------------------------------------------------
+// Operational limits: work per call and memory are bounded (docs/design.md, "Limits")
+
+/** How many zones the zone cache holds (least recently used ones are dropped first). */
+export const ZONE_CACHE_LIMIT = 64;
+/** How many compiled units the unit cache holds (the oldest is dropped first). */
+export const UNIT_CACHE_LIMIT = 256;
+/** Most periods a period list returns (`listSubPeriods`, `listOverlappingPeriods`) before `limit-exceeded`. */
+export const MAX_LIST_LENGTH = 100_000;
+/**
+ * Most years of a zone's rules one `listTransitions` call walks before `limit-exceeded` (about a second for a
+ * zone read from Intl), unless the rules have fallen quiet for good.
+ */
+export const MAX_TRANSITION_WALK_YEARS = 2_000;
+/** Default `limit` of `listTransitions`: the most transitions one call returns. */
+export const DEFAULT_TRANSITION_LIMIT = 100_000;
+/** Largest `limit` of `listTransitions`. */
+export const MAX_TRANSITION_LIMIT = 10_000_000;

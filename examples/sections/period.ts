@@ -11,7 +11,7 @@ import {
   lastDayNumberOfPeriod,
   lengthDaysOfPeriod,
   firstEpochMsOfPeriod,
-  periodYearEarlier,
+  shiftPeriodYears,
   formatInstant,
   offsetSecondsFromEpochMs,
 } from '../../src/index.js';
@@ -60,7 +60,7 @@ export const section: DemoSection = {
     const months = listSubPeriods(fy, retailMonth);
     const labels = formatOrdinalBulk(retailMonth, months.map((p) => p.ordinal));
     months.forEach((p, i) => {
-      const prior = periodYearEarlier(p);
+      const prior = shiftPeriodYears(p, -1);
       const now = totals.get(p.ordinal) ?? 0;
       const before = totals.get(prior.ordinal) ?? 0;
       const change = before > 0 ? `${(((now - before) / before) * 100).toFixed(1).padStart(6)}%` : '     -';

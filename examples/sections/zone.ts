@@ -28,7 +28,7 @@ export const section: DemoSection = {
     // The nightly stock count at 02:30 Chicago time does not exist on the spring-forward day.
     const r = resolveWallMs('America/Chicago', dayNumberFromYmd(2026, 3, 8) * 86_400_000 + 2.5 * 3_600_000);
     if (r.kind === 'gap') {
-      print(`The 02:30 stock count on 2026-03-08 falls in a gap: Chicago clocks jump from ${formatPlainDateTime(r.gapStartWallMs).slice(11, 16)} to ${formatPlainDateTime(r.gapEndWallMs).slice(11, 16)}; 'compatible' runs it at 03:30.`);
+      print(`The 02:30 stock count on 2026-03-08 falls in a gap: Chicago clocks jump from ${formatPlainDateTime(r.startWallMs).slice(11, 16)} to ${formatPlainDateTime(r.endWallMs).slice(11, 16)}; 'compatible' runs it at 03:30.`);
     }
     // Day lengths at the Dublin and Auckland desks in 2026.
     for (const o of OFFICES.filter((x) => x.zone !== 'Asia/Kolkata' && x.zone !== 'America/Chicago')) {

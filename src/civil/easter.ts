@@ -70,7 +70,7 @@ export function julianEasterDayNumberOfYear(year: number): number {
  * @internal Day number of a Julian-calendar date (years >= 1). Julian day number algorithm from
  * Meeus, "Astronomical Algorithms", chapter 7 (with B = 0 for the Julian calendar); JD 2440587.5 is 1970-01-01.
  */
-export function julianCalendarToDayNumber(year: number, month: number, day: number): number {
+function julianCalendarToDayNumber(year: number, month: number, day: number): number {
   let y = year;
   let m = month;
   if (m <= 2) {

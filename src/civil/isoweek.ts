@@ -8,10 +8,10 @@ import { requireInteger } from '../errors.js';
 import {
   dayNumberFromYmdUnchecked,
   isLeapYearUnchecked,
-  packedYmdUnchecked,
   requireDayNumber,
   requireYear,
   weekdayOfDayNumberUnchecked,
+  yearOfDayNumberUnchecked,
 } from './gregorian.js';
 import { MIN_YEAR, MAX_YEAR, MAX_DAY_NUMBER, MIN_DAY_NUMBER } from '../bounds.js';
 import { KalendsRangeError } from '../errors.js';
@@ -64,7 +64,7 @@ export function isoWeekDateFromDayNumber(dayNumber: number): IsoWeekDate {
   const weekday = weekdayOfDayNumberUnchecked(dayNumber);
   // The Thursday of the same ISO week decides the week-year.
   const thursday = dayNumber - weekday + 4;
-  const weekYear = Math.floor(packedYmdUnchecked(thursday) / 512) + MIN_YEAR;
+  const weekYear = yearOfDayNumberUnchecked(thursday);
   const week = Math.floor((thursday - dayNumberFromYmdUnchecked(weekYear, 1, 1)) / 7) + 1;
   return { weekYear, week, weekday };
 }

@@ -6,8 +6,7 @@
  *
  * @module
  */
-import { MIN_YEAR } from '../bounds.js';
-import { dayCountOfMonthUnchecked, dayNumberFromYmdUnchecked, packedYmdUnchecked } from './gregorian.js';
+import { dayCountOfMonthUnchecked, dayNumberFromYmdUnchecked } from './gregorian.js';
 
 /** A weekday by its lower-case English name, as definitions spell it. */
 export type WeekdayName = 'monday' | 'tuesday' | 'wednesday' | 'thursday' | 'friday' | 'saturday' | 'sunday';
@@ -45,30 +44,13 @@ export function titleOfWeekday(weekday: number): string {
   return name[0]!.toUpperCase() + name.slice(1);
 }
 
-/** @internal Year of a packed year-month-day (see `packedYmdUnchecked`). */
-export function yearOfPacked(packed: number): number {
-  return Math.floor(packed / 512) + MIN_YEAR;
-}
-
-/** @internal Month 1..12 of a packed year-month-day. */
-export function monthOfPacked(packed: number): number {
-  return (packed >> 5) & 15;
-}
-
-/** @internal Day of month 1..31 of a packed year-month-day. */
-export function dayOfPacked(packed: number): number {
-  return packed & 31;
-}
-
-/** @internal Month index (`year * 12 + month - 1`) of a packed year-month-day. */
-export function monthIndexOfPacked(packed: number): number {
-  return (Math.floor(packed / 512) + MIN_YEAR) * 12 + ((packed >> 5) & 15) - 1;
-}
-
-/** @internal Month index of the month that holds a day number (unchecked). */
-export function monthIndexOfDayNumberUnchecked(dayNumber: number): number {
-  return monthIndexOfPacked(packedYmdUnchecked(dayNumber));
-}
+export {
+  yearOfPacked,
+  monthOfPacked,
+  dayOfPacked,
+  monthIndexOfPacked,
+  monthIndexOfDayNumberUnchecked,
+} from './gregorian.js';
 
 /** @internal Month index of a year and month. */
 export function monthIndexFromYearMonth(year: number, month: number): number {

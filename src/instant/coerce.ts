@@ -9,7 +9,9 @@
 import { MAX_DAY_NUMBER, MAX_EPOCH_MS, MIN_DAY_NUMBER, MIN_EPOCH_MS, MS_PER_DAY } from '../bounds.js';
 import { KalendsRangeError, KalendsTypeError, describeValue, requireInteger } from '../errors.js';
 import { dayNumberFromYmd, requireDayNumber, ymdFromDayNumber } from '../civil/gregorian.js';
+import { optionOf, readOptions, requireEnum, requireEpochMs } from '../diagnostics/index.js';
 import { parseInstant, parsePlainDate, parsePlainDateTime } from './text.js';
+import { requireWallMs } from './format.js';
 
 /** The name of a value's kind for messages: Temporal objects by their tag (`Temporal.PlainDate`), others as usual. */
 function kindOf(value: unknown): string {
@@ -46,7 +48,7 @@ function checkEpochMs(fn: string, ms: number, received: unknown): number {
  * | input | result |
  * | --- | --- |
  * | string | {@link parseInstant}: RFC 3339 / RFC 9557 with a required offset |
- * | number | an integer within ±8.64e15 is taken as epoch ms; NaN, infinities and fractions are rejected |
+ * | number | a number within ±8.64e15 is taken as epoch ms, a fraction of a millisecond kept (the instant lies in millisecond `Math.floor(value)`); NaN and infinities are rejected |
  * | `Date` | its time value; an invalid `Date` is rejected |
  * | Temporal.Instant, Temporal.ZonedDateTime (any implementation) | `epochNanoseconds` floored to the ms, or `epochMilliseconds` |
  *
@@ -57,49 +59,48 @@ function checkEpochMs(fn: string, ms: number, received: unknown): number {
  * ```ts
  * toEpochMs('1970-01-01T00:00:01Z');   // 1000
  * toEpochMs(new Date(0));              // 0
+ * toEpochMs(1.5);                      // 1.5 (in millisecond 1)
  * toEpochMs(Temporal.Now.instant());   // works with any Temporal implementation
  * ```
  */
 export function toEpochMs(value: unknown): number {
   if (typeof value === 'string') return parseInstant(value).epochMs;
   if (typeof value === 'number') {
-    if (!Number.isInteger(value)) {
-      throw new KalendsRangeError(
-        `toEpochMs: expected an integer number of epoch milliseconds, got ${describeValue(value)}${Number.isFinite(value) ? '; round it first (Math.floor truncates toward the past)' : ''}`,
-        { code: 'out-of-range', received: value },
-      );
+    if (!Number.isFinite(value)) {
+      throw new KalendsRangeError(`value: expected a finite number of epoch milliseconds, got ${describeValue(value)}`, { code: 'out-of-range', received: value });
     }
-    return checkEpochMs('toEpochMs', value === 0 ? 0 : value, value);
+    // A fraction of a millisecond is kept: the instant lies within millisecond Math.floor(value) (docs/design.md).
+    return checkEpochMs('value', value === 0 ? 0 : value, value);
   }
   if (value instanceof Date) {
     const t = value.getTime();
     if (Number.isNaN(t)) {
-      throw new KalendsRangeError('toEpochMs: got an invalid Date (its time value is NaN)', { code: 'out-of-range', received: value });
+      throw new KalendsRangeError('value: got an invalid Date (its time value is NaN)', { code: 'out-of-range', received: value });
     }
     return t === 0 ? 0 : t;
   }
   if (typeof value === 'object' && value !== null) {
     const o = value as { epochNanoseconds?: unknown; epochMilliseconds?: unknown };
-    if (typeof o.epochNanoseconds === 'bigint') return checkEpochMs('toEpochMs', floorDivBig(o.epochNanoseconds), value);
+    if (typeof o.epochNanoseconds === 'bigint') return checkEpochMs('value', floorDivBig(o.epochNanoseconds), value);
     if (typeof o.epochMilliseconds === 'number' && Number.isInteger(o.epochMilliseconds)) {
-      return checkEpochMs('toEpochMs', o.epochMilliseconds, value);
+      return checkEpochMs('value', o.epochMilliseconds, value);
     }
     const tag = temporalTag(value);
     if (tag === 'Temporal.PlainDateTime' || tag === 'Temporal.PlainDate') {
       throw new KalendsTypeError(
-        `toEpochMs: got a ${tag}, which names no instant until a zone is chosen; convert it with a zone (Temporal's toZonedDateTime, or the zone layer) first`,
+        `value: got a ${tag}, which names no instant until a zone is chosen; convert it with a zone (Temporal's toZonedDateTime, or the zone layer) first`,
         { code: 'invalid-type', received: value },
       );
     }
   }
   if (typeof value === 'bigint') {
     throw new KalendsTypeError(
-      `toEpochMs: got a bigint (${value}n); a bigint is ambiguous (nanoseconds? milliseconds?). Pass epoch milliseconds as a number, e.g. Number(ns / 1000000n)`,
+      `value: got a bigint (${value}n); a bigint is ambiguous (nanoseconds? milliseconds?). Pass epoch milliseconds as a number, e.g. Number(ns / 1000000n)`,
       { code: 'invalid-type', received: value },
     );
   }
   throw new KalendsTypeError(
-    `toEpochMs: expected an RFC 3339 string with an offset, an integer number of epoch ms, a valid Date or a Temporal.Instant / ZonedDateTime, got ${kindOf(value)}`,
+    `value: expected an RFC 3339 string with an offset, an integer number of epoch ms, a valid Date or a Temporal.Instant / ZonedDateTime, got ${kindOf(value)}`,
     { code: 'invalid-type', received: value },
   );
 }
@@ -113,6 +114,8 @@ export interface ToDayNumberOptions {
    */
   readonly dateFields?: 'utc' | 'local';
 }
+
+const DATE_FIELDS: readonly ('utc' | 'local')[] = ['utc', 'local'];
 
 function ymdObjectToDayNumber(fn: string, value: object, tag: string | undefined): number | undefined {
   const o = value as { year?: unknown; month?: unknown; day?: unknown; calendarId?: unknown; calendar?: unknown };
@@ -158,48 +161,50 @@ function ymdObjectToDayNumber(fn: string, value: object, tag: string | undefined
  * ```
  */
 export function toDayNumber(value: unknown, options?: ToDayNumberOptions): number {
+  const o = readOptions('options', options, ['dateFields']);
+  const dateFields = optionOf(o, 'dateFields') === undefined ? undefined : requireEnum('options.dateFields', optionOf(o, 'dateFields'), DATE_FIELDS);
   if (typeof value === 'string') return parsePlainDate(value);
   if (typeof value === 'number') {
     if (Number.isInteger(value) && (value > MAX_DAY_NUMBER || value < MIN_DAY_NUMBER)) {
       throw new KalendsRangeError(
-        `toDayNumber: ${describeValue(value)} is outside the day numbers ${MIN_DAY_NUMBER} to ${MAX_DAY_NUMBER}; if it is epoch milliseconds, it is an instant: choose a zone and use the zone layer's dayNumberFromEpochMs`,
+        `value: ${describeValue(value)} is outside the day numbers ${MIN_DAY_NUMBER} to ${MAX_DAY_NUMBER}; if it is epoch milliseconds, it is an instant: choose a zone and use the zone layer's dayNumberFromEpochMs`,
         { code: 'out-of-range', received: value },
       );
     }
     return requireDayNumber(value === 0 ? 0 : value);
   }
   if (value instanceof Date) {
-    const mode = options?.dateFields;
+    const mode = dateFields;
     if (Number.isNaN(value.getTime())) {
-      throw new KalendsRangeError('toDayNumber: got an invalid Date (its time value is NaN)', { code: 'out-of-range', received: value });
+      throw new KalendsRangeError('value: got an invalid Date (its time value is NaN)', { code: 'out-of-range', received: value });
     }
     if (mode === 'utc') return dayNumberFromYmd(value.getUTCFullYear(), value.getUTCMonth() + 1, value.getUTCDate());
     if (mode === 'local') return dayNumberFromYmd(value.getFullYear(), value.getMonth() + 1, value.getDate());
     throw new KalendsTypeError(
-      `toDayNumber: got a Date${mode === undefined ? '' : ` with options.dateFields ${describeValue(mode)}`}; a Date is an instant, and its calendar date depends on the zone. Pass { dateFields: 'utc' } or { dateFields: 'local' } to choose, or use the zone layer's dayNumberFromEpochMs`,
+      `value: got a Date${mode === undefined ? '' : ` with options.dateFields ${describeValue(mode)}`}; a Date is an instant, and its calendar date depends on the zone. Pass { dateFields: 'utc' } or { dateFields: 'local' } to choose, or use the zone layer's dayNumberFromEpochMs`,
       { code: 'invalid-type', received: value },
     );
   }
   if (typeof value === 'object' && value !== null) {
     const tag = temporalTag(value);
-    const dn = ymdObjectToDayNumber('toDayNumber', value, tag);
+    const dn = ymdObjectToDayNumber('value', value, tag);
     if (dn !== undefined) return dn;
     if (tag === 'Temporal.Instant') {
       throw new KalendsTypeError(
-        'toDayNumber: got a Temporal.Instant, which has no calendar date until a zone is chosen; use toEpochMs and the zone layer, or Temporal toZonedDateTimeISO first',
+        'value: got a Temporal.Instant, which has no calendar date until a zone is chosen; use toEpochMs and the zone layer, or Temporal toZonedDateTimeISO first',
         { code: 'invalid-type', received: value },
       );
     }
   }
   throw new KalendsTypeError(
-    `toDayNumber: expected an ISO 8601 date string, an integer day number, a Temporal.PlainDate / PlainDateTime / ZonedDateTime or { year, month, day }, got ${kindOf(value)}`,
+    `value: expected an ISO 8601 date string, an integer day number, a Temporal.PlainDate / PlainDateTime / ZonedDateTime or { year, month, day }, got ${kindOf(value)}`,
     { code: 'invalid-type', received: value },
   );
 }
 
 /**
  * Converts what a user holds into wall milliseconds (a local date-time): a local ISO 8601 date-time string
- * ({@link parsePlainDateTime}), an integer number taken as wall ms, or a Temporal.PlainDateTime / PlainDate
+ * ({@link parsePlainDateTime}), a number taken as wall ms (a fraction of a millisecond kept), or a Temporal.PlainDateTime / PlainDate
  * (midnight) / ZonedDateTime (its wall-clock time in its own zone), duck-typed. Sub-millisecond fields of a
  * Temporal object are dropped (floored).
  *
@@ -212,10 +217,10 @@ export function toWallMs(value: unknown): number {
   const min = MIN_DAY_NUMBER * MS_PER_DAY;
   const max = MAX_DAY_NUMBER * MS_PER_DAY + MS_PER_DAY - 1;
   if (typeof value === 'string') return parsePlainDateTime(value);
-  if (typeof value === 'number') return requireInteger('wallMs', value === 0 ? 0 : value, min, max);
+  if (typeof value === 'number') return requireWallMs('wallMs', value === 0 ? 0 : value, min, max);
   if (typeof value === 'object' && value !== null && !(value instanceof Date)) {
     const tag = temporalTag(value);
-    const dn = ymdObjectToDayNumber('toWallMs', value, tag);
+    const dn = ymdObjectToDayNumber('value', value, tag);
     if (dn !== undefined) {
       const o = value as { hour?: unknown; minute?: unknown; second?: unknown; millisecond?: unknown };
       const part = (name: 'hour' | 'minute' | 'second' | 'millisecond', hi: number): number => {
@@ -227,7 +232,7 @@ export function toWallMs(value: unknown): number {
     }
   }
   throw new KalendsTypeError(
-    `toWallMs: expected a local ISO 8601 date-time string, an integer of wall ms, or a Temporal.PlainDateTime / PlainDate / ZonedDateTime, got ${kindOf(value)}${value instanceof Date ? '; a Date is an instant: use toEpochMs and the zone layer' : ''}`,
+    `value: expected a local ISO 8601 date-time string, an integer of wall ms, or a Temporal.PlainDateTime / PlainDate / ZonedDateTime, got ${kindOf(value)}${value instanceof Date ? '; a Date is an instant: use toEpochMs and the zone layer' : ''}`,
     { code: 'invalid-type', received: value },
   );
 }
@@ -253,7 +258,7 @@ export interface TemporalNamespaceLike {
 function requireNamespace(fn: string, ns: unknown, member: 'Instant' | 'PlainDate' | 'PlainDateTime'): void {
   const m = typeof ns === 'object' && ns !== null ? (ns as Record<string, unknown>)[member] : undefined;
   if (typeof m !== 'function' && (typeof m !== 'object' || m === null)) {
-    throw new KalendsTypeError(`${fn}: expected a Temporal namespace (with Temporal.${member}) as the last argument, got ${describeValue(ns)}`, {
+    throw new KalendsTypeError(`temporal: expected a Temporal namespace (with Temporal.${member}) as the last argument, got ${describeValue(ns)}; pass Temporal from the runtime or from a polyfill`, {
       code: 'invalid-type',
       received: ns,
     });
@@ -264,7 +269,7 @@ function wrapTemporal<T>(fn: string, received: unknown, make: () => T): T {
   try {
     return make();
   } catch (e) {
-    throw new KalendsRangeError(`${fn}: the Temporal implementation refused ${describeValue(received)}: ${(e as Error).message}`, {
+    throw new KalendsRangeError(`${fn}: the Temporal implementation refused ${describeValue(received)} (Temporal's range is -271821-04-19 to +275760-09-13): ${(e as Error).message}`, {
       code: 'out-of-range',
       received,
     });
@@ -272,7 +277,8 @@ function wrapTemporal<T>(fn: string, received: unknown, make: () => T): T {
 }
 
 /**
- * A `Temporal.Instant` for an instant, built with the Temporal namespace the caller passes.
+ * A `Temporal.Instant` for an instant, built with the Temporal namespace the caller passes. Temporal objects carry
+ * whole milliseconds here: a fractional instant gives the millisecond that holds it (`Math.floor`).
  *
  * @example
  * ```ts
@@ -284,9 +290,9 @@ export function temporalInstantFromEpochMs<T extends Pick<TemporalNamespaceLike,
   epochMs: number,
   temporal: T,
 ): ReturnType<T['Instant']['fromEpochMilliseconds']> {
-  requireInteger('epochMs', epochMs, MIN_EPOCH_MS, MAX_EPOCH_MS);
+  const whole = Math.floor(requireEpochMs('epochMs', epochMs));
   requireNamespace('temporalInstantFromEpochMs', temporal, 'Instant');
-  return wrapTemporal('temporalInstantFromEpochMs', epochMs, () => temporal.Instant.fromEpochMilliseconds(epochMs)) as ReturnType<
+  return wrapTemporal('epochMs', epochMs, () => temporal.Instant.fromEpochMilliseconds(whole)) as ReturnType<
     T['Instant']['fromEpochMilliseconds']
   >;
 }
@@ -306,11 +312,12 @@ export function temporalPlainDateFromDayNumber<T extends Pick<TemporalNamespaceL
 ): InstanceType<T['PlainDate']> {
   const { year, month, day } = ymdFromDayNumber(dayNumber);
   requireNamespace('temporalPlainDateFromDayNumber', temporal, 'PlainDate');
-  return wrapTemporal('temporalPlainDateFromDayNumber', dayNumber, () => new temporal.PlainDate(year, month, day)) as InstanceType<T['PlainDate']>;
+  return wrapTemporal('dayNumber', dayNumber, () => new temporal.PlainDate(year, month, day)) as InstanceType<T['PlainDate']>;
 }
 
 /**
- * A `Temporal.PlainDateTime` for wall milliseconds, built with the caller's Temporal namespace.
+ * A `Temporal.PlainDateTime` for wall milliseconds, built with the caller's Temporal namespace (a fractional wall
+ * time gives the millisecond that holds it).
  *
  * @example
  * ```ts
@@ -321,18 +328,18 @@ export function temporalPlainDateTimeFromWallMs<T extends Pick<TemporalNamespace
   wallMs: number,
   temporal: T,
 ): InstanceType<T['PlainDateTime']> {
-  requireInteger('wallMs', wallMs, MIN_DAY_NUMBER * MS_PER_DAY, MAX_DAY_NUMBER * MS_PER_DAY + MS_PER_DAY - 1);
+  const whole = Math.floor(requireWallMs('wallMs', wallMs));
   requireNamespace('temporalPlainDateTimeFromWallMs', temporal, 'PlainDateTime');
-  const dn = Math.floor(wallMs / MS_PER_DAY);
+  const dn = Math.floor(whole / MS_PER_DAY);
   const { year, month, day } = ymdFromDayNumber(dn);
-  let r = wallMs - dn * MS_PER_DAY;
+  let r = whole - dn * MS_PER_DAY;
   const h = Math.floor(r / 3_600_000);
   r -= h * 3_600_000;
   const mi = Math.floor(r / 60_000);
   r -= mi * 60_000;
   const s = Math.floor(r / 1000);
   const ms = r - s * 1000;
-  return wrapTemporal('temporalPlainDateTimeFromWallMs', wallMs, () => new temporal.PlainDateTime(year, month, day, h, mi, s, ms)) as InstanceType<
+  return wrapTemporal('wallMs', wallMs, () => new temporal.PlainDateTime(year, month, day, h, mi, s, ms)) as InstanceType<
     T['PlainDateTime']
   >;
 }

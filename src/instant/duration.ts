@@ -5,11 +5,13 @@
  *
  * @module
  */
-import { MAX_DAY_NUMBER, MAX_YEAR, MIN_DAY_NUMBER, MIN_YEAR, MS_PER_DAY } from '../bounds.js';
+import { MAX_DAY_NUMBER, MAX_DURATION_CALENDAR_FIELD, MAX_YEAR, MIN_DAY_NUMBER, MIN_YEAR, MS_PER_DAY } from '../bounds.js';
 import { KalendsRangeError, KalendsTypeError, describeValue, requireInteger } from '../errors.js';
-import { dayCountOfMonthUnchecked, dayNumberFromYmdUnchecked, packedYmdUnchecked, requireDayNumber } from '../civil/gregorian.js';
+import { dayCountOfMonthUnchecked, dayNumberFromYmdUnchecked, dayOfPacked, monthIndexOfPacked, packedYmdUnchecked, requireDayNumber } from '../civil/gregorian.js';
+import { monthOfMonthIndex, yearOfMonthIndex } from '../civil/names.js';
+import { didYouMean, isRecord, optionOf, readOptions, requireEnum } from '../diagnostics/index.js';
 import { Scanner } from './scan.js';
-import { formatDayNumberUnchecked, formatPlainDateTime } from './text.js';
+import { formatDayNumberUnchecked, formatPlainDateTime, requireWallMs } from './format.js';
 
 /**
  * A duration. Every field is an integer and all non-zero fields share one sign (`sign`). Calendar parts
@@ -34,8 +36,6 @@ export type DurationFields = Partial<Omit<Duration, 'sign'>>;
 const FIELD_NAMES = ['years', 'months', 'weeks', 'days', 'hours', 'minutes', 'seconds', 'milliseconds'] as const;
 type FieldName = (typeof FIELD_NAMES)[number];
 
-/** Largest magnitude of a calendar field (years, months, weeks, days): below 2^32, as in Temporal. */
-export const MAX_DURATION_CALENDAR_FIELD = 4_294_967_295;
 const MS_PER_HOUR = 3_600_000;
 const MS_PER_MINUTE = 60_000;
 
@@ -51,20 +51,28 @@ const MS_PER_MINUTE = 60_000;
  * ```
  */
 export function durationFromFields(fields: DurationFields): Duration {
-  if (typeof fields !== 'object' || fields === null) {
-    throw new KalendsTypeError(`durationFromFields: expected an object of duration fields, got ${describeValue(fields)}`, {
+  if (!isRecord(fields)) {
+    throw new KalendsTypeError(`fields: expected an object of duration fields (${FIELD_NAMES.join(', ')}), got ${describeValue(fields)}`, {
       code: 'invalid-type',
       received: fields,
     });
   }
   for (const key of Object.keys(fields)) {
     if (!(FIELD_NAMES as readonly string[]).includes(key) && key !== 'sign') {
-      throw new KalendsTypeError(`durationFromFields: unknown field ${JSON.stringify(key)}; valid fields are ${FIELD_NAMES.join(', ')}`, {
-        code: 'invalid-type',
-        received: fields,
-        path: key,
+      throw new KalendsTypeError(`fields.${key}: unknown duration field${didYouMean(key, FIELD_NAMES)}; valid fields are ${FIELD_NAMES.join(', ')}`, {
+        code: 'unknown-name',
+        received: key,
+        path: `fields.${key}`,
       });
     }
+  }
+  // Fields are read as properties, so that a Temporal.Duration (whose fields are getters) is read too.
+  if (FIELD_NAMES.every((name) => (fields as Record<string, unknown>)[name] === undefined)) {
+    // Temporal.Duration.from({}) throws a TypeError too: a duration names at least one field (PT0S is { seconds: 0 }).
+    throw new KalendsTypeError(`fields: expected at least one of ${FIELD_NAMES.join(', ')}, got ${describeValue(fields)} with none; write { seconds: 0 } for a zero duration`, {
+      code: 'invalid-type',
+      received: fields,
+    });
   }
   const out: Record<FieldName, number> = { years: 0, months: 0, weeks: 0, days: 0, hours: 0, minutes: 0, seconds: 0, milliseconds: 0 };
   let sign: -1 | 0 | 1 = 0;
@@ -72,12 +80,12 @@ export function durationFromFields(fields: DurationFields): Duration {
     const v = (fields as Record<string, unknown>)[name];
     if (v === undefined) continue;
     const limit = name === 'years' || name === 'months' || name === 'weeks' || name === 'days' ? MAX_DURATION_CALENDAR_FIELD : Number.MAX_SAFE_INTEGER;
-    requireInteger(name, v, -limit, limit);
+    requireInteger(`fields.${name}`, v, -limit, limit);
     const n = (v as number) === 0 ? 0 : (v as number); // normalise -0
     if (n !== 0) {
       const s = n < 0 ? -1 : 1;
       if (sign !== 0 && s !== sign) {
-        throw new KalendsRangeError(`durationFromFields: ${name}: ${n} has the opposite sign of the other fields; all non-zero fields of a duration share one sign`, {
+        throw new KalendsRangeError(`fields.${name}: ${n} has the opposite sign of the other fields; all non-zero fields of a duration share one sign`, {
           code: 'out-of-range',
           received: fields,
           path: name,
@@ -89,7 +97,7 @@ export function durationFromFields(fields: DurationFields): Duration {
   }
   const exact = Math.abs(out.hours) * MS_PER_HOUR + Math.abs(out.minutes) * MS_PER_MINUTE + Math.abs(out.seconds) * 1000 + Math.abs(out.milliseconds);
   if (!Number.isSafeInteger(exact)) {
-    throw new KalendsRangeError(`durationFromFields: the exact parts (hours, minutes, seconds, milliseconds) total ${exact} ms, more than ${Number.MAX_SAFE_INTEGER} ms`, {
+    throw new KalendsRangeError(`fields: the exact parts (hours, minutes, seconds, milliseconds) total ${exact} ms, more than ${Number.MAX_SAFE_INTEGER} ms`, {
       code: 'out-of-range',
       received: fields,
     });
@@ -128,7 +136,7 @@ export function exactMsOfDuration(duration: Duration): number {
 
 function requireDuration(fn: string, d: unknown): Duration {
   if (typeof d !== 'object' || d === null || typeof (d as Duration).sign !== 'number' || typeof (d as Duration).milliseconds !== 'number') {
-    throw new KalendsTypeError(`${fn}: expected a Duration (from parseDuration or durationFromFields), got ${describeValue(d)}`, {
+    throw new KalendsTypeError(`duration: expected a Duration (from parseDuration or durationFromFields), got ${describeValue(d)}${typeof d === 'string' ? '; parse text first with parseDuration(text)' : ''}`, {
       code: 'invalid-type',
       received: d,
     });
@@ -292,14 +300,12 @@ function shiftDays(fn: string, dayNumber: number, d: Duration, overflow: 'constr
   let dn = dayNumber;
   if (d.years !== 0 || d.months !== 0) {
     const p = packedYmdUnchecked(dn);
-    const y = Math.floor(p / 512) + MIN_YEAR;
-    const m = (p >> 5) & 15;
-    let day = p & 31;
-    const total = y * 12 + (m - 1) + d.years * 12 + d.months;
-    const ny = Math.floor(total / 12);
-    const nm = total - ny * 12 + 1;
+    let day = dayOfPacked(p);
+    const total = monthIndexOfPacked(p) + d.years * 12 + d.months;
+    const ny = yearOfMonthIndex(total);
+    const nm = monthOfMonthIndex(total);
     if (ny < MIN_YEAR || ny > MAX_YEAR) {
-      throw new KalendsRangeError(`${fn}: ${shown} + ${formatDuration(d)} reaches year ${ny}, outside the supported years ${MIN_YEAR} to ${MAX_YEAR}`, {
+      throw new KalendsRangeError(`duration: ${shown} + ${formatDuration(d)} reaches year ${ny}, outside the supported years ${MIN_YEAR} to ${MAX_YEAR}`, {
         code: 'out-of-range',
         received: d,
       });
@@ -308,7 +314,7 @@ function shiftDays(fn: string, dayNumber: number, d: Duration, overflow: 'constr
     if (day > dim) {
       if (overflow === 'reject') {
         throw new KalendsRangeError(
-          `${fn}: ${shown} + ${formatDuration(d)} asks for day ${day} of ${ny}-${String(nm).padStart(2, '0')}, which has ${dim} days, and options.overflow is "reject"; use "constrain" to clamp to the last day`,
+          `duration: ${shown} + ${formatDuration(d)} asks for day ${day} of ${ny}-${String(nm).padStart(2, '0')}, which has ${dim} days, and options.overflow is "reject"; use "constrain" to clamp to the last day`,
           { code: 'out-of-range', received: d },
         );
       }
@@ -320,16 +326,11 @@ function shiftDays(fn: string, dayNumber: number, d: Duration, overflow: 'constr
   return dn;
 }
 
-function requireOverflow(fn: string, options: ShiftOptions | undefined): 'constrain' | 'reject' {
-  const o = options?.overflow ?? 'constrain';
-  if (o !== 'constrain' && o !== 'reject') {
-    throw new KalendsRangeError(`${fn}: options.overflow: expected "constrain" or "reject", got ${describeValue(o)}`, {
-      code: 'out-of-range',
-      received: o,
-      path: 'overflow',
-    });
-  }
-  return o;
+const OVERFLOW: readonly ('constrain' | 'reject')[] = ['constrain', 'reject'];
+
+function requireOverflow(options: ShiftOptions | undefined): 'constrain' | 'reject' {
+  const o = readOptions('options', options, ['overflow']);
+  return requireEnum('options.overflow', optionOf(o, 'overflow'), OVERFLOW, 'constrain');
 }
 
 /**
@@ -349,18 +350,18 @@ function requireOverflow(fn: string, options: ShiftOptions | undefined): 'constr
 export function shiftDayNumber(dayNumber: number, duration: Duration, options?: ShiftOptions): number {
   requireDayNumber(dayNumber);
   const d = requireDuration('shiftDayNumber', duration);
-  const overflow = requireOverflow('shiftDayNumber', options);
+  const overflow = requireOverflow(options);
   const shown = formatDayNumberUnchecked(dayNumber);
   const exact = exactMsOfDuration(d);
   if (exact % MS_PER_DAY !== 0) {
     throw new KalendsRangeError(
-      `shiftDayNumber: ${formatDuration(d)} has exact parts that are not a whole number of days, so it cannot move the date ${shown}; use shiftWallMs to move a date-time`,
+      `duration: ${formatDuration(d)} has exact parts that are not a whole number of days, so it cannot move the date ${shown}; use shiftWallMs to move a date-time`,
       { code: 'out-of-range', received: duration },
     );
   }
   const dn = shiftDays('shiftDayNumber', dayNumber, d, overflow, shown) + exact / MS_PER_DAY;
   if (!(dn >= MIN_DAY_NUMBER && dn <= MAX_DAY_NUMBER)) {
-    throw new KalendsRangeError(`shiftDayNumber: ${shown} + ${formatDuration(d)} falls outside the supported day numbers ${MIN_DAY_NUMBER} to ${MAX_DAY_NUMBER}`, {
+    throw new KalendsRangeError(`duration: ${shown} + ${formatDuration(d)} falls outside the supported day numbers ${MIN_DAY_NUMBER} to ${MAX_DAY_NUMBER}`, {
       code: 'out-of-range',
       received: duration,
     });
@@ -380,9 +381,9 @@ export function shiftDayNumber(dayNumber: number, duration: Duration, options?: 
  * ```
  */
 export function shiftWallMs(wallMs: number, duration: Duration, options?: ShiftOptions): number {
-  requireInteger('wallMs', wallMs, MIN_DAY_NUMBER * MS_PER_DAY, MAX_DAY_NUMBER * MS_PER_DAY + MS_PER_DAY - 1);
+  requireWallMs('wallMs', wallMs);
   const d = requireDuration('shiftWallMs', duration);
-  const overflow = requireOverflow('shiftWallMs', options);
+  const overflow = requireOverflow(options);
   const dn = Math.floor(wallMs / MS_PER_DAY);
   const msOfDay = wallMs - dn * MS_PER_DAY;
   const shown = formatPlainDateTime(wallMs);
@@ -392,7 +393,7 @@ export function shiftWallMs(wallMs: number, duration: Duration, options?: ShiftO
   const dn3 = dn2 + exactDays;
   const result = dn3 * MS_PER_DAY + msOfDay + (exact - exactDays * MS_PER_DAY);
   if (!(result >= MIN_DAY_NUMBER * MS_PER_DAY && result <= MAX_DAY_NUMBER * MS_PER_DAY + MS_PER_DAY - 1)) {
-    throw new KalendsRangeError(`shiftWallMs: ${shown} + ${formatDuration(d)} falls outside the supported date-times`, {
+    throw new KalendsRangeError(`duration: ${shown} + ${formatDuration(d)} falls outside the supported date-times`, {
       code: 'out-of-range',
       received: duration,
     });

@@ -9,24 +9,25 @@ export {
   type ParsePlainDateTimeOptions,
   type ExtendedDateTime,
   type ParsedInstant,
-  type FractionDigits,
-  type FormatInstantOptions,
   parseExtendedDateTime,
   parseInstant,
+  parsePlainDate,
+  parsePlainDateTime,
+} from './text.js';
+export {
+  type FractionDigits,
+  type FormatInstantOptions,
   formatInstant,
   formatOffset,
-  parsePlainDate,
   formatPlainDate,
   formatIsoWeekDate,
   formatOrdinalDate,
-  parsePlainDateTime,
   formatPlainDateTime,
-} from './text.js';
+} from './format.js';
 export {
   type Duration,
   type DurationFields,
   type ShiftOptions,
-  MAX_DURATION_CALENDAR_FIELD,
   durationFromFields,
   negateDuration,
   exactMsOfDuration,

@@ -8,14 +8,25 @@
  */
 import { KalendsRangeError, KalendsSyntaxError, describeValue, type ErrorCode } from '../errors.js';
 import { MAX_YEAR, MIN_YEAR } from '../bounds.js';
+import { dayCountOfMonthUnchecked } from '../civil/gregorian.js';
 
 /** @internal A cursor over one input string, with the name of the function reading it (for messages). */
 export class Scanner {
   pos = 0;
+  /**
+   * @param fn the function or parameter reading the text, for messages.
+   * @param expected what the text should be ("an RFC 3339 date-time with an offset"), for messages.
+   * @param yearRange how a year outside the supported range is reported: `'range'` (a KalendsRangeError, as the
+   *   date and instant parsers do, like Temporal) or `'syntax'` (a KalendsSyntaxError with code `out-of-range`
+   *   and the position, as the period label parsers do); and `yearSlack` years accepted past each end (the first
+   *   and last periods of a unit may start or end outside the supported years).
+   */
   constructor(
     readonly text: string,
     readonly fn: string,
     readonly expected: string,
+    readonly yearRange: 'range' | 'syntax' = 'range',
+    readonly yearSlack = 0,
   ) {}
 
   get done(): boolean {
@@ -106,7 +117,8 @@ export class Scanner {
       }
       year = this.digits(4, 'the year');
     }
-    if (year < MIN_YEAR || year > MAX_YEAR) {
+    if (year < MIN_YEAR - this.yearSlack || year > MAX_YEAR + this.yearSlack) {
+      if (this.yearRange === 'syntax') this.fail(`year ${year} is outside the supported years ${MIN_YEAR} to ${MAX_YEAR}`, start, 'out-of-range');
       throw new KalendsRangeError(
         `${this.fn}: ${describeValue(this.text)} is outside the supported range: year ${year} at position ${start}; expected ${MIN_YEAR} to ${MAX_YEAR}`,
         { code: 'out-of-range', received: this.text },
@@ -152,4 +164,22 @@ export function pad2(n: number): string {
 export function formatYear(year: number): string {
   if (year >= 0 && year <= 9999) return String(year).padStart(4, '0');
   return `${year < 0 ? '-' : '+'}${String(Math.abs(year)).padStart(6, '0')}`;
+}
+
+/**
+ * @internal Reads an ISO 8601 calendar date `YYYY-MM-DD` (with an expanded year if signed) at the cursor; an
+ * impossible month or day is a syntax error with code `out-of-range` at its position.
+ */
+export function readCalendarDate(sc: Scanner): { year: number; month: number; day: number } {
+  const year = sc.year();
+  sc.expectChar(45, 'a "-" after the year');
+  const month = sc.field2('month', 1, 12);
+  sc.expectChar(45, 'a "-" after the month');
+  const dayPos = sc.pos;
+  const day = sc.digits(2, 'the day');
+  const dim = dayCountOfMonthUnchecked(year, month);
+  if (day < 1 || day > dim) {
+    sc.fail(`day ${sc.text.slice(dayPos, dayPos + 2)} is out of range; ${formatYear(year)}-${pad2(month)} has days 01 to ${dim}`, dayPos, 'out-of-range');
+  }
+  return { year, month, day };
 }

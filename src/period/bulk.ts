@@ -7,17 +7,12 @@
  * @module
  */
 import { MAX_DAY_NUMBER, MIN_DAY_NUMBER } from '../bounds.js';
-import { KalendsRangeError, requireInteger } from '../errors.js';
-import { dayNumberFromYmdUnchecked } from '../civil/gregorian.js';
+import { requireInteger } from '../errors.js';
+import { dayNumberFromYmdUnchecked, dayOfPacked, monthIndexOfDayNumberUnchecked, monthIndexOfPacked, packedYmdUnchecked } from '../civil/gregorian.js';
+import { dayCountOfMonthIndex } from '../civil/names.js';
+import { requireNumberArray, requireOutArray } from '../diagnostics/index.js';
 import type { LocalDayFunction } from '../zone/bulk.js';
 import { type UnitCore, type UnitInput, coreOf, toUnit } from './units.js';
-
-/** Days added so that every supported day number gives a positive 400-year era (700 eras). */
-const BIAS_DAYS = 700 * 146097;
-/** The same bias in months (700 * 400 years). */
-const BIAS_MONTHS = 700 * 400 * 12;
-/** Month lengths from March (index 0) to January (index 10); February (11) is decided per year. */
-const MARCH_BASED_LENGTHS = Int32Array.of(31, 30, 31, 30, 31, 31, 30, 31, 30, 31, 31, 28);
 
 /** Anchor-year window of the cached week tables of 52/53-week units (weeks outside use the scalar path). */
 const WEEK_TABLE_FIRST_YEAR = 1800;
@@ -46,17 +41,6 @@ function weekTableOf(core: UnitCore, origin: number): WeekTable {
   t = { firstWeek: from, ordinals };
   weekTables.set(core, t);
   return t;
-}
-
-function requireOut(out: Int32Array | undefined, n: number, fn: string): Int32Array {
-  if (out === undefined) return new Int32Array(n);
-  if (!(out instanceof Int32Array)) {
-    throw new KalendsRangeError(`${fn}: out must be an Int32Array`, { code: 'invalid-type', received: out });
-  }
-  if (out.length < n) {
-    throw new KalendsRangeError(`${fn}: out must hold ${n} elements, got ${out.length}`, { code: 'length-mismatch', received: out.length });
-  }
-  return out;
 }
 
 /** Validates every day number before conversion (one tight pass; the error names the first bad index). */
@@ -264,28 +248,20 @@ function computeOrdinals(core: UnitCore, src: ArrayLike<number>, out: Int32Array
 }
 
 /**
- * Month-based units outside the table window: the civil-from-days computation (Hinnant, "chrono-Compatible
- * Low-Level Date Algorithms") stopped at the continuous month index, with a bias so that every quantity is a
- * positive 32-bit integer.
+ * Month-based units outside the table window: the civil layer's civil-from-days (the only one in kalends),
+ * stopped at the month index when periods start on the 1st, or with the day of the month otherwise.
  */
 function monthsOrdinal(dn: number, monthsPer: number, startMonthIndex: number, startDay: number, addend: number): number {
-  const z = (dn + 719468 + BIAS_DAYS) | 0;
-  const era = (z / 146097) | 0;
-  const doe = z - era * 146097;
-  const yoe = ((doe - ((doe / 1460) | 0) + ((doe / 36524) | 0) - ((doe / 146096) | 0)) / 365) | 0;
-  const doy = doe - (365 * yoe + (yoe >> 2) - ((yoe / 100) | 0));
-  const mp = ((5 * doy + 2) / 153) | 0;
-  let cm = (yoe + era * 400) * 12 + mp + 2; // biased by BIAS_MONTHS
+  let cm: number;
   if (startDay > 1) {
-    const dom = doy - (((153 * mp + 2) / 5) | 0) + 1;
-    let dim = MARCH_BASED_LENGTHS[mp]!;
-    if (mp === 11) {
-      const y = yoe + era * 400 + 1; // the bias is whole 400-year eras, so leap years are unchanged
-      if ((y & 3) === 0 && (y % 100 !== 0 || y % 400 === 0)) dim = 29;
-    }
-    if (dom < (startDay < dim ? startDay : dim)) cm -= 1;
+    const p = packedYmdUnchecked(dn);
+    cm = monthIndexOfPacked(p);
+    const dim = dayCountOfMonthIndex(cm);
+    if (dayOfPacked(p) < (startDay < dim ? startDay : dim)) cm -= 1;
+  } else {
+    cm = monthIndexOfDayNumberUnchecked(dn);
   }
-  return (((cm - startMonthIndex) / monthsPer) | 0) + addend - BIAS_MONTHS / monthsPer;
+  return Math.floor((cm - startMonthIndex) / monthsPer) + addend;
 }
 
 /**
@@ -300,10 +276,11 @@ function monthsOrdinal(dn: number, monthsPer: number, startMonthIndex: number, s
 export function ordinalFromDayNumberBulk(unit: UnitInput, dayNumbers: ArrayLike<number>, out?: Int32Array): Int32Array {
   const u = toUnit(unit);
   const core = coreOf(u)!;
-  const n = dayNumbers.length;
-  const result = requireOut(out, n, 'ordinalFromDayNumberBulk');
-  validateDays(dayNumbers, n);
-  ordinalsFromDaysKernel(core, dayNumbers, result, n);
+  const src = requireNumberArray('dayNumbers', dayNumbers);
+  const n = src.length;
+  const result = requireOutArray('out', out, Int32Array, n);
+  validateDays(src, n);
+  ordinalsFromDaysKernel(core, src, result, n);
   return result;
 }
 
@@ -319,10 +296,11 @@ export function ordinalFromDayNumberBulk(unit: UnitInput, dayNumbers: ArrayLike<
 export function formatOrdinalBulk(unit: UnitInput, ordinals: ArrayLike<number>): string[] {
   const u = toUnit(unit);
   const core = coreOf(u)!;
-  const n = ordinals.length;
+  const src = requireNumberArray('ordinals', ordinals);
+  const n = src.length;
   const labels = new Array<string>(n);
   for (let i = 0; i < n; i++) {
-    const o = ordinals[i]!;
+    const o = src[i]!;
     if (!(o >= u.minOrdinal && o <= u.maxOrdinal) || o !== Math.floor(o)) requireInteger(`ordinals[${i}]`, o, u.minOrdinal, u.maxOrdinal);
     labels[i] = core.format(o);
   }
@@ -330,7 +308,8 @@ export function formatOrdinalBulk(unit: UnitInput, ordinals: ArrayLike<number>):
 }
 
 /**
- * The first day of each ordinal of `unit`, into an Int32Array.
+ * The first day of each ordinal of `unit`, into an Int32Array (`unit.maxOrdinal + 1` gives the exclusive end of
+ * the last period, as `unit.firstDayNumberFromOrdinal` does).
  *
  * @example
  * ```ts
@@ -340,11 +319,12 @@ export function formatOrdinalBulk(unit: UnitInput, ordinals: ArrayLike<number>):
 export function firstDayNumberFromOrdinalBulk(unit: UnitInput, ordinals: ArrayLike<number>, out?: Int32Array): Int32Array {
   const u = toUnit(unit);
   const core = coreOf(u)!;
-  const n = ordinals.length;
-  const result = requireOut(out, n, 'firstDayNumberFromOrdinalBulk');
+  const src = requireNumberArray('ordinals', ordinals);
+  const n = src.length;
+  const result = requireOutArray('out', out, Int32Array, n);
   for (let i = 0; i < n; i++) {
-    const o = ordinals[i]!;
-    if (!(o >= u.minOrdinal && o <= u.maxOrdinal) || o !== Math.floor(o)) requireInteger(`ordinals[${i}]`, o, u.minOrdinal, u.maxOrdinal);
+    const o = src[i]!;
+    if (!(o >= u.minOrdinal && o <= u.maxOrdinal + 1) || o !== Math.floor(o)) requireInteger(`ordinals[${i}]`, o, u.minOrdinal, u.maxOrdinal + 1);
     result[i] = core.firstDayOf(o);
   }
   return result;

@@ -1,27 +1,18 @@
 /**
- * Unit definitions as plain data, and their validation. A definition is a JSON-serializable object; validation
- * collects every fault with its dotted path and throws one {@link DefinitionError}.
+ * Unit definitions as plain data, and their validation on the diagnostics kit: an {@link Issues} collector and its
+ * field readers, so that one {@link DefinitionError} lists every fault of a definition with its dotted path.
  *
  * @module
  */
-import { DefinitionError, type DefinitionIssue, describeValue } from '../errors.js';
+import { MAX_CYCLE_DAYS } from '../bounds.js';
+import { KalendsRangeError, KalendsSyntaxError, KalendsTypeError, describeValue } from '../errors.js';
 import { dayCountOfMonthUnchecked } from '../civil/gregorian.js';
-import { parseDayLabel } from './labels.js';
+import { WEEKDAY_NAMES, type WeekdayName, weekdayFromName } from '../civil/names.js';
+import { Issues, didYouMean, isRecord, joinPath, ownField, readEnum, readInt } from '../diagnostics/index.js';
+import { parseCalendarDateText } from '../instant/text.js';
 
-/** A weekday by its English name, lower case. */
-import type { WeekdayName } from '../civil/names.js';
+/** A weekday by its English name, lower case (the civil layer's names). */
 export type { WeekdayName };
-
-/** The weekday names in ISO order: index + 1 is the ISO weekday number (1 = Monday). */
-export const WEEKDAY_NAMES: readonly WeekdayName[] = Object.freeze([
-  'monday',
-  'tuesday',
-  'wednesday',
-  'thursday',
-  'friday',
-  'saturday',
-  'sunday',
-]);
 
 /**
  * How a fiscal year is named: after the calendar year in which it ends (`'end-year'`, as the US federal fiscal
@@ -113,137 +104,141 @@ export type NormalizedUnit =
       readonly extraWeek: ExtraWeekPlacement;
     };
 
-const CALENDAR_NAMES: readonly string[] = ['day', 'iso-week', 'month', 'quarter', 'half-year', 'year'];
-const FISCAL_KINDS: readonly string[] = ['fiscal-year', 'fiscal-half', 'fiscal-quarter', 'fiscal-period', 'fiscal-week'];
-const ALL_KINDS: readonly string[] = [...CALENDAR_NAMES, 'week', 'cycle', ...FISCAL_KINDS];
-const LAYOUTS: readonly string[] = ['4-4-5', '4-5-4', '5-4-4', '13x4'];
-const PLACEMENTS: readonly string[] = ['last-period', 'first-period'];
+const CALENDAR_NAMES: readonly CalendarUnitName[] = ['day', 'iso-week', 'month', 'quarter', 'half-year', 'year'];
+const FISCAL_KINDS: readonly FiscalKind[] = ['fiscal-year', 'fiscal-half', 'fiscal-quarter', 'fiscal-period', 'fiscal-week'];
+const ALL_KINDS: readonly UnitDefinition['kind'][] = [...CALENDAR_NAMES, 'week', 'cycle', ...FISCAL_KINDS];
+const LAYOUTS: readonly WeekLayout[] = ['4-4-5', '4-5-4', '5-4-4', '13x4'];
+const PLACEMENTS: readonly ExtraWeekPlacement[] = ['last-period', 'first-period'];
 const NAMINGS: readonly string[] = ['end-year', 'start-year'];
-/** Longest cycle accepted, in days (a century). */
-export const MAX_CYCLE_DAYS = 36_525;
+/** Words people use for the calendar units, mapped to our names (suggestions by meaning, not only spelling). */
+const UNIT_SYNONYMS: Readonly<Record<string, string>> = Object.freeze({
+  daily: 'day',
+  date: 'day',
+  week: 'iso-week',
+  weekly: 'iso-week',
+  isoweek: 'iso-week',
+  monthly: 'month',
+  quarterly: 'quarter',
+  semester: 'half-year',
+  halfyear: 'half-year',
+  half: 'half-year',
+  annual: 'year',
+  yearly: 'year',
+});
 
 function listOf(values: readonly string[]): string {
   return values.map((v) => JSON.stringify(v)).join(', ');
 }
 
-function isRecord(v: unknown): v is Record<string, unknown> {
-  return typeof v === 'object' && v !== null && !Array.isArray(v);
-}
-
-function join(prefix: string, key: string): string {
-  return prefix === '' ? key : `${prefix}.${key}`;
+/** The message of an unknown calendar unit name, with the nearest names by spelling and by meaning. */
+function unknownUnitName(name: string): string {
+  return `unknown unit name ${describeValue(name)}; expected one of ${listOf(CALENDAR_NAMES)} or a unit definition such as {"kind":"fiscal-year", ...}${didYouMean(name, CALENDAR_NAMES, { synonyms: UNIT_SYNONYMS })}`;
 }
 
 /**
- * Validates a unit definition found at `path` (empty for the top level) without throwing: returns every issue
- * (and, when there are none, the compiler's normalized form in `unit`). Definitions that embed a unit definition
- * (a company calendar, a business calendar) call this to report issues under their own paths.
- *
- * @example
- * ```ts
- * validateUnitDefinition({ kind: 'fiscal-year', start: { month: 6, day: 31 }, naming: 'end-year' }, 'fiscal').issues;
- * // [{ path: 'fiscal.start.day', message: 'expected 1..30 for month 6, got 31' }]
- * ```
+ * @internal Reads a unit definition found at `path` (empty at the top level) into the compiler's normalized form,
+ * recording every fault in `issues` under its dotted path; undefined when there is any. Definitions that embed a
+ * unit definition (a company calendar, a business calendar) call this to report issues under their own paths.
  */
-export function validateUnitDefinition(
-  def: unknown,
-  path = '',
-): { issues: DefinitionIssue[]; unit: NormalizedUnit | undefined } {
-  const issues: DefinitionIssue[] = [];
-  const add = (p: string, message: string) => issues.push({ path: p === '' ? '(definition)' : p, message });
+export function readUnitDefinition(def: unknown, path: string, issues: Issues): NormalizedUnit | undefined {
+  const at = (key: string) => joinPath(path, key);
+  const before = issues.count;
   if (typeof def === 'string') {
-    if (CALENDAR_NAMES.includes(def)) return { issues, unit: { kind: def as CalendarUnitName } };
-    add(path, `expected a unit definition object or one of ${listOf(CALENDAR_NAMES)}, got ${describeValue(def)}`);
-    return { issues, unit: undefined };
+    if ((CALENDAR_NAMES as readonly string[]).includes(def)) return { kind: def as CalendarUnitName };
+    issues.add(path === '' ? 'unit' : path, unknownUnitName(def));
+    return undefined;
   }
   if (!isRecord(def)) {
-    add(path, `expected a unit definition object such as {"kind":"month"}, got ${describeValue(def)}`);
-    return { issues, unit: undefined };
+    issues.add(path === '' ? 'definition' : path, `expected a unit definition object such as {"kind":"month"} or a unit name, got ${describeValue(def)}`);
+    return undefined;
   }
-  const kind = def['kind'];
-  if (typeof kind !== 'string' || !ALL_KINDS.includes(kind)) {
-    add(join(path, 'kind'), `expected one of ${listOf(ALL_KINDS)}, got ${describeValue(kind)}`);
-    return { issues, unit: undefined };
+  const kind = readEnum(def, 'kind', at('kind'), ALL_KINDS, issues, undefined, { synonyms: UNIT_SYNONYMS });
+  if (kind === undefined) {
+    if (ownField(def, 'kind') === undefined) issues.add(at('kind'), `required: expected one of ${listOf(ALL_KINDS)}`);
+    return undefined;
   }
   const allowed = (keys: readonly string[]) => {
+    const valid = ['kind', ...keys];
     for (const k of Object.keys(def)) {
-      if (k !== 'kind' && !keys.includes(k)) {
-        add(join(path, k), `unknown field for kind ${JSON.stringify(kind)}; valid fields are ${listOf(['kind', ...keys])}`);
-      }
+      if (!valid.includes(k)) issues.add(at(k), `unknown field for kind ${JSON.stringify(kind)}${didYouMean(k, valid)}; valid fields are ${listOf(valid)}`);
     }
   };
-  if (CALENDAR_NAMES.includes(kind)) {
+  const ok = () => issues.count === before;
+  if ((CALENDAR_NAMES as readonly string[]).includes(kind)) {
     allowed([]);
-    return { issues, unit: issues.length ? undefined : { kind: kind as CalendarUnitName } };
+    return ok() ? { kind: kind as CalendarUnitName } : undefined;
   }
   if (kind === 'week') {
     allowed(['firstWeekday']);
-    const wd = readWeekday(def['firstWeekday'], join(path, 'firstWeekday'), add);
-    return { issues, unit: issues.length || wd === undefined ? undefined : { kind: 'week', firstWeekday: wd } };
+    const wd = readWeekday(ownField(def, 'firstWeekday'), at('firstWeekday'), issues);
+    return ok() && wd !== undefined ? { kind: 'week', firstWeekday: wd } : undefined;
   }
   if (kind === 'cycle') {
     allowed(['lengthDays', 'anchor']);
-    const len = def['lengthDays'];
-    let lengthDays: number | undefined;
-    if (typeof len !== 'number' || !Number.isInteger(len) || len < 1 || len > MAX_CYCLE_DAYS) {
-      add(join(path, 'lengthDays'), `expected an integer from 1 to ${MAX_CYCLE_DAYS}, got ${describeValue(len)}`);
-    } else lengthDays = len;
-    const anchor = def['anchor'];
+    if (ownField(def, 'lengthDays') === undefined) issues.add(at('lengthDays'), `required: expected an integer from 1 to ${MAX_CYCLE_DAYS}`);
+    const lengthDays = readInt(def, 'lengthDays', at('lengthDays'), 1, MAX_CYCLE_DAYS, issues, Number.NaN);
+    const anchor = ownField(def, 'anchor');
     let anchorDayNumber: number | undefined;
     if (typeof anchor !== 'string') {
-      add(join(path, 'anchor'), `expected the first day of any one cycle as an ISO 8601 date string such as "2025-01-03", got ${describeValue(anchor)}`);
+      issues.add(at('anchor'), `expected the first day of any one cycle as an ISO 8601 date string such as "2025-01-03", got ${describeValue(anchor)}`);
     } else {
       try {
-        anchorDayNumber = parseDayLabel(anchor, 'anchor');
+        anchorDayNumber = parseCalendarDateText(anchor, at('anchor'));
       } catch (e) {
-        add(join(path, 'anchor'), `expected an ISO 8601 calendar date such as "2025-01-03", got ${describeValue(anchor)}${e instanceof Error ? ` (${e.message.replace(/^anchor: /, '')})` : ''}`);
+        if (!(e instanceof KalendsSyntaxError)) throw e;
+        issues.add(at('anchor'), e.message.slice(at('anchor').length + 2));
       }
     }
-    if (issues.length || lengthDays === undefined || anchorDayNumber === undefined || typeof anchor !== 'string') {
-      return { issues, unit: undefined };
-    }
-    return { issues, unit: { kind: 'cycle', lengthDays, anchorDayNumber, anchor } };
+    if (!ok() || anchorDayNumber === undefined || typeof anchor !== 'string') return undefined;
+    return { kind: 'cycle', lengthDays, anchorDayNumber, anchor };
   }
-  // Fiscal kinds.
-  const fiscalKind = kind as FiscalKind;
-  const naming = def['naming'];
+  return readFiscal(def, kind as FiscalKind, path, issues, allowed, ok);
+}
+
+function readFiscal(
+  def: Record<string, unknown>,
+  fiscalKind: FiscalKind,
+  path: string,
+  issues: Issues,
+  allowed: (keys: readonly string[]) => void,
+  ok: () => boolean,
+): NormalizedUnit | undefined {
+  const at = (key: string) => joinPath(path, key);
+  const naming = ownField(def, 'naming');
   const namingOk = typeof naming === 'string' && NAMINGS.includes(naming);
-  const hasStart = def['start'] !== undefined;
-  const hasYearEnd = def['yearEnd'] !== undefined;
+  const hasStart = ownField(def, 'start') !== undefined;
+  const hasYearEnd = ownField(def, 'yearEnd') !== undefined;
   if (hasStart === hasYearEnd) {
-    add(
-      path === '' ? 'start' : join(path, 'start'),
+    issues.add(
+      at('start'),
       hasStart
         ? 'give either "start" (a year of calendar months) or "yearEnd" (a 52/53-week year), not both'
         : `a fiscal unit needs either "start": {"month": 10, "day": 1} (a year of calendar months) or "yearEnd": {"weekday": "saturday", "month": 1, "rule": "nearest"} (a 52/53-week year)`,
     );
   }
   if (!namingOk) {
-    add(
-      join(path, 'naming'),
-      `expected "end-year" (the fiscal year is named after the calendar year in which it ends) or "start-year" (the year in which it starts); there is no default, got ${describeValue(naming)}`,
+    issues.add(
+      at('naming'),
+      `expected "end-year" (the fiscal year is named after the calendar year in which it ends) or "start-year" (the year in which it starts); there is no default, got ${describeValue(naming)}${didYouMean(naming, NAMINGS)}`,
     );
   }
   if (hasStart && !hasYearEnd) {
     allowed(['start', 'naming']);
-    if (fiscalKind === 'fiscal-week') {
-      add(join(path, 'kind'), 'fiscal weeks need a 52/53-week year: give "yearEnd" instead of "start"');
-    }
+    if (fiscalKind === 'fiscal-week') issues.add(at('kind'), 'fiscal weeks need a 52/53-week year: give "yearEnd" instead of "start"');
     const start = def['start'];
-    const sp = join(path, 'start');
+    const sp = at('start');
     let startMonth: number | undefined;
     let startDay: number | undefined;
     if (!isRecord(start)) {
-      add(sp, `expected {"month": 1..12, "day": 1..31}, got ${describeValue(start)}`);
+      issues.add(sp, `expected {"month": 1..12, "day": 1..31}, got ${describeValue(start)}`);
     } else {
       for (const k of Object.keys(start)) {
-        if (k !== 'month' && k !== 'day') add(join(sp, k), 'unknown field; valid fields are "month", "day"');
+        if (k !== 'month' && k !== 'day') issues.add(joinPath(sp, k), `unknown field${didYouMean(k, ['month', 'day'])}; valid fields are "month", "day"`);
       }
-      const m = start['month'];
-      if (typeof m !== 'number' || !Number.isInteger(m) || m < 1 || m > 12) {
-        add(join(sp, 'month'), `expected an integer from 1 to 12, got ${describeValue(m)}`);
-      } else startMonth = m;
-      const d = start['day'];
+      const m = readInt(start, 'month', joinPath(sp, 'month'), 1, 12, issues, Number.NaN);
+      if (ownField(start, 'month') === undefined) issues.add(joinPath(sp, 'month'), 'required: expected an integer from 1 to 12');
+      if (m === m) startMonth = m;
+      const d = ownField(start, 'day');
       if (startMonth !== undefined) {
         const max = dayCountOfMonthUnchecked(2001, startMonth); // 28 for February: 29 February is rejected.
         if (typeof d !== 'number' || !Number.isInteger(d) || d < 1 || d > max) {
@@ -251,96 +246,89 @@ export function validateUnitDefinition(
             startMonth === 2 && d === 29
               ? ' (29 February exists only in leap years; use {"month": 2, "day": 28} or {"month": 3, "day": 1} instead)'
               : '';
-          add(join(sp, 'day'), `expected 1..${max} for month ${startMonth}, got ${describeValue(d)}${hint}`);
+          issues.add(joinPath(sp, 'day'), `expected 1..${max} for month ${startMonth}, got ${describeValue(d)}${hint}`);
         } else startDay = d;
       } else if (typeof d !== 'number' || !Number.isInteger(d) || d < 1 || d > 31) {
-        add(join(sp, 'day'), `expected an integer from 1 to 31, got ${describeValue(d)}`);
+        issues.add(joinPath(sp, 'day'), `expected an integer from 1 to 31, got ${describeValue(d)}`);
       }
     }
-    if (issues.length || startMonth === undefined || startDay === undefined) return { issues, unit: undefined };
-    return {
-      issues,
-      unit: { kind: fiscalKind, basis: 'months', startMonth, startDay, naming: naming as YearNaming },
-    };
+    if (!ok() || startMonth === undefined || startDay === undefined) return undefined;
+    return { kind: fiscalKind, basis: 'months', startMonth, startDay, naming: naming as YearNaming };
   }
   if (hasYearEnd && !hasStart) {
     allowed(['yearEnd', 'naming', 'layout', 'extraWeek']);
     const ye = def['yearEnd'];
-    const yp = join(path, 'yearEnd');
+    const yp = at('yearEnd');
     let endWeekday: number | undefined;
     let endMonth: number | undefined;
     let endRule: 'last' | 'nearest' | undefined;
     if (!isRecord(ye)) {
-      add(yp, `expected {"weekday": "saturday", "month": 1..12, "rule": "last" | "nearest"}, got ${describeValue(ye)}`);
+      issues.add(yp, `expected {"weekday": "saturday", "month": 1..12, "rule": "last" | "nearest"}, got ${describeValue(ye)}`);
     } else {
+      const keys = ['weekday', 'month', 'rule'];
       for (const k of Object.keys(ye)) {
-        if (k !== 'weekday' && k !== 'month' && k !== 'rule') add(join(yp, k), 'unknown field; valid fields are "weekday", "month", "rule"');
+        if (!keys.includes(k)) issues.add(joinPath(yp, k), `unknown field${didYouMean(k, keys)}; valid fields are "weekday", "month", "rule"`);
       }
-      endWeekday = readWeekday(ye['weekday'], join(yp, 'weekday'), add);
-      const m = ye['month'];
-      if (typeof m !== 'number' || !Number.isInteger(m) || m < 1 || m > 12) {
-        add(join(yp, 'month'), `expected an integer from 1 to 12, got ${describeValue(m)}`);
-      } else endMonth = m;
-      const r = ye['rule'];
+      endWeekday = readWeekday(ownField(ye, 'weekday'), joinPath(yp, 'weekday'), issues);
+      const m = readInt(ye, 'month', joinPath(yp, 'month'), 1, 12, issues, Number.NaN);
+      if (ownField(ye, 'month') === undefined) issues.add(joinPath(yp, 'month'), 'required: expected an integer from 1 to 12');
+      if (m === m) endMonth = m;
+      const r = ownField(ye, 'rule');
       if (r !== 'last' && r !== 'nearest') {
-        add(
-          join(yp, 'rule'),
-          `expected "last" (the last such weekday in the month) or "nearest" (the one nearest the month's last day), got ${describeValue(r)}`,
+        issues.add(
+          joinPath(yp, 'rule'),
+          `expected "last" (the last such weekday in the month) or "nearest" (the one nearest the month's last day), got ${describeValue(r)}${didYouMean(r, ['last', 'nearest'])}`,
         );
       } else endRule = r;
     }
-    const layout = def['layout'];
-    if (layout !== undefined && (typeof layout !== 'string' || !LAYOUTS.includes(layout))) {
-      add(join(path, 'layout'), `expected one of ${listOf(LAYOUTS)}, got ${describeValue(layout)}`);
-    } else if (layout === undefined && (fiscalKind === 'fiscal-half' || fiscalKind === 'fiscal-quarter' || fiscalKind === 'fiscal-period')) {
-      add(join(path, 'layout'), `required for ${fiscalKind}: expected one of ${listOf(LAYOUTS)}`);
+    const layout = readEnum(def, 'layout', at('layout'), LAYOUTS, issues, undefined);
+    const layoutGiven = ownField(def, 'layout') !== undefined;
+    if (!layoutGiven && (fiscalKind === 'fiscal-half' || fiscalKind === 'fiscal-quarter' || fiscalKind === 'fiscal-period')) {
+      issues.add(at('layout'), `required for ${fiscalKind}: expected one of ${listOf(LAYOUTS)}`);
     }
-    const extra = def['extraWeek'];
-    if (extra !== undefined && (typeof extra !== 'string' || !PLACEMENTS.includes(extra))) {
-      add(join(path, 'extraWeek'), `expected one of ${listOf(PLACEMENTS)} (default "last-period"), got ${describeValue(extra)}`);
-    } else if (extra === 'first-period' && layout === undefined && !issues.some((i) => i.path === join(path, 'layout'))) {
-      add(join(path, 'layout'), 'required when extraWeek is "first-period": the layout decides how long the first period is');
+    const extraGiven = ownField(def, 'extraWeek');
+    const extra = readEnum(def, 'extraWeek', at('extraWeek'), PLACEMENTS, issues, 'last-period');
+    if (extraGiven === 'first-period' && !layoutGiven) {
+      issues.add(at('layout'), 'required when extraWeek is "first-period": the layout decides how long the first period is');
     }
-    if (issues.length || endWeekday === undefined || endMonth === undefined || endRule === undefined) {
-      return { issues, unit: undefined };
-    }
-    return {
-      issues,
-      unit: {
-        kind: fiscalKind,
-        basis: 'weeks',
-        endWeekday,
-        endMonth,
-        endRule,
-        naming: naming as YearNaming,
-        layout: layout as WeekLayout | undefined,
-        extraWeek: (extra as ExtraWeekPlacement | undefined) ?? 'last-period',
-      },
-    };
+    if (!ok() || endWeekday === undefined || endMonth === undefined || endRule === undefined || extra === undefined) return undefined;
+    return { kind: fiscalKind, basis: 'weeks', endWeekday, endMonth, endRule, naming: naming as YearNaming, layout, extraWeek: extra };
   }
-  return { issues, unit: undefined };
-}
-
-function readWeekday(v: unknown, p: string, add: (p: string, m: string) => void): number | undefined {
-  if (typeof v === 'string') {
-    const i = WEEKDAY_NAMES.indexOf(v.toLowerCase() as WeekdayName);
-    if (i >= 0 && v === v.toLowerCase()) return i + 1;
-    if (i >= 0) {
-      add(p, `expected a lower-case weekday name, got ${describeValue(v)} (use ${JSON.stringify(v.toLowerCase())} instead)`);
-      return undefined;
-    }
-  }
-  add(p, `expected one of ${listOf(WEEKDAY_NAMES)}, got ${describeValue(v)}`);
   return undefined;
 }
 
-/** @internal Validates and normalizes, throwing one DefinitionError listing every issue. */
-export function normalizeUnitDefinition(def: unknown): NormalizedUnit {
-  const { issues, unit } = validateUnitDefinition(def);
-  if (issues.length > 0 || unit === undefined) {
-    throw new DefinitionError(issues.length ? issues : [{ path: '(definition)', message: 'invalid unit definition' }], def);
+/** A weekday name (lower case, the civil layer's names); a capitalized one gets the lower-case spelling as the fix. */
+function readWeekday(v: unknown, p: string, issues: Issues): number | undefined {
+  const wd = weekdayFromName(v);
+  if (wd > 0) return wd;
+  if (typeof v === 'string' && weekdayFromName(v.toLowerCase()) > 0) {
+    issues.add(p, `expected a lower-case weekday name, got ${describeValue(v)} (use ${JSON.stringify(v.toLowerCase())} instead)`);
+    return undefined;
   }
-  return unit;
+  issues.add(p, `expected one of ${listOf(WEEKDAY_NAMES)}, got ${describeValue(v)}${didYouMean(v, WEEKDAY_NAMES)}`);
+  return undefined;
+}
+
+/**
+ * @internal Validates and normalizes a unit definition or a calendar unit's name. An unknown name is a
+ * KalendsRangeError with code `unknown-name` and the nearest names; a value that is neither a name nor an object a
+ * KalendsTypeError; any fault of a definition object one DefinitionError listing every issue with its path.
+ */
+export function normalizeUnitDefinition(def: unknown, name = 'unit'): NormalizedUnit {
+  if (typeof def === 'string') {
+    if ((CALENDAR_NAMES as readonly string[]).includes(def)) return { kind: def as CalendarUnitName };
+    throw new KalendsRangeError(`${name}: ${unknownUnitName(def)}`, { code: 'unknown-name', received: def });
+  }
+  if (!isRecord(def)) {
+    throw new KalendsTypeError(
+      `${name}: expected a unit made by defineUnit, a unit definition such as {"kind":"month"}, or one of ${listOf(CALENDAR_NAMES)}; got ${describeValue(def)}`,
+      { code: 'invalid-type', received: def },
+    );
+  }
+  const issues = new Issues();
+  const unit = readUnitDefinition(def, '', issues);
+  issues.throwIfAny(def);
+  return unit!;
 }
 
 /** @internal The canonical definition object (a fresh, frozen copy, with defaults spelled out). */

@@ -11,7 +11,6 @@ export {
   type MonthFiscalDefinition,
   type WeekFiscalDefinition,
   type UnitDefinition,
-  validateUnitDefinition,
 } from './definition.js';
 export {
   type PeriodUnit,
@@ -40,10 +39,10 @@ export {
   isDayNumberInPeriod,
   formatPeriod,
   parsePeriod,
-  periodYearEarlier,
+  shiftPeriodYears,
   listSubPeriods,
   listOverlappingPeriods,
-  periodContaining,
+  periodFromPeriod,
 } from './period.js';
 export { ordinalFromDayNumberBulk, formatOrdinalBulk, firstDayNumberFromOrdinalBulk } from './bulk.js';
 export {

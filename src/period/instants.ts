@@ -5,16 +5,9 @@
  *
  * @module
  */
-import { KalendsRangeError } from '../errors.js';
-import {
-  type BulkOptions,
-  INVALID_DAY_NUMBER,
-  type ZoneInput,
-  dayNumberFromEpochMs,
-  dayNumberFromEpochMsBulk,
-  firstEpochMsOfDayNumber,
-} from '../zone/index.js';
-import { localDayFunctionBulk } from '../zone/bulk.js';
+import { requireNumberArray, requireOutArray } from '../diagnostics/index.js';
+import { type BulkOptions, INVALID_DAY_NUMBER, type ZoneInput, dayNumberFromEpochMs, firstEpochMsOfDayNumber } from '../zone/index.js';
+import { dayNumbersOfCheckedInstants, localDayFunctionBulk, readBulkOptions } from '../zone/bulk.js';
 import { BULK_TABLE_MIN_ELEMENTS, ordinalDayFunction, ordinalsFromDaysKernel } from './bulk.js';
 import { type Period, periodChecked, requirePeriod } from './period.js';
 import { type UnitInput, coreOf, toUnit } from './units.js';
@@ -31,7 +24,7 @@ import { type UnitInput, coreOf, toUnit } from './units.js';
  */
 export function periodFromEpochMs(unit: UnitInput, zone: ZoneInput, epochMs: number): Period {
   const u = toUnit(unit);
-  return periodChecked(u, u.ordinalFromDayNumber(dayNumberFromEpochMs(zone, epochMs)), 'periodFromEpochMs');
+  return periodChecked(u, u.ordinalFromDayNumber(dayNumberFromEpochMs(zone, epochMs)), 'epochMs', 'periodFromEpochMs');
 }
 
 /**
@@ -102,20 +95,17 @@ export function ordinalFromEpochMsBulk(
 ): Int32Array {
   const u = toUnit(unit);
   const core = coreOf(u)!;
-  const n = epochMs.length;
-  if (out !== undefined && (!(out instanceof Int32Array) || out.length < n)) {
-    throw new KalendsRangeError(`ordinalFromEpochMsBulk: out must be an Int32Array of at least ${n} elements`, {
-      code: 'length-mismatch',
-      received: out,
-    });
-  }
+  const src = requireNumberArray('epochMs', epochMs);
+  const sentinel = readBulkOptions(options);
+  const n = src.length;
+  const result = requireOutArray('out', out, Int32Array, n);
   // Large inputs in a zone with rules: one pass over a per-UTC-day table of the unit's ordinals.
   if (n >= BULK_TABLE_MIN_ELEMENTS) {
-    const direct = localDayFunctionBulk(zone, epochMs, out, options, ordinalDayFunction(core), INVALID_ORDINAL);
+    const direct = localDayFunctionBulk(zone, src, result, sentinel, ordinalDayFunction(core), INVALID_ORDINAL);
     if (direct) return direct;
   }
-  const days = dayNumberFromEpochMsBulk(zone, epochMs, out, options);
-  if (options?.invalid !== 'sentinel') {
+  const days = dayNumbersOfCheckedInstants(zone, src, result, sentinel);
+  if (!sentinel) {
     ordinalsFromDaysKernel(core, days, days, n);
     return days;
   }

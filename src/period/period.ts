@@ -4,8 +4,9 @@
  *
  * @module
  */
-import { MAX_DAY_NUMBER, MIN_DAY_NUMBER } from '../bounds.js';
+import { MAX_DAY_NUMBER, MAX_LIST_LENGTH, MAX_YEAR, MIN_DAY_NUMBER, MIN_YEAR } from '../bounds.js';
 import { KalendsRangeError, KalendsTypeError, describeValue, requireInteger } from '../errors.js';
+import { requireDayNumberArgument, requireWhole } from '../diagnostics/index.js';
 import { type PeriodUnit, type UnitCore, type UnitInput, coreOf, toUnit } from './units.js';
 
 /** A period: a compiled unit and the period's ordinal in it. Immutable. */
@@ -13,9 +14,6 @@ export interface Period {
   readonly unit: PeriodUnit;
   readonly ordinal: number;
 }
-
-/** Most periods a list function returns (a guard against unbounded work). */
-export const MAX_LIST_LENGTH = 100_000;
 
 /** @internal Validates a period and returns its core. */
 export function requirePeriod(p: unknown, name = 'period'): UnitCore {
@@ -35,11 +33,15 @@ function make(unit: PeriodUnit, ordinal: number): Period {
   return Object.freeze({ unit, ordinal });
 }
 
-/** @internal A period with a range-checked ordinal; `what` describes the operation for messages. */
-export function periodChecked(unit: PeriodUnit, ordinal: number, what: string): Period {
+/**
+ * @internal A period with a range-checked ordinal; `name` is the parameter that led there and `what` the
+ * operation, for the message (`years: shiftPeriodYears(+275760, 1) gives ordinal 275761, ...`).
+ */
+export function periodChecked(unit: PeriodUnit, ordinal: number, name: string, what: string): Period {
   if (!(ordinal >= unit.minOrdinal && ordinal <= unit.maxOrdinal)) {
+    const core = coreOf(unit)!;
     throw new KalendsRangeError(
-      `${what}: the result, ordinal ${ordinal}, is outside the supported range of unit ${unit.id} (${unit.minOrdinal}..${unit.maxOrdinal})`,
+      `${name}: ${what} gives ordinal ${ordinal}, outside the supported range of unit ${unit.id}; expected a result from ${core.format(unit.minOrdinal)} to ${core.format(unit.maxOrdinal)} (ordinals ${unit.minOrdinal}..${unit.maxOrdinal})`,
       { code: 'out-of-range', received: ordinal },
     );
   }
@@ -82,10 +84,8 @@ export function periodFromDayNumber(unit: UnitInput, dayNumber: number): Period 
  */
 export function shiftPeriod(p: Period, n: number): Period {
   requirePeriod(p, 'p');
-  if (typeof n !== 'number' || !Number.isSafeInteger(n)) {
-    throw new KalendsRangeError(`n: expected an integer number of periods, got ${describeValue(n)}`, { code: 'out-of-range', received: n });
-  }
-  return periodChecked(p.unit, p.ordinal + n, `shiftPeriod(${formatPeriod(p)}, ${n})`);
+  requireWhole('n', n, -Number.MAX_SAFE_INTEGER, Number.MAX_SAFE_INTEGER);
+  return periodChecked(p.unit, p.ordinal + n, 'n', `shiftPeriod(${formatPeriod(p)}, ${n})`);
 }
 
 function requireSameUnit(a: Period, b: Period): void {
@@ -186,8 +186,7 @@ export function lengthDaysOfPeriod(p: Period): number {
  */
 export function isDayNumberInPeriod(p: Period, dayNumber: number): boolean {
   const core = requirePeriod(p, 'p');
-  requireInteger('dayNumber', dayNumber, MIN_DAY_NUMBER, MAX_DAY_NUMBER);
-  return core.ordinalOf(dayNumber) === p.ordinal;
+  return core.ordinalOf(requireDayNumberArgument('dayNumber', dayNumber)) === p.ordinal;
 }
 
 /**
@@ -203,9 +202,10 @@ export function formatPeriod(p: Period): string {
 }
 
 /**
- * The period of `unit` named by `text`. A malformed label, or a label of another unit, gives a
- * KalendsSyntaxError quoting it; a well-formed label of a period that does not exist (`2021-W53`, `2025-13`) a
- * KalendsRangeError quoting it.
+ * The period of `unit` named by `text`. Every fault is a KalendsSyntaxError that quotes the label, says the
+ * expected form and gives the position: code `malformed` for a label that breaks the grammar or belongs to another
+ * unit, `out-of-range` for a well-formed label of a period that does not exist (`2021-W53`, `2025-13`) or lies
+ * outside the supported range.
  *
  * @example
  * ```ts
@@ -218,24 +218,30 @@ export function parsePeriod(unit: UnitInput, text: string): Period {
   return make(u, u.parseOrdinal(text));
 }
 
+/** Most whole years a period may move: the width of the supported range. */
+const MAX_SHIFT_YEARS = MAX_YEAR - MIN_YEAR;
+
 /**
- * The same period one year earlier, for year-over-year comparison. Rules (docs/periods.md, "One year earlier"):
- * - months, quarters, halves, years and every fiscal unit except weeks: the period with the same index one
- *   (fiscal) year earlier;
- * - ISO weeks and fiscal weeks: the same week number in the prior (week-)year; week 53 maps to week 52 when the
- *   prior year has only 52 weeks;
- * - days: the same calendar date a year earlier, 29 February mapping to 28 February;
- * - weeks starting on a given weekday: 52 weeks earlier; cycles: the cycle holding the day 364 days before the
- *   first day.
+ * The comparable period `years` years later (earlier, for a negative number), for year-over-year comparison. Rules
+ * (docs/periods.md, "Years apart"):
+ * - months, quarters, halves, years and every fiscal unit except weeks: the period with the same index in the
+ *   (fiscal) year `years` away;
+ * - ISO weeks and fiscal weeks: the same week number in that (week-)year; week 53 maps to the last week (52) when
+ *   that year has only 52 weeks;
+ * - days: the same calendar date, 29 February mapping to 28 February in a common year;
+ * - weeks starting on a given weekday: 52 weeks a year; cycles: the cycle holding the day 364 days a year away
+ *   from the first day.
  *
  * @example
  * ```ts
- * formatPeriod(periodYearEarlier(parsePeriod('iso-week', '2026-W53'))); // '2025-W52'
+ * formatPeriod(shiftPeriodYears(parsePeriod('iso-week', '2026-W53'), -1)); // '2025-W52'
+ * formatPeriod(shiftPeriodYears(parsePeriod('day', '2024-02-29'), 3));     // '2027-02-28'
  * ```
  */
-export function periodYearEarlier(p: Period): Period {
+export function shiftPeriodYears(p: Period, years: number): Period {
   const core = requirePeriod(p, 'p');
-  return periodChecked(p.unit, core.yearEarlier(p.ordinal), `periodYearEarlier(${formatPeriod(p)})`);
+  requireWhole('years', years, -MAX_SHIFT_YEARS, MAX_SHIFT_YEARS);
+  return periodChecked(p.unit, core.shiftYears(p.ordinal, years), 'years', `shiftPeriodYears(${formatPeriod(p)}, ${years})`);
 }
 
 function subPeriodRange(p: Period, unit: UnitInput): { sub: PeriodUnit; first: number; last: number; start: number; end: number } {
@@ -301,16 +307,17 @@ export function listOverlappingPeriods(p: Period, unit: UnitInput): Period[] {
 }
 
 /**
- * The period of `unit` that holds the first day of `p` (the fiscal year of a fiscal week, the month of a day).
+ * The period of `unit` that holds the first day of `p` (the fiscal year of a fiscal week, the quarter of a month).
+ * Unit first, like {@link periodFromDayNumber}.
  *
  * @example
  * ```ts
- * formatPeriod(periodContaining(parsePeriod('month', '2025-05'), 'quarter')); // '2025-Q2'
+ * formatPeriod(periodFromPeriod('quarter', parsePeriod('month', '2025-05'))); // '2025-Q2'
  * ```
  */
-export function periodContaining(p: Period, unit: UnitInput): Period {
-  const core = requirePeriod(p, 'p');
+export function periodFromPeriod(unit: UnitInput, p: Period): Period {
   const u = toUnit(unit, 'unit');
+  const core = requirePeriod(p, 'p');
   const first = Math.max(core.firstDayOf(p.ordinal), MIN_DAY_NUMBER);
   return make(u, coreOf(u)!.ordinalOf(first));
 }

@@ -8,7 +8,7 @@ import { MS_PER_DAY } from '../bounds.js';
 import { dayNumberFromEpochMsBulk, epochMsFromWallMs, wallMsFromEpochMsBulk } from '../zone/index.js';
 import { type BusinessCalendar, nextBusinessDay, previousBusinessDay, shiftBusinessDays } from '../business/index.js';
 import { type Duration, negateDuration, shiftWallMs } from '../instant/index.js';
-import { periodYearEarlier } from '../period/index.js';
+import { shiftPeriodYears } from '../period/index.js';
 import { type BucketTable, findRuns } from './bucket.js';
 import { type PeriodUnit, type UnitInput, type ZoneInput, requireUnit, resolveZone } from './deps.js';
 import { type CalendarSpan, readSpan } from './rolling.js';
@@ -226,7 +226,7 @@ export interface PeriodChangeOptions {
   readonly column?: string;
   /**
    * `'previous'` (default): each period against the one before it. `'year-earlier'`: against the period
-   * the period layer's `periodYearEarlier` names (the same month, quarter or fiscal period of the prior year;
+   * the period layer's `shiftPeriodYears(p, -1)` names (the same month, quarter or fiscal period of the prior year;
    * for week-based fiscal years week 53 is compared with week 52 of a 52-week prior year).
    */
   readonly against?: 'previous' | 'year-earlier';
@@ -295,7 +295,7 @@ export function periodChangeFromBuckets(table: BucketTable, options: PeriodChang
     if (against === 'previous') b = o - 1;
     else {
       try {
-        b = periodYearEarlier({ unit: table.unit, ordinal: o }).ordinal;
+        b = shiftPeriodYears({ unit: table.unit, ordinal: o }, -1).ordinal;
       } catch (e) {
         if (!(e instanceof RangeError)) throw e;
         b = Number.NaN;

@@ -18,7 +18,7 @@ import { KalendsRangeError, KalendsSyntaxError, describeValue } from '../errors.
 export class UnknownZoneError extends KalendsRangeError {
   readonly suggestions: readonly string[];
   constructor(name: string, id: unknown, suggestions: readonly string[], where = "the runtime's Intl time zone list") {
-    const hint = suggestions.length > 0 ? `; did you mean ${suggestions.map((s) => JSON.stringify(s)).join(', ')}?` : '';
+    const hint = suggestions.length > 0 ? `; did you mean ${suggestions.map((s) => JSON.stringify(s)).join(' or ')}?` : '';
     super(
       `${name}: unknown time zone ${describeValue(id)}; expected an IANA id from ${where}, "UTC", or a fixed offset like "+05:30"${hint}`,
       { code: 'unknown-zone', received: id },

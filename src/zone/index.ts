@@ -7,7 +7,6 @@ export {
   type ZoneRulesSource,
   type ZoneFromIdOptions,
   UTC_ZONE,
-  ZONE_CACHE_LIMIT,
   zoneFromId,
   zoneFromOffset,
   zoneFromTzif,

@@ -4,6 +4,7 @@
  *
  * @module
  */
+import { MAX_SUGGEST_INPUT, editDistance } from '../diagnostics/index.js';
 
 /** The formatter options the engine parses: en-US, 24-hour clock, short era, all six wall fields. */
 const PROBE_OPTIONS: Intl.DateTimeFormatOptions = {
@@ -58,42 +59,27 @@ export function listedIdIgnoringCase(id: string): string | undefined {
   return lowerMap.get(id.toLowerCase());
 }
 
-/** Levenshtein distance between two strings, case-insensitive, with an early exit above `limit`. */
-function editDistance(a: string, b: string, limit: number): number {
-  a = a.toLowerCase();
-  b = b.toLowerCase();
-  if (Math.abs(a.length - b.length) > limit) return limit + 1;
-  let prev = Array.from({ length: b.length + 1 }, (_, j) => j);
-  for (let i = 1; i <= a.length; i++) {
-    const cur = [i];
-    let rowMin = i;
-    for (let j = 1; j <= b.length; j++) {
-      const v = Math.min(prev[j]! + 1, cur[j - 1]! + 1, prev[j - 1]! + (a[i - 1] === b[j - 1] ? 0 : 1));
-      cur.push(v);
-      if (v < rowMin) rowMin = v;
-    }
-    if (rowMin > limit) return limit + 1;
-    prev = cur;
-  }
-  return prev[b.length]!;
-}
-
 /**
- * Up to three ids from `candidates` closest to `id` by edit distance (whole id, or the part after the last "/"),
- * within a distance of a third of the id's length (at least 2).
+ * Up to three ids from `candidates` closest to `id` by edit distance, ignoring case (the kit's distance), ranked
+ * for zones: the whole id, or the part after the last "/" (the city) at half a step more, within a distance of a
+ * third of the id's length (at least 2). Ids longer than the kit's MAX_SUGGEST_INPUT get no suggestion, so the
+ * work per bad id is bounded.
  * @internal
  */
-export function suggestZoneIds(id: string, candidates: readonly string[]): string[] {
+export function suggestZoneIds(input: string, candidates: readonly string[]): string[] {
+  if (input.length > MAX_SUGGEST_INPUT) return [];
+  const id = input.toLowerCase();
   const limit = Math.max(2, Math.floor(id.length / 3));
   const tail = id.slice(id.lastIndexOf('/') + 1);
   const scored: { id: string; d: number }[] = [];
-  for (const c of candidates) {
+  for (const original of candidates) {
+    const c = original.toLowerCase();
     const whole = editDistance(id, c, limit);
     const ctail = c.slice(c.lastIndexOf('/') + 1);
     const partLimit = Math.max(1, Math.floor(tail.length / 3));
     const part = tail.length >= 3 ? editDistance(tail, ctail, partLimit) : partLimit + 1;
     const d = Math.min(whole, part <= partLimit ? part + 0.5 : Infinity);
-    if (d <= limit) scored.push({ id: c, d });
+    if (d <= limit) scored.push({ id: original, d });
   }
   scored.sort((x, y) => x.d - y.d || (x.id < y.id ? -1 : 1));
   const best = scored[0]?.d ?? 0;

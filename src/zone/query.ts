@@ -4,46 +4,69 @@
  *
  * @module
  */
-import { MAX_DAY_NUMBER, MAX_EPOCH_MS, MIN_DAY_NUMBER, MIN_EPOCH_MS, MS_PER_DAY } from '../bounds.js';
 import {
-  dayNumberFromYmdUnchecked,
+  DEFAULT_TRANSITION_LIMIT,
+  MAX_EPOCH_MS,
+  MAX_TRANSITION_LIMIT,
+  MAX_TRANSITION_WALK_YEARS,
+  MAX_ZONED_DAY_NUMBER,
+  MIN_EPOCH_MS,
+  MIN_ZONED_DAY_NUMBER,
+  MS_PER_DAY,
+} from '../bounds.js';
+import {
   dayCountOfMonthUnchecked,
+  dayNumberFromYmdUnchecked,
+  dayOfPacked,
+  monthOfPacked,
   packedYmdUnchecked,
-  requireDayNumber,
   requireYear,
   weekdayOfDayNumberUnchecked,
+  yearOfPacked,
 } from '../civil/gregorian.js';
 import { KalendsRangeError, KalendsTypeError, describeValue, requireInteger } from '../errors.js';
-import { MIN_YEAR } from '../bounds.js';
+import { optionOf, readOptions, requireDayNumberArgument, requireEnum, requireEpochMs, requireWhole } from '../diagnostics/index.js';
+import { formatOffsetUnchecked, formatWallUnchecked, requireWallMs as requireWallText } from '../instant/format.js';
 import { type Engine, type ZoneTransition } from './engine.js';
 import { WallTimeRejectedError } from './errors.js';
-import { type Zone, type ZoneInput, engineOf, formatOffsetSeconds, toZone } from './zone.js';
+import { type Zone, type ZoneInput, engineOf, toZone } from './zone.js';
 
 export type { ZoneTransition } from './engine.js';
 
 /** Temporal's disambiguation options (ECMA-262 Temporal, `ToTemporalDisambiguation`). */
 export type Disambiguation = 'compatible' | 'earlier' | 'later' | 'reject';
 
-/** How a local date-time maps to instants in a zone. */
+/**
+ * How a local date-time maps to instants in a zone. A gap and an overlap are described in one vocabulary, that
+ * of {@link ZoneTransition}: the transition's instant and the offsets before and after it, and the range of wall
+ * times `[startWallMs, endWallMs)` the transition skipped (a gap) or repeated (an overlap).
+ */
 export type WallResolution =
   | { readonly kind: 'unique'; readonly epochMs: number; readonly offsetSeconds: number }
   | {
       readonly kind: 'gap';
-      /** Offset before and after the transition that skipped this wall time. */
+      /** The transition that skipped this wall time. */
+      readonly transitionEpochMs: number;
+      /** Offset before and after the transition. */
       readonly offsetBeforeSeconds: number;
       readonly offsetAfterSeconds: number;
-      /** The transition instant. */
-      readonly transitionEpochMs: number;
-      /** The skipped wall-clock range [gapStartWallMs, gapEndWallMs). */
-      readonly gapStartWallMs: number;
-      readonly gapEndWallMs: number;
+      /** The skipped wall-clock range [startWallMs, endWallMs). */
+      readonly startWallMs: number;
+      readonly endWallMs: number;
     }
   | {
       readonly kind: 'overlap';
-      readonly earlierEpochMs: number;
-      readonly laterEpochMs: number;
-      readonly earlierOffsetSeconds: number;
-      readonly laterOffsetSeconds: number;
+      /** The transition after which this wall time came round again. */
+      readonly transitionEpochMs: number;
+      /** Offset before and after the transition. */
+      readonly offsetBeforeSeconds: number;
+      readonly offsetAfterSeconds: number;
+      /** The repeated wall-clock range [startWallMs, endWallMs). */
+      readonly startWallMs: number;
+      readonly endWallMs: number;
+      /** The instant of this wall time before the transition (the earlier one), and after it (the later one). */
+      readonly epochMsBeforeTransition: number;
+      readonly epochMsAfterTransition: number;
     };
 
 /** A local date-time as fields, with the zone's offset and the ISO weekday. */
@@ -77,31 +100,8 @@ export interface WallFieldsInput {
 const MIN_WALL_MS = MIN_EPOCH_MS - MS_PER_DAY;
 const MAX_WALL_MS = MAX_EPOCH_MS + MS_PER_DAY;
 
-/** @internal Validates an instant: a finite number within ±8.64e15 ms. */
-export function requireEpochMs(name: string, value: unknown): number {
-  if (typeof value !== 'number') {
-    throw new KalendsTypeError(`${name}: expected epoch milliseconds (a number), got ${describeValue(value)}`, { code: 'invalid-type', received: value });
-  }
-  if (!(value >= MIN_EPOCH_MS && value <= MAX_EPOCH_MS)) {
-    throw new KalendsRangeError(`${name}: expected epoch milliseconds from ${MIN_EPOCH_MS} to ${MAX_EPOCH_MS}, got ${describeValue(value)}`, {
-      code: 'out-of-range',
-      received: value,
-    });
-  }
-  return value;
-}
-
 function requireWallMs(name: string, value: unknown): number {
-  if (typeof value !== 'number') {
-    throw new KalendsTypeError(`${name}: expected wall-clock milliseconds (a number), got ${describeValue(value)}`, { code: 'invalid-type', received: value });
-  }
-  if (!(value >= MIN_WALL_MS && value <= MAX_WALL_MS)) {
-    throw new KalendsRangeError(`${name}: expected wall-clock milliseconds from ${MIN_WALL_MS} to ${MAX_WALL_MS}, got ${describeValue(value)}`, {
-      code: 'out-of-range',
-      received: value,
-    });
-  }
-  return value;
+  return requireWallText(name, value, MIN_WALL_MS, MAX_WALL_MS);
 }
 
 function checkResult(epochMs: number, what: string, received: unknown): number {
@@ -111,20 +111,12 @@ function checkResult(epochMs: number, what: string, received: unknown): number {
   return epochMs;
 }
 
-/** ISO 8601 text of a wall-clock ms value, for messages. @internal */
-export function isoWall(wallMs: number): string {
-  const dn = Math.floor(wallMs / MS_PER_DAY);
-  const p = packedYmdUnchecked(dn);
-  const year = Math.floor(p / 512) + MIN_YEAR;
-  const ms = wallMs - dn * MS_PER_DAY;
-  const pad = (v: number, w = 2) => String(v).padStart(w, '0');
-  const y = year >= 0 && year <= 9999 ? pad(year, 4) : `${year < 0 ? '-' : '+'}${pad(Math.abs(year), 6)}`;
-  const hh = Math.floor(ms / 3_600_000);
-  const mi = Math.floor((ms % 3_600_000) / 60_000);
-  const ss = Math.floor((ms % 60_000) / 1000);
-  const frac = ms % 1000;
-  return `${y}-${pad((p >> 5) & 15)}-${pad(p & 31)}T${pad(hh)}:${pad(mi)}:${pad(ss)}${frac ? `.${pad(frac, 3)}` : ''}`;
-}
+/*
+ * Fractional instants (docs/design.md, "Input rules"): an instant t lies within millisecond Math.floor(t). The
+ * engine's intervals start and end on whole milliseconds, so the offset at t is the offset at Math.floor(t);
+ * answers that are instants or wall times (an offset added or subtracted) keep the fraction, and answers that are
+ * days, fields or transitions are those of Math.floor(t).
+ */
 
 /**
  * The zone's UTC offset in seconds at an instant (seconds east of UTC; historic local mean times have seconds).
@@ -169,8 +161,8 @@ export function dayNumberFromEpochMs(zone: ZoneInput, epochMs: number): number {
 }
 
 /**
- * The local fields of an instant: date, time, ISO weekday, day number and offset. Allocates one object; in loops
- * use {@link wallMsFromEpochMsBulk}.
+ * The local fields of an instant: date, time, ISO weekday, day number and offset (those of the millisecond that
+ * holds a fractional instant). Allocates one object; in loops use {@link wallMsFromEpochMsBulk}.
  *
  * @example
  * ```ts
@@ -179,16 +171,16 @@ export function dayNumberFromEpochMs(zone: ZoneInput, epochMs: number): number {
  */
 export function wallFieldsFromEpochMs(zone: ZoneInput, epochMs: number): WallFields {
   const e = engineOf(toZone(zone));
-  requireEpochMs('epochMs', epochMs);
-  const offsetSeconds = e.offsetAt(epochMs);
-  const wall = epochMs + offsetSeconds * 1000;
+  const t = Math.floor(requireEpochMs('epochMs', epochMs));
+  const offsetSeconds = e.offsetAt(t);
+  const wall = t + offsetSeconds * 1000;
   const dayNumber = Math.floor(wall / MS_PER_DAY);
   const p = packedYmdUnchecked(dayNumber);
   const ms = wall - dayNumber * MS_PER_DAY;
   return {
-    year: Math.floor(p / 512) + MIN_YEAR,
-    month: (p >> 5) & 15,
-    day: p & 31,
+    year: yearOfPacked(p),
+    month: monthOfPacked(p),
+    day: dayOfPacked(p),
     hour: Math.floor(ms / 3_600_000),
     minute: Math.floor((ms % 3_600_000) / 60_000),
     second: Math.floor((ms % 60_000) / 1000),
@@ -199,8 +191,8 @@ export function wallFieldsFromEpochMs(zone: ZoneInput, epochMs: number): WallFie
   };
 }
 
-/** @internal Resolution on an engine, without validation. */
-export function resolveOn(e: Engine, wall: number): WallResolution {
+/** Resolution on an engine, without validation. */
+function resolveOn(e: Engine, wall: number): WallResolution {
   // Fast path: one offset holds across the whole ±1 day window around the wall time.
   e.offsetAt(wall);
   if (e.lo <= wall - MS_PER_DAY && e.hi > wall + MS_PER_DAY) return { kind: 'unique', epochMs: wall - e.off * 1000, offsetSeconds: e.off };
@@ -219,7 +211,22 @@ export function resolveOn(e: Engine, wall: number): WallResolution {
   if (found.length >= 2) {
     const a = found[0]!;
     const b = found[found.length - 1]!;
-    return { kind: 'overlap', earlierEpochMs: a.t, laterEpochMs: b.t, earlierOffsetSeconds: a.o, laterOffsetSeconds: b.o };
+    // The transition between the two instants (the last one there when the rules change twice within a day).
+    let k = at.length - 1;
+    while (k > 0 && !(at[k]! <= b.t)) k--;
+    const ob = k === 0 ? before : after[k - 1]!;
+    const oa = after[k]!;
+    const tr = at[k]!;
+    return {
+      kind: 'overlap',
+      transitionEpochMs: tr,
+      offsetBeforeSeconds: ob,
+      offsetAfterSeconds: oa,
+      startWallMs: tr + oa * 1000,
+      endWallMs: tr + ob * 1000,
+      epochMsBeforeTransition: a.t,
+      epochMsAfterTransition: b.t,
+    };
   }
   for (let i = 0; i < at.length; i++) {
     const ob = i === 0 ? before : after[i - 1]!;
@@ -227,22 +234,26 @@ export function resolveOn(e: Engine, wall: number): WallResolution {
     const start = at[i]! + ob * 1000;
     const end = at[i]! + oa * 1000;
     if (wall >= start && wall < end) {
-      return { kind: 'gap', offsetBeforeSeconds: ob, offsetAfterSeconds: oa, transitionEpochMs: at[i]!, gapStartWallMs: start, gapEndWallMs: end };
+      return { kind: 'gap', transitionEpochMs: at[i]!, offsetBeforeSeconds: ob, offsetAfterSeconds: oa, startWallMs: start, endWallMs: end };
     }
   }
   /* c8 ignore next 2 */
-  throw new KalendsRangeError(`wallMs: could not resolve ${isoWall(wall)}; the zone's rules have transitions closer than one day`, { code: 'unsupported', received: wall });
+  throw new KalendsRangeError(`wallMs: could not resolve ${formatWallUnchecked(wall)}; the zone's rules have transitions closer than one day`, { code: 'unsupported', received: wall });
 }
 
 /**
- * How a local wall-clock time maps to instants in a zone: `unique` (one instant), `gap` (the clocks skipped it;
- * with the offsets before and after and the skipped range), or `overlap` (it happened twice; both instants).
+ * How a local wall-clock time maps to instants in a zone: `unique` (one instant), `gap` (the clocks skipped it)
+ * or `overlap` (it happened twice). A gap and an overlap name the same things: the transition, the offsets before
+ * and after it, and the wall-clock range it skipped or repeated; an overlap adds the instant before and after the
+ * transition. A fractional wall time keeps its fraction in the instants.
  *
  * @example
  * ```ts
  * // 2025-11-02T01:30 happened twice in New York:
  * resolveWallMs('America/New_York', Date.UTC(2025, 10, 2, 1, 30));
- * // { kind: 'overlap', earlierEpochMs: Date.UTC(2025, 10, 2, 5, 30), laterEpochMs: Date.UTC(2025, 10, 2, 6, 30), ... }
+ * // { kind: 'overlap', transitionEpochMs: Date.UTC(2025, 10, 2, 6), offsetBeforeSeconds: -14400, offsetAfterSeconds: -18000,
+ * //   startWallMs: <01:00>, endWallMs: <02:00>,
+ * //   epochMsBeforeTransition: Date.UTC(2025, 10, 2, 5, 30), epochMsAfterTransition: Date.UTC(2025, 10, 2, 6, 30) }
  * ```
  */
 export function resolveWallMs(zone: ZoneInput, wallMs: number): WallResolution {
@@ -252,15 +263,9 @@ export function resolveWallMs(zone: ZoneInput, wallMs: number): WallResolution {
 
 const DISAMBIGUATIONS: readonly Disambiguation[] = ['compatible', 'earlier', 'later', 'reject'];
 
-/** @internal */
-export function requireDisambiguation(value: unknown): Disambiguation {
-  if (!DISAMBIGUATIONS.includes(value as Disambiguation)) {
-    throw new KalendsRangeError(`disambiguation: expected 'compatible', 'earlier', 'later' or 'reject', got ${describeValue(value)}`, {
-      code: 'out-of-range',
-      received: value,
-    });
-  }
-  return value as Disambiguation;
+/** @internal A disambiguation option: one of Temporal's four strings (a misspelling is named with the nearest). */
+function requireDisambiguation(value: unknown, name = 'disambiguation'): Disambiguation {
+  return requireEnum(name, value, DISAMBIGUATIONS, 'compatible');
 }
 
 function pick(z: Zone, r: WallResolution, wall: number, d: Disambiguation): number {
@@ -268,17 +273,17 @@ function pick(z: Zone, r: WallResolution, wall: number, d: Disambiguation): numb
   if (r.kind === 'overlap') {
     if (d === 'reject') {
       throw new WallTimeRejectedError(
-        `wallMs: ${isoWall(wall)} happened twice in ${z.id} (at offsets ${formatOffsetSeconds(r.earlierOffsetSeconds)} and ${formatOffsetSeconds(r.laterOffsetSeconds)}); use disambiguation 'earlier', 'later' or 'compatible' instead of 'reject'`,
+        `wallMs: ${formatWallUnchecked(wall)} happened twice in ${z.id} (at offsets ${formatOffsetUnchecked(r.offsetBeforeSeconds)} and ${formatOffsetUnchecked(r.offsetAfterSeconds)}); use disambiguation 'earlier', 'later' or 'compatible' instead of 'reject'`,
         'overlap',
         z.id,
         wall,
       );
     }
-    return d === 'later' ? r.laterEpochMs : r.earlierEpochMs;
+    return d === 'later' ? r.epochMsAfterTransition : r.epochMsBeforeTransition;
   }
   if (d === 'reject') {
     throw new WallTimeRejectedError(
-      `wallMs: ${isoWall(wall)} does not exist in ${z.id}: the clocks went from ${isoWall(r.gapStartWallMs)} to ${isoWall(r.gapEndWallMs)} (offset ${formatOffsetSeconds(r.offsetBeforeSeconds)} to ${formatOffsetSeconds(r.offsetAfterSeconds)}); use disambiguation 'compatible', 'earlier' or 'later' instead of 'reject'`,
+      `wallMs: ${formatWallUnchecked(wall)} does not exist in ${z.id}: the clocks went from ${formatWallUnchecked(r.startWallMs)} to ${formatWallUnchecked(r.endWallMs)} (offset ${formatOffsetUnchecked(r.offsetBeforeSeconds)} to ${formatOffsetUnchecked(r.offsetAfterSeconds)}); use disambiguation 'compatible', 'earlier' or 'later' instead of 'reject'`,
       'gap',
       z.id,
       wall,
@@ -300,7 +305,7 @@ function pick(z: Zone, r: WallResolution, wall: number, d: Disambiguation): numb
  * epochMsFromWallMs('America/New_York', wall, 'earlier'); // Date.UTC(2025, 2, 9, 6, 30) (01:30 EST)
  * ```
  */
-export function epochMsFromWallMs(zone: ZoneInput, wallMs: number, disambiguation: Disambiguation = 'compatible'): number {
+export function epochMsFromWallMs(zone: ZoneInput, wallMs: number, disambiguation?: Disambiguation): number {
   const z = toZone(zone);
   requireWallMs('wallMs', wallMs);
   const d = requireDisambiguation(disambiguation);
@@ -316,7 +321,7 @@ export function epochMsFromWallMs(zone: ZoneInput, wallMs: number, disambiguatio
  * epochMsFromWallFields('Europe/London', { year: 2025, month: 7, day: 1, hour: 9 }); // Date.UTC(2025, 6, 1, 8)
  * ```
  */
-export function epochMsFromWallFields(zone: ZoneInput, fields: WallFieldsInput, disambiguation: Disambiguation = 'compatible'): number {
+export function epochMsFromWallFields(zone: ZoneInput, fields: WallFieldsInput, disambiguation?: Disambiguation): number {
   if (typeof fields !== 'object' || fields === null) {
     throw new KalendsTypeError(`fields: expected an object with year, month and day, got ${describeValue(fields)}`, { code: 'invalid-type', received: fields });
   }
@@ -331,23 +336,53 @@ export function epochMsFromWallFields(zone: ZoneInput, fields: WallFieldsInput, 
   return epochMsFromWallMs(zone, wall, disambiguation);
 }
 
+/** Days in the 400-year Gregorian cycle: a whole number of weeks, so yearly rules repeat exactly after it. */
+const CYCLE_DAYS = 146_097;
+/** Days whose start is resolved directly: the ±1 day window around their midnight lies within ±8.64e15 ms. */
+const FIRST_DIRECT_DAY = MIN_EPOCH_MS / MS_PER_DAY + 1;
+const LAST_DIRECT_DAY = MAX_EPOCH_MS / MS_PER_DAY - 2;
+
 function dayStartOn(e: Engine, dayNumber: number): number {
+  if (dayNumber < FIRST_DIRECT_DAY) {
+    // Before the instant range: the zone's offset at its start, which held since the zone's first transition
+    // (Intl: none before 1800); rules that repeat every year (a POSIX rule alone) are read 400 years later.
+    if (e.lowQuietMs >= (FIRST_DIRECT_DAY + 2) * MS_PER_DAY) return dayNumber * MS_PER_DAY - e.offsetAt(MIN_EPOCH_MS) * 1000;
+    if (e.periodicFromMs === -Infinity) return dayStartOn(e, dayNumber + CYCLE_DAYS) - CYCLE_DAYS * MS_PER_DAY;
+    throw outsideRules(dayNumber);
+  }
+  if (dayNumber > LAST_DIRECT_DAY) {
+    // After the instant range: the zone's rules repeat every year there (Intl: from 2200), so the day 400
+    // Gregorian years earlier starts at the same wall time with the same offset.
+    if (e.periodicFromMs <= (LAST_DIRECT_DAY - CYCLE_DAYS - 2) * MS_PER_DAY) return dayStartOn(e, dayNumber - CYCLE_DAYS) + CYCLE_DAYS * MS_PER_DAY;
+    throw outsideRules(dayNumber);
+  }
   const wall = dayNumber * MS_PER_DAY;
   const r = resolveOn(e, wall);
   if (r.kind === 'unique') return r.epochMs;
-  if (r.kind === 'overlap') return r.earlierEpochMs;
+  if (r.kind === 'overlap') return r.epochMsBeforeTransition;
   return r.transitionEpochMs;
 }
 
-/** Day numbers whose start is an instant within ±8.64e15 ms (one day of margin at each end). */
-const MIN_ZONED_DAY = Math.max(MIN_DAY_NUMBER, MIN_EPOCH_MS / MS_PER_DAY + 1);
-const MAX_ZONED_DAY = Math.min(MAX_DAY_NUMBER, MAX_EPOCH_MS / MS_PER_DAY - 2);
+function outsideRules(dayNumber: number): KalendsRangeError {
+  return new KalendsRangeError(
+    `dayNumber: the start of day ${dayNumber} lies outside ±8.64e15 ms, where this zone's rules (transitions near the end of the instant range) say nothing; use a day within ${FIRST_DIRECT_DAY} to ${LAST_DIRECT_DAY}`,
+    { code: 'unsupported', received: dayNumber },
+  );
+}
+
+/** A day number in the zoned range (bounds.ts); text gets the name of the parser to call. */
+function requireZonedDay(value: unknown, max: number): number {
+  if (typeof value !== 'number') return requireDayNumberArgument('dayNumber', value);
+  return requireInteger('dayNumber', value, MIN_ZONED_DAY_NUMBER, max);
+}
 
 /**
  * The first instant of a local day. Usually local midnight, but not always: where the clocks skipped midnight
  * (spring-forward at 00:00, as in America/Santiago, America/Havana or Asia/Beirut) the day starts at the
  * transition, e.g. 01:00. A day that was skipped entirely (Pacific/Apia, 2011-12-30) starts where the next day
- * starts, so its length is 0.
+ * starts, so its length is 0. Every civil day is accepted, and the days just outside the civil range that partial
+ * periods at its ends need (MIN_ZONED_DAY_NUMBER..MAX_ZONED_DAY_NUMBER in bounds.ts); a day that starts outside
+ * ±8.64e15 ms gets an instant outside it, from the zone's rules at the nearest end of the instant range.
  *
  * @example
  * ```ts
@@ -356,9 +391,7 @@ const MAX_ZONED_DAY = Math.min(MAX_DAY_NUMBER, MAX_EPOCH_MS / MS_PER_DAY - 2);
  */
 export function firstEpochMsOfDayNumber(zone: ZoneInput, dayNumber: number): number {
   const e = engineOf(toZone(zone));
-  requireDayNumber(dayNumber);
-  requireInteger('dayNumber', dayNumber, MIN_ZONED_DAY, MAX_ZONED_DAY);
-  return dayStartOn(e, dayNumber);
+  return dayStartOn(e, requireZonedDay(dayNumber, MAX_ZONED_DAY_NUMBER));
 }
 
 /**
@@ -373,22 +406,20 @@ export function firstEpochMsOfDayNumber(zone: ZoneInput, dayNumber: number): num
  */
 export function lengthMsOfDayNumber(zone: ZoneInput, dayNumber: number): number {
   const e = engineOf(toZone(zone));
-  requireDayNumber(dayNumber);
-  requireInteger('dayNumber', dayNumber, MIN_ZONED_DAY, MAX_ZONED_DAY - 1);
-  return dayStartOn(e, dayNumber + 1) - dayStartOn(e, dayNumber);
+  const d = requireZonedDay(dayNumber, MAX_ZONED_DAY_NUMBER - 1);
+  return dayStartOn(e, d + 1) - dayStartOn(e, d);
 }
 
 /** Options of {@link listTransitions}. */
 export interface ListTransitionsOptions {
-  /** The most transitions to return before throwing a 'limit-exceeded' error (default 100,000). */
+  /** The most transitions to return before throwing a 'limit-exceeded' error (default 100,000, at most 10,000,000). */
   readonly limit?: number;
 }
 
-/** Most years of rules one listTransitions call may walk (keeps a call on an Intl zone bounded: about 1 s). */
-const MAX_LIST_YEARS = 2_000;
-
 /**
- * The offset changes within [startEpochMs, endEpochMs), in order, each with the offsets before and after.
+ * The offset changes within [startEpochMs, endEpochMs), in order, each with the offsets before and after. A
+ * fractional bound stands for the millisecond that holds it. A call walks at most MAX_TRANSITION_WALK_YEARS years
+ * of rules and returns at most `options.limit` changes; past either it throws `limit-exceeded`.
  *
  * @example
  * ```ts
@@ -400,17 +431,21 @@ export function listTransitions(
   zone: ZoneInput,
   startEpochMs: number,
   endEpochMs: number,
-  options: ListTransitionsOptions = {},
+  options?: ListTransitionsOptions,
 ): ZoneTransition[] {
   const e = engineOf(toZone(zone));
-  requireEpochMs('startEpochMs', startEpochMs);
-  requireEpochMs('endEpochMs', endEpochMs);
-  const limit = requireInteger('options.limit', options.limit ?? 100_000, 1, 10_000_000);
+  const start = Math.floor(requireEpochMs('startEpochMs', startEpochMs));
+  const end = Math.floor(requireEpochMs('endEpochMs', endEpochMs));
+  const o = readOptions('options', options, ['limit']);
+  const limit = requireWhole('options.limit', optionOf(o, 'limit'), 1, MAX_TRANSITION_LIMIT, DEFAULT_TRANSITION_LIMIT);
   const at: number[] = [];
   const after: number[] = [];
-  let prev = e.collect(startEpochMs, endEpochMs, at, after, MAX_LIST_YEARS);
+  let prev = e.collect(start, end, at, after, MAX_TRANSITION_WALK_YEARS);
   if (at.length > limit) {
-    throw new KalendsRangeError(`options.limit: the range holds ${at.length} transitions, more than the limit ${limit}`, { code: 'limit-exceeded', received: limit });
+    throw new KalendsRangeError(
+      `options.limit: the range holds ${at.length} transitions, more than the limit ${limit}; list a narrower range, or raise options.limit (at most ${MAX_TRANSITION_LIMIT})`,
+      { code: 'limit-exceeded', received: limit },
+    );
   }
   const out: ZoneTransition[] = [];
   for (let i = 0; i < at.length; i++) {
@@ -421,7 +456,8 @@ export function listTransitions(
 }
 
 /**
- * The first transition strictly after an instant, or null when the zone has no later change.
+ * The first transition strictly after an instant (after the millisecond that holds a fractional one), or null
+ * when the zone has no later change.
  *
  * @example
  * ```ts
@@ -430,13 +466,13 @@ export function listTransitions(
  */
 export function nextTransition(zone: ZoneInput, epochMs: number): ZoneTransition | null {
   const e = engineOf(toZone(zone));
-  requireEpochMs('epochMs', epochMs);
-  const t = e.next(epochMs);
+  const t = e.next(Math.floor(requireEpochMs('epochMs', epochMs)));
   return t && t.epochMs <= MAX_EPOCH_MS ? Object.freeze(t) : null;
 }
 
 /**
- * The last transition strictly before an instant, or null when the zone has no earlier change.
+ * The last transition strictly before an instant (before the millisecond that holds a fractional one), or null
+ * when the zone has no earlier change.
  *
  * @example
  * ```ts
@@ -445,8 +481,7 @@ export function nextTransition(zone: ZoneInput, epochMs: number): ZoneTransition
  */
 export function previousTransition(zone: ZoneInput, epochMs: number): ZoneTransition | null {
   const e = engineOf(toZone(zone));
-  requireEpochMs('epochMs', epochMs);
-  const t = e.previous(epochMs);
+  const t = e.previous(Math.floor(requireEpochMs('epochMs', epochMs)));
   return t && t.epochMs >= MIN_EPOCH_MS ? Object.freeze(t) : null;
 }
 

@@ -4,15 +4,11 @@
  *
  * @module
  */
-import { MAX_OFFSET_SECONDS } from '../bounds.js';
-import {
-  DefinitionError,
-  type DefinitionIssue,
-  KalendsRangeError,
-  KalendsSyntaxError,
-  KalendsTypeError,
-  describeValue,
-} from '../errors.js';
+import { MAX_OFFSET_SECONDS, ZONE_CACHE_LIMIT } from '../bounds.js';
+import { KalendsRangeError, KalendsTypeError, describeValue } from '../errors.js';
+import { Issues, isRecord, optionOf, readOptions } from '../diagnostics/index.js';
+import { formatOffsetUnchecked } from '../instant/format.js';
+import { parseOffsetText } from '../instant/text.js';
 import { Engine, FixedEngine, IntlEngine, TableEngine } from './engine.js';
 import { UnknownZoneError } from './errors.js';
 import { listedIdIgnoringCase, probeFormatter, runtimeTzRelease, runtimeZoneIds, suggestZoneIds } from './intl.js';
@@ -110,43 +106,16 @@ export const UTC_ZONE: Zone = makeZone(
 // ---------------------------------------------------------------------------------------------------------
 // Fixed offsets
 
-const OFFSET_RE = /^([+\-\u2212])(\d{2})(?::?(\d{2})(?::?(\d{2}))?)?$/;
-
-/** Formats an offset as ±HH:MM, or ±HH:MM:SS when it has seconds. @internal */
-export function formatOffsetSeconds(offsetSeconds: number): string {
-  const sign = offsetSeconds < 0 ? '-' : '+';
-  const a = Math.abs(offsetSeconds);
-  const hh = String(Math.floor(a / 3600)).padStart(2, '0');
-  const mm = String(Math.floor((a % 3600) / 60)).padStart(2, '0');
-  const ss = a % 60;
-  return `${sign}${hh}:${mm}${ss ? `:${String(ss).padStart(2, '0')}` : ''}`;
-}
-
-/** Parses ±HH, ±HHMM, ±HH:MM, ±HH:MM:SS or ±HHMMSS (RFC 9557 / ISO 8601 UTC offsets) to seconds. @internal */
-export function parseOffsetText(name: string, text: string): number {
-  const m = OFFSET_RE.exec(text);
-  if (!m) {
-    throw new KalendsSyntaxError(
-      `${name}: expected a UTC offset like "+05:30", "-08:00" or "+05:21:10", got ${describeValue(text)}`,
-      { code: 'malformed', received: text, position: /^[+\-\u2212]/.test(text) ? 1 : 0 },
-    );
-  }
-  const h = Number(m[2]);
-  const mi = m[3] === undefined ? 0 : Number(m[3]);
-  const s = m[4] === undefined ? 0 : Number(m[4]);
-  if (h > 23 || mi > 59 || s > 59) {
-    throw new KalendsRangeError(
-      `${name}: expected hours 00..23, minutes and seconds 00..59 in a UTC offset, got ${describeValue(text)}`,
-      { code: 'out-of-range', received: text },
-    );
-  }
-  const v = h * 3600 + mi * 60 + s;
-  return m[1] === '+' ? v : 0 - v;
+/** Whether an id is written as an offset (a sign first; U+2212 too, so that its message says what to write). */
+function looksLikeOffset(id: string): boolean {
+  const c = id.charCodeAt(0);
+  return c === 43 || c === 45 || c === 0x2212;
 }
 
 /**
- * A fixed-offset zone from an offset string (±HH, ±HH:MM, ±HHMM, ±HH:MM:SS) or a number of seconds east of UTC
- * (an integer within ±86,399). Its id is the offset written ±HH:MM[:SS].
+ * A fixed-offset zone from an offset string (±HH, ±HH:MM, ±HHMM, ±HH:MM:SS, the ISO 8601-1:2019 basic and
+ * extended forms, read by the instant layer; the sign is the ASCII "+" or "-", U+2212 is refused as in RFC 3339)
+ * or a number of seconds east of UTC (an integer within ±86,399). Its id is the offset written ±HH:MM[:SS].
  *
  * @example
  * ```ts
@@ -172,7 +141,7 @@ export function zoneFromOffset(offset: string | number): Zone {
       received: offset,
     });
   }
-  const id = formatOffsetSeconds(seconds === 0 ? 0 : seconds);
+  const id = formatOffsetUnchecked(seconds === 0 ? 0 : seconds);
   return makeZone({ id, canonicalId: id, source: 'fixed', tzRelease: undefined, fixedOffsetSeconds: seconds }, new FixedEngine(seconds));
 }
 
@@ -190,44 +159,44 @@ export function zoneFromOffset(offset: string | number): Zone {
  * ```
  */
 export function zoneFromRules(data: ZoneRulesData): Zone {
-  if (typeof data !== 'object' || data === null) {
+  if (!isRecord(data)) {
     throw new KalendsTypeError(`rules: expected a ZoneRulesData object, got ${describeValue(data)}`, { code: 'invalid-type', received: data });
   }
-  const issues: DefinitionIssue[] = [];
+  const issues = new Issues();
   const off = (path: string, v: unknown): void => {
     if (typeof v !== 'number' || !Number.isInteger(v) || Math.abs(v) > MAX_OFFSET_SECONDS) {
-      issues.push({ path, message: `expected an integer offset in seconds within ±${MAX_OFFSET_SECONDS}, got ${describeValue(v)}` });
+      issues.add(path, `expected an integer offset in seconds within ±${MAX_OFFSET_SECONDS}, got ${describeValue(v)}`);
     }
   };
-  if (typeof data.id !== 'string' || data.id === '') issues.push({ path: 'id', message: `expected a non-empty string, got ${describeValue(data.id)}` });
+  if (typeof data.id !== 'string' || data.id === '') issues.add('id', `expected a non-empty string, got ${describeValue(data.id)}`);
   off('initialOffsetSeconds', data.initialOffsetSeconds);
   const ts = data.transitionsSeconds;
   const os = data.offsetsSeconds;
   const isList = (v: unknown): v is ArrayLike<number> => typeof v === 'object' && v !== null && typeof (v as { length?: unknown }).length === 'number';
-  if (!isList(ts)) issues.push({ path: 'transitionsSeconds', message: `expected an array of numbers, got ${describeValue(ts)}` });
-  if (!isList(os)) issues.push({ path: 'offsetsSeconds', message: `expected an array of numbers, got ${describeValue(os)}` });
+  if (!isList(ts)) issues.add('transitionsSeconds', `expected an array of numbers, got ${describeValue(ts)}`);
+  if (!isList(os)) issues.add('offsetsSeconds', `expected an array of numbers, got ${describeValue(os)}`);
   if (isList(ts) && isList(os)) {
-    if (ts.length !== os.length) issues.push({ path: 'offsetsSeconds', message: `expected ${ts.length} offsets (one per transition), got ${os.length}` });
-    for (let i = 0; i < ts.length && issues.length < 20; i++) {
+    if (ts.length !== os.length) issues.add('offsetsSeconds', `expected ${ts.length} offsets (one per transition), got ${os.length}`);
+    for (let i = 0; i < ts.length && issues.count < 20; i++) {
       const t = ts[i];
-      if (typeof t !== 'number' || !Number.isInteger(t)) issues.push({ path: `transitionsSeconds[${i}]`, message: `expected an integer, got ${describeValue(t)}` });
-      else if (i > 0 && !(t > (ts[i - 1] as number))) issues.push({ path: `transitionsSeconds[${i}]`, message: `expected times in ascending order, got ${t} after ${ts[i - 1]}` });
+      if (typeof t !== 'number' || !Number.isInteger(t)) issues.add(`transitionsSeconds[${i}]`, `expected an integer, got ${describeValue(t)}`);
+      else if (i > 0 && !(t > (ts[i - 1] as number))) issues.add(`transitionsSeconds[${i}]`, `expected times in ascending order, got ${t} after ${ts[i - 1]}`);
       if (i < os.length) off(`offsetsSeconds[${i}]`, os[i]);
     }
   }
   let rule: PosixTz | undefined;
   if (data.tailRule !== undefined && data.tailRule !== '') {
-    if (typeof data.tailRule !== 'string') issues.push({ path: 'tailRule', message: `expected a POSIX TZ string, got ${describeValue(data.tailRule)}` });
+    if (typeof data.tailRule !== 'string') issues.add('tailRule', `expected a POSIX TZ string, got ${describeValue(data.tailRule)}`);
     else {
       try {
         rule = parsePosixTz(data.tailRule);
       } catch (e) {
-        issues.push({ path: 'tailRule', message: (e as Error).message });
+        issues.add('tailRule', (e as Error).message);
       }
     }
   }
-  if (data.tzRelease !== undefined && typeof data.tzRelease !== 'string') issues.push({ path: 'tzRelease', message: `expected a string, got ${describeValue(data.tzRelease)}` });
-  if (issues.length > 0) throw new DefinitionError(issues, data);
+  if (data.tzRelease !== undefined && typeof data.tzRelease !== 'string') issues.add('tzRelease', `expected a string, got ${describeValue(data.tzRelease)}`);
+  issues.throwIfAny(data);
   return rulesZone(data.id, 'rules', data.tzRelease, data.initialOffsetSeconds, ts, os, rule);
 }
 
@@ -267,19 +236,24 @@ function rulesZone(
  * offsetSecondsFromEpochMs(ny, Date.UTC(2025, 6, 1)); // -14400
  * ```
  */
-export function zoneFromTzif(bytes: Uint8Array, id = 'TZif', options: { readonly tzRelease?: string } = {}): Zone {
+export function zoneFromTzif(bytes: Uint8Array, id = 'TZif', options?: { readonly tzRelease?: string }): Zone {
+  if (typeof id !== 'string' || id === '') {
+    throw new KalendsTypeError(`id: expected a non-empty string naming the zone, got ${describeValue(id)}`, { code: 'invalid-type', received: id });
+  }
+  const o = readOptions('options', options, ['tzRelease']);
+  const tzRelease = optionOf(o, 'tzRelease');
+  if (tzRelease !== undefined && typeof tzRelease !== 'string') {
+    throw new KalendsTypeError(`options.tzRelease: expected a release name such as "2025b", got ${describeValue(tzRelease)}`, { code: 'invalid-type', received: tzRelease });
+  }
   const c = parseTzif(bytes);
   const n = c.transitionsSeconds.length;
   const offsets = new Int32Array(n);
   for (let i = 0; i < n; i++) offsets[i] = c.types[c.transitionTypes[i]!]!.offsetSeconds;
-  return rulesZone(id, 'tzif', options.tzRelease, c.types[0]!.offsetSeconds, c.transitionsSeconds, offsets, c.footerRule);
+  return rulesZone(id, 'tzif', tzRelease, c.types[0]!.offsetSeconds, c.transitionsSeconds, offsets, c.footerRule);
 }
 
 // ---------------------------------------------------------------------------------------------------------
 // Ids and the cache
-
-/** How many zones the string cache holds (least recently used ones are dropped first). */
-export const ZONE_CACHE_LIMIT = 64;
 
 const cache = new Map<string, Zone>();
 
@@ -334,7 +308,7 @@ function fromSource(id: string, source: ZoneRulesSource): Zone {
 
 function fromIntl(id: string): Zone {
   if (/^utc$/i.test(id)) return UTC_ZONE;
-  if (/^[+\-\u2212]/.test(id)) return zoneFromOffset(id);
+  if (looksLikeOffset(id)) return zoneFromOffset(id);
   const format = id === '' ? undefined : probeFormatter(id);
   if (!format) throw new UnknownZoneError('id', id, suggestZoneIds(id, runtimeZoneIds()));
   const canonicalId = format.resolvedOptions().timeZone ?? id;
@@ -364,14 +338,15 @@ function fromIntl(id: string): Zone {
  * zoneFromId('Europe/Londn');     // throws UnknownZoneError: ... did you mean "Europe/London"?
  * ```
  */
-export function zoneFromId(id: string, options: ZoneFromIdOptions = {}): Zone {
+export function zoneFromId(id: string, options?: ZoneFromIdOptions): Zone {
   if (typeof id !== 'string') {
     throw new KalendsTypeError(`id: expected a time zone id string, got ${describeValue(id)}`, { code: 'invalid-type', received: id });
   }
-  const source = options.source;
-  if (source) {
+  const source = optionOf(readOptions('options', options, ['source']), 'source');
+  if (source !== undefined) {
+    requireRulesSource(source);
     if (/^utc$/i.test(id)) return UTC_ZONE;
-    if (/^[+\-\u2212]/.test(id)) return zoneFromOffset(id);
+    if (looksLikeOffset(id)) return zoneFromOffset(id);
     return fromSource(id, source);
   }
   const hit = cacheGet(id);
@@ -379,6 +354,16 @@ export function zoneFromId(id: string, options: ZoneFromIdOptions = {}): Zone {
   const z = fromIntl(id);
   cachePut(id, z);
   return z;
+}
+
+function requireRulesSource(source: unknown): asserts source is ZoneRulesSource {
+  const s = source as Partial<ZoneRulesSource> | null;
+  if (typeof s !== 'object' || s === null || typeof s.rulesOf !== 'function' || !Array.isArray(s.ids) || typeof s.tzRelease !== 'string') {
+    throw new KalendsTypeError(`options.source: expected a zone rules source { tzRelease, ids, rulesOf } such as PINNED_TZDATA from 'kalends/tzdata', got ${describeValue(source)}`, {
+      code: 'invalid-type',
+      received: source,
+    });
+  }
 }
 
 /**

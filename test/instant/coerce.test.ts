@@ -40,10 +40,15 @@ describe('toEpochMs', () => {
     expect(() => toEpochMs(MIN_EPOCH_MS - 1)).toThrow(KalendsRangeError);
   });
 
-  it('rejects NaN, infinities and fractions with a range error quoting the value', () => {
+  it('rejects NaN and infinities with a range error quoting the value', () => {
     expect(() => toEpochMs(Number.NaN)).toThrow(/got NaN/);
     expect(() => toEpochMs(Infinity)).toThrow(/got Infinity/);
-    expect(() => toEpochMs(1.5)).toThrow(/got 1\.5; round it first/);
+  });
+
+  it('keeps a fraction of a millisecond (docs/design.md, "Input rules": the instant lies in millisecond floor(t))', () => {
+    expect(toEpochMs(1.5)).toBe(1.5);
+    expect(toEpochMs(-0.5)).toBe(-0.5);
+    expect(toEpochMs(1e12 + 0.25)).toBe(1e12 + 0.25);
   });
 
   it('reads a valid Date and rejects an invalid one', () => {

@@ -90,7 +90,7 @@ describe('cli: fiscal-layout', () => {
     expect(Object.keys(JSON.parse(json.out.split('\n')[0]!) as object)).toEqual(['period', 'first', 'last', 'days', 'weeks']);
     const year = await run(['fiscal-layout', '--unit', def, '--year', 'FY999999']);
     expect(year.code).toBe(2);
-    expect(year.err).toMatch(/^kalends fiscal-layout: --year: expected a fiscal year FYyyyy/);
+    expect(year.err).toMatch(/^kalends fiscal-layout: --year: "FY999999" is not a fiscal year FYyyyy/);
     const positional = await run(['fiscal-layout', def]);
     expect(positional.code).toBe(2);
     expect(positional.err).toContain('the definition goes in --unit');

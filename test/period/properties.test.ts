@@ -16,7 +16,7 @@ import {
   parsePeriod,
   periodFromOrdinal,
   lengthDaysOfPeriod,
-  periodYearEarlier,
+  shiftPeriodYears,
 } from '../../src/period/index.js';
 
 const SEED = 424242;
@@ -208,7 +208,7 @@ describe('period: properties', () => {
       fc.property(anyDef, fc.integer({ min: dayNumberFromYmd(1850, 1, 1), max: dayNumberFromYmd(2250, 1, 1) }), (def, dn) => {
         const u = defineUnit(def);
         const p = periodFromOrdinal(u, u.ordinalFromDayNumber(dn));
-        const back = periodYearEarlier(p);
+        const back = shiftPeriodYears(p, -1);
         const gap = u.firstDayNumberFromOrdinal(p.ordinal) - u.firstDayNumberFromOrdinal(back.ordinal);
         const kind = u.kind;
         if (kind === 'week' || kind === 'cycle') {

@@ -35,6 +35,9 @@ describe('kalends zone-resolve', () => {
     const rows = lines(r.out);
     expect(rows.map((x) => x.status)).toEqual(['gap', 'overlap', 'unique']);
     expect(rows.map((x) => x.instant)).toEqual(['2025-03-09T03:30:00-04:00', '2025-11-02T01:30:00-04:00', '2025-06-01T12:00:00-04:00']);
+    // Gaps and overlaps in one vocabulary: both name the offsets before and after the transition.
+    expect(rows.map((x) => [x.offsetBefore, x.offsetAfter])).toEqual([['-05:00', '-04:00'], ['-04:00', '-05:00'], [undefined, undefined]]);
+    expect([rows[1]!.epochMsBeforeTransition, rows[1]!.epochMsAfterTransition]).toEqual([Date.UTC(2025, 10, 2, 5, 30), Date.UTC(2025, 10, 2, 6, 30)]);
   });
   it('--disambiguation later and reject', async () => {
     const later = await run(['zone-resolve', '2025-11-02T01:30', '--zone', 'America/New_York', '--disambiguation', 'later', '--json']);

@@ -7,7 +7,6 @@ import {
   UTC_ZONE,
   UnknownZoneError,
   WallTimeRejectedError,
-  ZONE_CACHE_LIMIT,
   clearZoneCache,
   lengthMsOfDayNumber,
   dayNumberFromEpochMs,
@@ -23,6 +22,7 @@ import {
   zoneFromRules,
 } from '../../src/zone/index.js';
 import { zoneCacheSize } from '../../src/zone/zone.js';
+import { MAX_ZONED_DAY_NUMBER, ZONE_CACHE_LIMIT } from '../../src/bounds.js';
 import { DefinitionError, KalendsRangeError, KalendsSyntaxError, KalendsTypeError } from '../../src/errors.js';
 
 function thrown(f: () => unknown): Error & { code?: string } {
@@ -128,11 +128,13 @@ describe('bad instants, wall times and fields', () => {
     const overlap = thrown(() => epochMsFromWallMs('America/New_York', Date.UTC(2025, 10, 2, 1, 30), 'reject')) as WallTimeRejectedError;
     expect([overlap.code, overlap.kind]).toEqual(['repeated-time', 'overlap']);
     expect(overlap.message).toContain('happened twice');
-    expect(thrown(() => epochMsFromWallMs('UTC', 0, 'latest' as 'later')).message).toMatch(/^disambiguation: expected 'compatible', 'earlier', 'later' or 'reject', got "latest"/);
+    const latest = thrown(() => epochMsFromWallMs('UTC', 0, 'latest' as 'later'));
+    expect(latest.message).toMatch(/^disambiguation: expected one of "compatible", "earlier", "later", "reject", got "latest"; did you mean "later"\?/);
+    expect(latest.code).toBe('unknown-name');
   });
 
-  it('day numbers outside the instant range are rejected', () => {
-    expect(thrown(() => lengthMsOfDayNumber('UTC', 100_000_000)).code).toBe('out-of-range');
+  it('day numbers outside the zoned day range (bounds.ts) are rejected', () => {
+    expect(thrown(() => lengthMsOfDayNumber('UTC', MAX_ZONED_DAY_NUMBER)).code).toBe('out-of-range');
     expect(thrown(() => lengthMsOfDayNumber('UTC', 1.5)).code).toBe('out-of-range');
   });
 

@@ -11,8 +11,7 @@ import { CHUNK_MS, INTL_STEP_MS, IntlEngine } from '../../src/zone/engine.js';
 import { engineOf } from '../../src/zone/zone.js';
 import { seededRandom } from '../../bench/harness.js';
 import { FIXTURE_ZONES, SEED, fixtureZone } from './helpers.js';
-import { packedYmdUnchecked } from '../../src/civil/gregorian.js';
-import { MIN_YEAR } from '../../src/bounds.js';
+import { dayOfPacked, monthOfPacked, packedYmdUnchecked, yearOfPacked } from '../../src/civil/gregorian.js';
 
 const RUNTIME_TZ = process.versions.tz;
 
@@ -83,12 +82,12 @@ function tzifFormatter(z: Zone): Intl.DateTimeFormat {
       const wall = wallMsFromEpochMs(z, t);
       const dn = Math.floor(wall / 86_400_000);
       const p = packedYmdUnchecked(dn);
-      const year = Math.floor(p / 512) + MIN_YEAR;
+      const year = yearOfPacked(p);
       const ms = wall - dn * 86_400_000;
       const era = year <= 0 ? 'BC' : 'AD';
       const y = year <= 0 ? 1 - year : year;
       const two = (v: number) => String(v).padStart(2, '0');
-      return `${(p >> 5) & 15}/${p & 31}/${y} ${era}, ${two(Math.floor(ms / 3_600_000))}:${two(Math.floor(ms / 60_000) % 60)}:${two(Math.floor(ms / 1000) % 60)}`;
+      return `${monthOfPacked(p)}/${dayOfPacked(p)}/${y} ${era}, ${two(Math.floor(ms / 3_600_000))}:${two(Math.floor(ms / 60_000) % 60)}:${two(Math.floor(ms / 1000) % 60)}`;
     },
   } as unknown as Intl.DateTimeFormat;
 }

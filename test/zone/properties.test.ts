@@ -36,7 +36,7 @@ describe('round trip: instant -> local -> instant', () => {
         expect(wall - offsetSecondsFromEpochMs(z, t) * 1000).toBe(t);
         const r = resolveWallMs(z, wall);
         if (r.kind === 'unique') expect(r.epochMs).toBe(t);
-        else if (r.kind === 'overlap') expect([r.earlierEpochMs, r.laterEpochMs]).toContain(t);
+        else if (r.kind === 'overlap') expect([r.epochMsBeforeTransition, r.epochMsAfterTransition]).toContain(t);
         else throw new Error(`a wall time that happened cannot fall in a gap (${z.id} ${t})`);
         const back = [epochMsFromWallMs(z, wall, 'earlier'), epochMsFromWallMs(z, wall, 'later')];
         expect(back).toContain(t);
@@ -122,7 +122,7 @@ describe('bulk equals scalar', () => {
     const out = new Int32Array(3);
     expect(dayNumberFromEpochMsBulk('UTC', [0, 86_400_000, -1], out)).toBe(out);
     expect([...out]).toEqual([0, 1, -1]);
-    expect(() => dayNumberFromEpochMsBulk('UTC', [0, 1, 2, 3], out)).toThrow(/needs room for 4/);
+    expect(() => dayNumberFromEpochMsBulk('UTC', [0, 1, 2, 3], out)).toThrow(/^out: expected an? Int32Array of at least 4 elements, got 3/);
     expect(() => wallMsFromEpochMsBulk('Europe/Dublin', [0, 1], new Float64Array(1))).toThrow(KalendsRangeErrorForTest);
   });
 

@@ -18,8 +18,7 @@ import {
 } from '../../src/zone/index.js';
 import { seededRandom } from '../../bench/harness.js';
 import { ISSUE_ZONES, SEED } from './helpers.js';
-import { packedYmdUnchecked } from '../../src/civil/gregorian.js';
-import { MIN_YEAR } from '../../src/bounds.js';
+import { dayOfPacked, monthOfPacked, packedYmdUnchecked, yearOfPacked } from '../../src/civil/gregorian.js';
 
 const MODES: readonly Disambiguation[] = ['compatible', 'earlier', 'later', 'reject'];
 const ZONES = [...ISSUE_ZONES, 'America/Santiago', 'America/Havana', 'Asia/Beirut', 'Europe/Moscow', 'America/Los_Angeles'];
@@ -29,9 +28,9 @@ function fieldsOfWall(wall: number) {
   const p = packedYmdUnchecked(dn);
   const ms = wall - dn * 86_400_000;
   return {
-    year: Math.floor(p / 512) + MIN_YEAR,
-    month: (p >> 5) & 15,
-    day: p & 31,
+    year: yearOfPacked(p),
+    month: monthOfPacked(p),
+    day: dayOfPacked(p),
     hour: Math.floor(ms / 3_600_000),
     minute: Math.floor(ms / 60_000) % 60,
     second: Math.floor(ms / 1000) % 60,

@@ -20,7 +20,7 @@ import {
   parsePeriod,
   parsePlainDate,
   parsePlainDateTime,
-  periodContaining,
+  periodFromPeriod,
   firstDayNumberAfterPeriod,
   firstEpochMsAfterPeriod,
   firstDayNumberOfPeriod,
@@ -240,7 +240,7 @@ Columns: period (the label), quarter, first and last (both days included), days,
       const days = firstDayNumberAfterPeriod(p) - first;
       await writer.write({
         period: formatPeriod(p),
-        ...(level === 'quarter' ? {} : { quarter: formatPeriod(periodContaining(p, quarter)) }),
+        ...(level === 'quarter' ? {} : { quarter: formatPeriod(periodFromPeriod(quarter, p)) }),
         first: formatPlainDate(first),
         last: formatPlainDate(lastDayNumberOfPeriod(p)),
         days,

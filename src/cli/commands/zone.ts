@@ -132,14 +132,14 @@ the exit code is 1.`,
         const r = resolveWallMs(zone, wallMs);
         let note = '';
         if (r.kind === 'gap') {
-          note = `skipped: the clocks went from ${formatPlainDateTime(r.gapStartWallMs)} to ${formatPlainDateTime(r.gapEndWallMs)} (${formatOffset(r.offsetBeforeSeconds)} -> ${formatOffset(r.offsetAfterSeconds)})`;
+          note = `skipped: the clocks went from ${formatPlainDateTime(r.startWallMs)} to ${formatPlainDateTime(r.endWallMs)} (${formatOffset(r.offsetBeforeSeconds)} -> ${formatOffset(r.offsetAfterSeconds)})`;
         }
-        if (r.kind === 'overlap') note = `twice: ${formatInstant(r.earlierEpochMs)} and ${formatInstant(r.laterEpochMs)}`;
+        if (r.kind === 'overlap') note = `twice: ${formatInstant(r.epochMsBeforeTransition)} and ${formatInstant(r.epochMsAfterTransition)}`;
         const rejected = how === 'reject' && r.kind !== 'unique';
         if (rejected) {
           note =
             r.kind === 'gap'
-              ? `${local} does not exist in ${zone.id}: the clocks went from ${formatPlainDateTime(r.gapStartWallMs)} to ${formatPlainDateTime(r.gapEndWallMs)}; --disambiguation compatible, earlier or later picks an instant`
+              ? `${local} does not exist in ${zone.id}: the clocks went from ${formatPlainDateTime(r.startWallMs)} to ${formatPlainDateTime(r.endWallMs)}; --disambiguation compatible, earlier or later picks an instant`
               : `${local} happened twice in ${zone.id}; --disambiguation earlier, later or compatible picks one of the two instants`;
         }
         const epochMs = rejected ? null : epochMsFromWallMs(zone, wallMs, how);
@@ -152,8 +152,8 @@ the exit code is 1.`,
           epochMs,
           offset: off === null ? null : formatOffset(off),
           note,
-          ...(r.kind === 'gap' ? { offsetBefore: formatOffset(r.offsetBeforeSeconds), offsetAfter: formatOffset(r.offsetAfterSeconds) } : {}),
-          ...(r.kind === 'overlap' ? { earlierEpochMs: r.earlierEpochMs, laterEpochMs: r.laterEpochMs } : {}),
+          ...(r.kind !== 'unique' ? { offsetBefore: formatOffset(r.offsetBeforeSeconds), offsetAfter: formatOffset(r.offsetAfterSeconds) } : {}),
+          ...(r.kind === 'overlap' ? { epochMsBeforeTransition: r.epochMsBeforeTransition, epochMsAfterTransition: r.epochMsAfterTransition } : {}),
         });
         return !rejected;
       },

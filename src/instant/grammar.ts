@@ -1,0 +1,405 @@
+/**
+ * @internal The RFC 3339 / RFC 9557 date-time grammar (Internet Extended Date/Time Format): the reader of every
+ * field of a date-time string (date, time, offset, bracketed zone and suffix annotations) that the parsers in
+ * text.ts and the formatter's self-check in format.ts share. The grammar accepted, and every place it goes beyond
+ * RFC 3339 section 5.6, is listed in docs/instants.md.
+ *
+ * @module
+ */
+import { MS_PER_DAY } from '../bounds.js';
+import { KalendsTypeError, describeValue } from '../errors.js';
+import { dayCountOfMonthUnchecked, dayNumberFromYmdUnchecked, packedYmdUnchecked, yearOfPacked, monthOfPacked, dayOfPacked } from '../civil/gregorian.js';
+import { Scanner, readCalendarDate } from './scan.js';
+
+/** One RFC 9557 suffix tag such as `[u-ca=iso8601]` or `[!x-order=42]`. */
+export interface SuffixTag {
+  /** The key, lower-case (RFC 9557 section 3.1). */
+  readonly key: string;
+  /** The value: one or more alphanumeric parts joined by `-`. */
+  readonly value: string;
+  /** True when the tag was marked critical with `!` (RFC 9557 section 3.3). */
+  readonly critical: boolean;
+}
+
+/** What to do with a leap second (`:60`). */
+export type LeapSecondHandling = 'constrain' | 'reject';
+
+/** Options shared by the date-time parsers. */
+export interface ParseDateTimeOptions {
+  /**
+   * `'constrain'` (default) reads second 60 as second 59 of the same minute, keeping the fraction, as Temporal
+   * does, and sets `leapSecond`; `'reject'` throws. In text with an offset, `:60` is accepted only where a UTC
+   * leap second can occur: 23:59:60 UTC on the last day of a month (RFC 3339 section 5.7).
+   */
+  readonly leapSecond?: LeapSecondHandling;
+  /**
+   * Suffix keys the caller processes itself. A critical tag (`[!key=value]`) or an experimental tag (key starting
+   * with `_`) whose key is not listed here is rejected, as RFC 9557 sections 3.2 and 3.3 require of a recipient
+   * that does not act on it. `[!u-ca=iso8601]` is always understood: it is kalends's own calendar.
+   */
+  readonly understoodKeys?: readonly string[];
+}
+
+/**
+ * Every piece of an RFC 9557 date-time string. `offsetSeconds` is undefined when the text has no offset (a local
+ * date-time). Returned by {@link parseExtendedDateTime}; {@link parseInstant} and {@link parsePlainDateTime} are
+ * stricter faces over it.
+ */
+export interface ExtendedDateTime {
+  /** Local date of the written fields. */
+  readonly dayNumber: number;
+  /** Local wall-clock time of the written fields, in ms since 1970-01-01T00:00 (sub-ms digits floored). */
+  readonly wallMs: number;
+  /** Nanoseconds below the millisecond that were written and dropped (0..999,999). */
+  readonly submillisecondNs: number;
+  /** Whether the text had a time part (false for a bare date). */
+  readonly hasTime: boolean;
+  /** True when the text said `:60` and the value was read as `:59` (see {@link ParseDateTimeOptions.leapSecond}). */
+  readonly leapSecond: boolean;
+  /** The UTC offset written, in seconds east of UTC; undefined when there was none. `Z` and `-00:00` give 0. */
+  readonly offsetSeconds: number | undefined;
+  /** True for `Z`, `z` and `-00:00`: UTC is known but the local offset is not (RFC 9557 section 2). */
+  readonly localOffsetUnknown: boolean;
+  /** The bracketed zone annotation, unresolved (an IANA name or `±HH:MM`); undefined when there was none. */
+  readonly zoneId: string | undefined;
+  /** Whether the zone annotation was marked critical (`[!Europe/Paris]`). */
+  readonly zoneCritical: boolean;
+  /** Suffix tags in the order written (RFC 9557 section 3.3: for a repeated elective key, the first one counts). */
+  readonly annotations: readonly SuffixTag[];
+}
+
+/** An instant read from text: {@link parseInstant}'s result. */
+export interface ParsedInstant extends ExtendedDateTime {
+  /** The instant, in epoch milliseconds (sub-millisecond digits floored: truncated toward the past). */
+  readonly epochMs: number;
+  readonly offsetSeconds: number;
+}
+
+/** @internal */
+export const MS_PER_HOUR = 3_600_000;
+/** @internal */
+export const MS_PER_MINUTE = 60_000;
+/** @internal */
+export const INSTANT_GRAMMAR = 'an RFC 3339 / RFC 9557 date-time with an offset';
+/** @internal */
+export const DATE_TIME_GRAMMAR = 'an RFC 9557 date-time';
+
+/** @internal */
+export interface Fields {
+  year: number;
+  month: number;
+  day: number;
+  dayNumber: number;
+  hasTime: boolean;
+  msOfDay: number;
+  ns: number;
+  second: number;
+  secondPos: number;
+  offsetSeconds: number | undefined;
+  localOffsetUnknown: boolean;
+  /** Position of a `Z`/`z` offset, or -1. */
+  zuluPos: number;
+  zoneId: string | undefined;
+  zoneCritical: boolean;
+  annotations: SuffixTag[];
+}
+
+/** @internal */
+export function requireString(fn: string, text: unknown, what: string): string {
+  if (typeof text !== 'string') {
+    throw new KalendsTypeError(`${fn}: expected ${what} as a string, got ${describeValue(text)}`, {
+      code: 'invalid-type',
+      received: text,
+    });
+  }
+  return text;
+}
+
+/** @internal */
+export function readFields(sc: Scanner, understood: readonly string[]): Fields {
+  const { year, month, day } = readCalendarDate(sc);
+  const f: Fields = {
+    year,
+    month,
+    day,
+    dayNumber: dayNumberFromYmdUnchecked(year, month, day),
+    hasTime: false,
+    msOfDay: 0,
+    ns: 0,
+    second: 0,
+    secondPos: -1,
+    offsetSeconds: undefined,
+    localOffsetUnknown: false,
+    zuluPos: -1,
+    zoneId: undefined,
+    zoneCritical: false,
+    annotations: [],
+  };
+  const sep = sc.peek();
+  if (sep === 84 /* T */ || sep === 116 /* t */ || sep === 32 /* space */) {
+    sc.pos++;
+    readTime(sc, f);
+    readOffset(sc, f);
+  } else if (!sc.done && sep !== 91 /* [ */) {
+    sc.fail(`expected "T" (or "t" or a space) between the date and the time, found ${sc.here()}`);
+  }
+  readAnnotations(sc, f, understood);
+  if (!sc.done) sc.fail(`unexpected ${sc.here()} after the end of the date-time`);
+  return f;
+}
+
+function readTime(sc: Scanner, f: Fields): void {
+  const hourPos = sc.pos;
+  const hour = sc.digits(2, 'the hour');
+  if (hour === 24) {
+    sc.fail('hour 24 is not accepted (RFC 3339 section 5.6 allows 00 to 23); write 00:00 of the next day instead', hourPos, 'out-of-range');
+  }
+  if (hour > 23) sc.fail(`hour ${sc.text.slice(hourPos, hourPos + 2)} is out of range; expected 00 to 23`, hourPos, 'out-of-range');
+  if (sc.peek() !== 58) {
+    sc.fail(sc.countDigits() > 0 ? 'the time needs ":" between hour and minute (extended format)' : `expected ":" and the minute after the hour, found ${sc.here()}`);
+  }
+  sc.pos++;
+  const minute = sc.field2('minute', 0, 59);
+  let second = 0;
+  let ns = 0;
+  if (sc.peek() === 58) {
+    sc.pos++;
+    f.secondPos = sc.pos;
+    second = sc.field2('second', 0, 60);
+    ns = sc.fractionNs('the second');
+    if (ns < 0) ns = 0;
+  } else if (sc.countDigits() > 0) {
+    sc.fail('the time needs ":" between minute and second (extended format)');
+  } else if (sc.peek() === 46 || sc.peek() === 44) {
+    sc.fail('a fraction is accepted only on the second; write HH:MM:SS.fff');
+  }
+  f.hasTime = true;
+  f.second = second;
+  f.ns = ns;
+  f.msOfDay = hour * MS_PER_HOUR + minute * MS_PER_MINUTE + Math.min(second, 59) * 1000 + Math.floor(ns / 1e6);
+}
+
+function readOffset(sc: Scanner, f: Fields): void {
+  const c = sc.peek();
+  if (c === 90 /* Z */ || c === 122 /* z */) {
+    f.zuluPos = sc.pos;
+    sc.pos++;
+    f.offsetSeconds = 0;
+    f.localOffsetUnknown = true;
+    return;
+  }
+  if (c === 0x2212) failMinusSign(sc);
+  if (c !== 43 && c !== 45) return;
+  const seconds = readNumericOffset(sc, true);
+  f.offsetSeconds = seconds;
+  f.localOffsetUnknown = seconds === 0 && c === 45; // -00:00, RFC 3339 section 4.3 / RFC 9557 section 2
+}
+
+/**
+ * U+2212 MINUS SIGN is refused as the sign of an offset, in an offset and in a zone annotation alike: RFC 3339
+ * section 5.6 (`time-numoffset = ("+" / "-") ...`) and RFC 9557 section 4.1, which reuses it, allow only the ASCII
+ * "+" and "-" (U+002D), and both Temporal polyfills (temporal-polyfill, @js-temporal/polyfill) refuse it.
+ * ISO 8601-1:2019 writes the minus sign as U+2212 (from memory), but kalends reads the RFC grammar.
+ */
+export function failMinusSign(sc: Scanner): never {
+  return sc.fail('U+2212 (the minus sign) is not accepted as the sign of an offset; RFC 3339 section 5.6 and RFC 9557 section 4.1 allow only "+" and "-": write the ASCII hyphen-minus (-05:00) instead');
+}
+
+/** @internal Reads `±HH:MM` or, when `allowSeconds`, `±HH:MM:SS`. Returns seconds east of UTC. */
+function readNumericOffset(sc: Scanner, allowSeconds: boolean): number {
+  const start = sc.pos;
+  const sign = sc.peek() === 45 ? -1 : 1;
+  sc.pos++;
+  const n = sc.countDigits();
+  if (n !== 2) {
+    sc.fail(
+      n === 4
+        ? 'the offset needs a colon: write ±HH:MM (e.g. +01:00)'
+        : `the offset must be written ±HH:MM (e.g. -05:00), found ${n === 0 ? sc.here() : `${n} digits`}`,
+      start,
+    );
+  }
+  const hours = sc.field2('offset hour', 0, 23);
+  if (sc.peek() !== 58) sc.fail('the offset needs minutes: write ±HH:MM (e.g. +01:00)', sc.pos);
+  sc.pos++;
+  const minutes = sc.field2('offset minute', 0, 59);
+  let seconds = 0;
+  if (sc.peek() === 58) {
+    if (!allowSeconds) sc.fail('an offset in a zone annotation is ±HH:MM, without seconds (RFC 9557 section 4.1)');
+    sc.pos++;
+    seconds = sc.field2('offset second', 0, 59);
+    if (sc.peek() === 46 || sc.peek() === 44) sc.fail('fractional seconds are not accepted in an offset');
+  }
+  return sign * (hours * 3600 + minutes * 60 + seconds);
+}
+
+function isAlpha(c: number): boolean {
+  return (c >= 65 && c <= 90) || (c >= 97 && c <= 122);
+}
+function isDigit(c: number): boolean {
+  return c >= 48 && c <= 57;
+}
+
+/** @internal */
+export function readAnnotations(sc: Scanner, f: Fields, understood: readonly string[]): void {
+  let sawTag = false;
+  let seenKeys: Map<string, { value: string; differ: boolean; critical: boolean }> | undefined;
+  while (sc.peek() === 91 /* [ */) {
+    const open = sc.pos;
+    const close = sc.text.indexOf(']', open);
+    if (close < 0) sc.fail('an annotation opened with "[" is never closed with "]"', open);
+    sc.pos++;
+    let critical = false;
+    if (sc.peek() === 33 /* ! */) {
+      critical = true;
+      sc.pos++;
+    }
+    const bodyStart = sc.pos;
+    const body = sc.text.slice(bodyStart, close);
+    const eq = body.indexOf('=');
+    if (eq < 0) {
+      // time-zone annotation
+      if (f.zoneId !== undefined) sc.fail('a second zone annotation; at most one is allowed', open);
+      if (sawTag) sc.fail('the zone annotation must come before the other annotations (RFC 9557 section 4.1)', open);
+      if (body.length === 0) sc.fail('an empty annotation "[]"', open);
+      const c0 = body.charCodeAt(0);
+      if (c0 === 0x2212) failMinusSign(sc);
+      if (c0 === 43 || c0 === 45) {
+        readNumericOffset(sc, false);
+        if (sc.pos !== close) sc.fail(`unexpected ${sc.here()} in the offset zone annotation`);
+      } else {
+        validateZoneName(sc, body, bodyStart);
+      }
+      f.zoneId = body;
+      f.zoneCritical = critical;
+    } else {
+      const key = body.slice(0, eq);
+      const value = body.slice(eq + 1);
+      validateKey(sc, key, bodyStart);
+      validateValue(sc, value, bodyStart + eq + 1);
+      const builtIn = key === 'u-ca' && value === 'iso8601';
+      if (critical && !builtIn && !understood.includes(key)) {
+        sc.fail(
+          `the critical annotation [!${key}=${value}] is not understood; a recipient must reject it (RFC 9557 section 3.3). Pass understoodKeys: [${JSON.stringify(key)}] if your code processes it`,
+          open,
+          'unsupported',
+        );
+      }
+      if (key.charCodeAt(0) === 95 && !understood.includes(key)) {
+        sc.fail(
+          `the experimental key ${key} is rejected unless configured (RFC 9557 section 3.2); pass understoodKeys: [${JSON.stringify(key)}] to accept it`,
+          bodyStart,
+          'unsupported',
+        );
+      }
+      seenKeys ??= new Map();
+      const seen = seenKeys.get(key);
+      if (seen === undefined) seenKeys.set(key, { value, differ: false, critical });
+      else {
+        const differ = seen.differ || seen.value !== value;
+        if (differ && (seen.critical || critical)) {
+          sc.fail(`the key ${key} is given twice with different values and one is critical (RFC 9557 section 3.3)`, open);
+        }
+        seen.differ = differ;
+        seen.critical ||= critical;
+      }
+      f.annotations.push(Object.freeze({ key, value, critical }));
+      sawTag = true;
+    }
+    sc.pos = close + 1;
+  }
+}
+
+function validateZoneName(sc: Scanner, body: string, at: number): void {
+  let partStart = 0;
+  for (let i = 0; i <= body.length; i++) {
+    const c = i < body.length ? body.charCodeAt(i) : 47;
+    if (c === 47 /* / */) {
+      const part = body.slice(partStart, i);
+      if (part.length === 0) sc.fail('a zone name part is empty', at + i);
+      if (part === '.' || part === '..') sc.fail(`"${part}" is not a valid zone name part`, at + partStart);
+      partStart = i + 1;
+      continue;
+    }
+    const initial = i === partStart;
+    const ok = isAlpha(c) || c === 46 || c === 95 || (!initial && (isDigit(c) || c === 45 || c === 43));
+    if (!ok) {
+      sc.fail(
+        `${JSON.stringify(body[i])} is not allowed ${initial ? 'at the start of' : 'in'} a zone name (RFC 9557 section 4.1: letters, ".", "_", then digits, "-", "+")`,
+        at + i,
+      );
+    }
+  }
+}
+
+function validateKey(sc: Scanner, key: string, at: number): void {
+  if (key.length === 0) sc.fail('an annotation key is empty', at);
+  for (let i = 0; i < key.length; i++) {
+    const c = key.charCodeAt(i);
+    const lower = (c >= 97 && c <= 122) || c === 95;
+    const ok = i === 0 ? lower : lower || isDigit(c) || c === 45;
+    if (!ok) {
+      sc.fail(
+        c >= 65 && c <= 90
+          ? `annotation keys are lower-case only (RFC 9557 section 3.1), found ${JSON.stringify(key)}`
+          : `${JSON.stringify(key[i])} is not allowed in an annotation key (RFC 9557 section 4.1)`,
+        at + i,
+      );
+    }
+  }
+}
+
+function validateValue(sc: Scanner, value: string, at: number): void {
+  let run = 0;
+  for (let i = 0; i <= value.length; i++) {
+    const c = i < value.length ? value.charCodeAt(i) : 45;
+    if (c === 45) {
+      if (run === 0) sc.fail('an annotation value part is empty (values are alphanumeric parts joined by "-")', at + i);
+      run = 0;
+    } else if (isAlpha(c) || isDigit(c)) run++;
+    else sc.fail(`${JSON.stringify(value[i])} is not allowed in an annotation value (RFC 9557 section 4.1)`, at + i);
+  }
+}
+
+/** @internal */
+export function checkLeapSecond(sc: Scanner, f: Fields, leapSecond: LeapSecondHandling): boolean {
+  if (f.second !== 60) return false;
+  if (leapSecond === 'reject') {
+    sc.fail('second 60 (a leap second) is rejected by the option leapSecond: "reject"', f.secondPos, 'out-of-range');
+  }
+  if (f.offsetSeconds !== undefined) {
+    // The minute must be 23:59 UTC on the last day of a month (RFC 3339 section 5.7).
+    const utcMinuteMs = f.dayNumber * MS_PER_DAY + f.msOfDay - (f.msOfDay % MS_PER_MINUTE) - f.offsetSeconds * 1000;
+    const utcDay = Math.floor(utcMinuteMs / MS_PER_DAY);
+    const utcMinuteOfDay = (utcMinuteMs - utcDay * MS_PER_DAY) / MS_PER_MINUTE;
+    const p = packedYmdUnchecked(utcDay);
+    if (utcMinuteOfDay !== 23 * 60 + 59 || dayOfPacked(p) !== dayCountOfMonthUnchecked(yearOfPacked(p), monthOfPacked(p))) {
+      sc.fail(
+        'second 60 is a leap second, which occurs only at 23:59:60 UTC on the last day of a month (RFC 3339 section 5.7)',
+        f.secondPos,
+        'out-of-range',
+      );
+    }
+  }
+  return true;
+}
+
+/** @internal */
+export const NO_ANNOTATIONS: readonly SuffixTag[] = Object.freeze([]);
+
+/** @internal Builds the frozen result in one object literal (one shape for every result, no spreading). */
+export function makeResult(f: Fields, leapSecond: boolean, epochMs: number): ParsedInstant {
+  return Object.freeze({
+    dayNumber: f.dayNumber,
+    wallMs: f.dayNumber * MS_PER_DAY + f.msOfDay,
+    submillisecondNs: f.ns % 1e6,
+    hasTime: f.hasTime,
+    leapSecond,
+    offsetSeconds: f.offsetSeconds as number,
+    localOffsetUnknown: f.localOffsetUnknown,
+    zoneId: f.zoneId,
+    zoneCritical: f.zoneCritical,
+    annotations: f.annotations.length === 0 ? NO_ANNOTATIONS : Object.freeze(f.annotations),
+    epochMs,
+  });
+}
