@@ -18,7 +18,7 @@ function businessMonthEnds(): Benchmark {
   const calendar = defineCalendar({
     id: 'bench-present-us-federal-rules',
     years: { from: 1899, until: 2101 },
-    observance: { saturday: 'previous-weekday', sunday: 'next-weekday' },
+    observance: { saturday: 'previous-non-weekend-day', sunday: 'next-non-weekend-day' },
     holidays: [
       { id: 'new-year', name: "New Year's Day", kind: 'fixed', month: 1, day: 1 },
       { id: 'king', name: 'Birthday of Martin Luther King, Jr.', kind: 'nth-weekday', month: 1, weekday: 'monday', nth: 3 },

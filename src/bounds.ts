@@ -24,3 +24,22 @@ export const MAX_EPOCH_MS = 8.64e15;
 export const MS_PER_DAY = 86_400_000;
 /** Largest absolute UTC offset accepted, in seconds (exclusive of 24 hours, as in RFC 9557 and Temporal). */
 export const MAX_OFFSET_SECONDS = 86_399;
+
+// Business and recurrence limits (docs/design.md, "Limits").
+
+/** Most holidays one `listHolidays` call returns; longer ranges are listed a page (a narrower range) at a time. */
+export const MAX_LISTED_HOLIDAYS = 100_000;
+/** Longest search, in days, for a bank-holiday substitute day before a calendar gives up with an error. */
+export const MAX_SUBSTITUTE_SEARCH = 60;
+/** Consecutive years without a business day after which a search gives up with a 'no-business-day' error. */
+export const MAX_EMPTY_YEARS = 100;
+/** Most years of business-day bits a calendar keeps compiled at once (about 100 bytes a year). */
+export const MAX_WINDOW_YEARS = 4096;
+/**
+ * Most years a single business-day count or shift evaluates one by one, for calendars whose years do not repeat
+ * every 400 years (a Julian Easter rule, an Easter substitute day); beyond it the call throws 'limit-exceeded'.
+ * Calendars that repeat count any span of years at the cost of one 400-year cycle.
+ */
+export const MAX_EVALUATED_YEARS = 50_000;
+/** Largest total offset, in days, of an Easter or relative holiday rule from its base date. */
+export const MAX_RULE_OFFSET = 300;

@@ -3,10 +3,13 @@
  * per year, plus a running count of business days before each word. A contiguous window of compiled years is
  * kept (compiled lazily, bounded to MAX_WINDOW_YEARS); inside it, the business days before any day are one
  * lookup and one popcount, and the kth business day is a binary search over the running counts, so counting and
- * shifting never walk day by day. Spans longer than the window are handled in window-sized chunks.
+ * shifting never walk day by day. Spans longer than the window are counted year by year, and where the
+ * calendar's years repeat every 400 years (./periodic.ts) by whole 400-year cycles, so that a count or a shift
+ * over the whole supported range costs one cycle's compilation.
  *
  * @module
  */
+import { MAX_EMPTY_YEARS, MAX_EVALUATED_YEARS, MAX_WINDOW_YEARS } from '../bounds.js';
 import {
   dayNumberFromYmdUnchecked,
   isLeapYearUnchecked,
@@ -14,18 +17,27 @@ import {
   yearOfDayNumberUnchecked,
 } from '../civil/gregorian.js';
 import { KalendsRangeError } from '../errors.js';
-import { isoDateFromDayNumber } from './dates.js';
+import { formatPlainDate } from '../instant/index.js';
+import { type Periodicity, periodicityOf } from './periodic.js';
 import { holidaysOfYear } from './rules.js';
 import type { CalendarNode } from './validate.js';
 
 /** Words of 32 days per compiled year (384 bits cover 366 days). */
 const WORDS = 12;
-/** Most years a calendar keeps compiled at once (about 100 bytes a year). */
-export const MAX_WINDOW_YEARS = 4096;
 /** Extra years compiled on each side when the window grows, so that nearby queries do not grow it again. */
 const MARGIN_YEARS = 8;
-/** Consecutive years without a business day after which a search gives up with a 'no-business-day' error. */
-export const MAX_EMPTY_YEARS = 100;
+/** Shifts of more business days than this skip whole years instead of growing the compiled window. */
+const LONG_SHIFT = 100_000;
+/** Years in one Gregorian cycle. */
+const CYCLE_YEARS = 400;
+
+/** Business days in one 400-year stretch of generic years, from its first year. */
+interface CycleTable {
+  /** counts[i]: business days of year first + i. */
+  readonly counts: Int32Array;
+  /** Business days of the whole cycle. */
+  readonly total: number;
+}
 
 /** Number of set bits in a 32-bit word. */
 export function popcount32(x: number): number {
@@ -50,6 +62,12 @@ export class Engine {
   /** First supported day, and the day after the last one. */
   readonly firstDay: number;
   readonly endDay: number;
+  /** Weekend mask, and the number of days of the week outside the weekend. */
+  private readonly weekdaysPerWeek: number;
+  private periodicity: Periodicity | undefined;
+  /** Cycle tables by the first year of their stretch of generic years. */
+  private readonly tables = new Map<number, CycleTable>();
+  private readonly scratch = new Uint32Array(WORDS);
 
   constructor(
     readonly node: CalendarNode,
@@ -59,6 +77,9 @@ export class Engine {
   ) {
     this.firstDay = dayNumberFromYmdUnchecked(firstYear, 1, 1);
     this.endDay = dayNumberFromYmdUnchecked(lastYear + 1, 1, 1);
+    let w = 0;
+    for (let wd = 1; wd <= 7; wd++) if ((node.weekendMask & (1 << wd)) === 0) w++;
+    this.weekdaysPerWeek = w;
   }
 
   /** Compiles one year's bits into `words` at `offset`. */
@@ -174,6 +195,16 @@ export class Engine {
    * before, n = 0 gives dn if it is a business day, else the next one.
    */
   shift(dn: number, n: number): number {
+    // A shift that must leave the supported years fails at once: there are at most as many business days as
+    // days outside the weekend.
+    if (n > 0 && n > this.nonWeekendDays(dn + 1, this.endDay)) throw this.pastEnd(dn, n, 'last', this.lastYear);
+    if (n < 0 && -n > this.nonWeekendDays(this.firstDay, dn)) throw this.pastEnd(dn, n, 'first', this.firstYear);
+    if (n > LONG_SHIFT || n < -LONG_SHIFT) return this.shiftFar(dn, n);
+    return this.shiftNear(dn, n);
+  }
+
+  /** {@link shift} by growing the compiled window as far as the count needs. */
+  private shiftNear(dn: number, n: number): number {
     const y = yearOfDayNumberUnchecked(dn);
     this.ensure(y, y);
     if (n > 0 || (n === 0 && !this.bit(dn))) {
@@ -344,25 +375,208 @@ export class Engine {
       this.ensure(ya, yb);
       return this.rank(b) - this.rank(a);
     }
+    // The partial years at both ends through the window, the whole years between by years (or cycles).
+    const head = this.countInYear(a, dayNumberFromYmdUnchecked(ya + 1, 1, 1));
+    const middle = this.countYears(ya + 1, yb - 1, a, b);
+    return head + middle + this.countInYear(dayNumberFromYmdUnchecked(yb, 1, 1), b);
+  }
+
+  /** Business days in [a, b) where both lie in one year (b may be 1 January of the next). */
+  private countInYear(a: number, b: number): number {
+    if (a >= b) return 0;
+    const y = yearOfDayNumberUnchecked(a);
+    this.ensure(y, y);
+    return this.rank(b) - this.rank(a);
+  }
+
+  /** Days outside the weekend in [a, b): an upper bound on the business days there, by arithmetic. */
+  private nonWeekendDays(a: number, b: number): number {
+    if (a >= b) return 0;
+    const weeks = Math.floor((b - a) / 7);
+    let count = weeks * this.weekdaysPerWeek;
+    const mask = this.node.weekendMask;
+    let wd = weekdayOfDayNumberUnchecked(a);
+    for (let d = a + weeks * 7; d < b; d++) {
+      if ((mask & (1 << wd)) === 0) count++;
+      wd = wd === 7 ? 1 : wd + 1;
+    }
+    return count;
+  }
+
+  /**
+   * The stretch [first, last] of generic years holding `y` (./periodic.ts) when the calendar repeats every 400
+   * years and the stretch holds at least two cycles; otherwise undefined.
+   */
+  private stretchOf(y: number): readonly [number, number] | undefined {
+    const p = (this.periodicity ??= periodicityOf(this.node));
+    if (!p.periodic) return undefined;
+    const b = p.breaks;
+    const r = p.margin;
+    // The last break at or before y + r, and the first one after it.
+    let lo = 0;
+    let hi = b.length;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if (b[mid]! <= y + r) lo = mid + 1;
+      else hi = mid;
+    }
+    const prev = b[lo - 1]!;
+    const next = b[lo]!;
+    if (prev > y - r) return undefined;
+    const first = prev + r;
+    const last = next - r - 1;
+    return last - first + 1 >= 2 * CYCLE_YEARS ? [first, last] : undefined;
+  }
+
+  /** Business days of each year of the cycle that starts at `first` (the first year of a stretch). */
+  private cycleTable(first: number): CycleTable {
+    let t = this.tables.get(first);
+    if (!t) {
+      const counts = new Int32Array(CYCLE_YEARS);
+      let total = 0;
+      for (let i = 0; i < CYCLE_YEARS; i++) {
+        const c = this.yearCount(first + i);
+        counts[i] = c;
+        total += c;
+      }
+      t = { counts, total };
+      if (this.tables.size >= 16) this.tables.clear();
+      this.tables.set(first, t);
+    }
+    return t;
+  }
+
+  /** Business days of year y: from the window when it holds y, else compiled on its own. */
+  private yearCount(y: number): number {
+    if (this.count > 0 && y >= this.lo && y < this.lo + this.count) {
+      const w = (y - this.lo) * WORDS;
+      return this.cum[w + WORDS]! - this.cum[w]!;
+    }
+    const words = this.scratch;
+    this.compileYear(y, words, 0);
+    let c = 0;
+    for (let k = 0; k < WORDS; k++) c += popcount32(words[k]!);
+    return c;
+  }
+
+  /** Business days of year y, and whether it came from a cycle table; counts the years evaluated one by one. */
+  private yearCountCounted(y: number, budget: { evaluated: number }, a: number, b: number): number {
+    const s = this.stretchOf(y);
+    if (s) return this.cycleTable(s[0]).counts[(y - s[0]) % CYCLE_YEARS]!;
+    if (++budget.evaluated > MAX_EVALUATED_YEARS) throw this.tooManyYears(a, b);
+    return this.yearCount(y);
+  }
+
+  /** Business days in the whole years [y0, y1] (none when y1 < y0), by whole cycles where the years repeat. */
+  private countYears(y0: number, y1: number, a: number, b: number): number {
     let sum = 0;
-    for (let chunk = ya; chunk <= yb; chunk += MAX_WINDOW_YEARS) {
-      const chunkHi = Math.min(yb, chunk + MAX_WINDOW_YEARS - 1);
-      this.setWindow(chunk, chunkHi);
-      sum += (chunkHi === yb ? this.rank(b) : this.total) - (chunk === ya ? this.rank(a) : 0);
+    const budget = { evaluated: 0 };
+    let y = y0;
+    while (y <= y1) {
+      const s = this.stretchOf(y);
+      if (!s) {
+        sum += this.yearCountCounted(y, budget, a, b);
+        y++;
+        continue;
+      }
+      const t = this.cycleTable(s[0]);
+      const last = Math.min(y1, s[1]);
+      const n = last - y + 1;
+      const q = Math.floor(n / CYCLE_YEARS);
+      sum += q * t.total;
+      let i = (y - s[0]) % CYCLE_YEARS;
+      for (let k = q * CYCLE_YEARS; k < n; k++) {
+        sum += t.counts[i]!;
+        i = i === CYCLE_YEARS - 1 ? 0 : i + 1;
+      }
+      y = last + 1;
     }
     return sum;
   }
 
+  /**
+   * {@link shift} for |n| > LONG_SHIFT: the business days left in dn's year, then whole years (whole 400-year
+   * cycles where the years repeat), then the day within the year where the count ends.
+   */
+  private shiftFar(dn: number, n: number): number {
+    const budget = { evaluated: 0 };
+    let empty = 0;
+    if (n > 0) {
+      let y = yearOfDayNumberUnchecked(dn);
+      let left = n - this.countInYear(dn + 1, dayNumberFromYmdUnchecked(y + 1, 1, 1));
+      while (left > 0) {
+        y++;
+        if (y > this.lastYear) throw this.pastEnd(dn, n, 'last', this.lastYear);
+        const s = this.stretchOf(y);
+        if (s) {
+          const t = this.cycleTable(s[0]);
+          const room = Math.floor((Math.min(s[1], this.lastYear) - y + 1) / CYCLE_YEARS);
+          const q = t.total > 0 ? Math.min(room, Math.floor((left - 1) / t.total)) : 0;
+          if (q > 0) {
+            left -= q * t.total;
+            y += q * CYCLE_YEARS - 1;
+            empty = 0;
+            continue;
+          }
+        }
+        const c = this.yearCountCounted(y, budget, dn, dn);
+        if (left <= c) {
+          this.ensure(y, y);
+          return this.select(this.rank(dayNumberFromYmdUnchecked(y, 1, 1)) + left - 1);
+        }
+        left -= c;
+        empty = c === 0 ? empty + 1 : 0;
+        if (empty >= MAX_EMPTY_YEARS) throw this.noBusinessDay(dn, 'after');
+      }
+      // Only when n did not leave dn's year (not reached for |n| > LONG_SHIFT, kept for safety).
+      return this.shiftNear(dn, n);
+    }
+    let y = yearOfDayNumberUnchecked(dn);
+    let left = -n - this.countInYear(dayNumberFromYmdUnchecked(y, 1, 1), dn);
+    while (left > 0) {
+      y--;
+      if (y < this.firstYear) throw this.pastEnd(dn, n, 'first', this.firstYear);
+      const s = this.stretchOf(y);
+      if (s) {
+        const t = this.cycleTable(s[0]);
+        const room = Math.floor((y - Math.max(s[0], this.firstYear) + 1) / CYCLE_YEARS);
+        const q = t.total > 0 ? Math.min(room, Math.floor((left - 1) / t.total)) : 0;
+        if (q > 0) {
+          left -= q * t.total;
+          y -= q * CYCLE_YEARS - 1;
+          empty = 0;
+          continue;
+        }
+      }
+      const c = this.yearCountCounted(y, budget, dn, dn);
+      if (left <= c) {
+        this.ensure(y, y);
+        return this.select(this.rank(dayNumberFromYmdUnchecked(y + 1, 1, 1)) - left);
+      }
+      left -= c;
+      empty = c === 0 ? empty + 1 : 0;
+      if (empty >= MAX_EMPTY_YEARS) throw this.noBusinessDay(dn, 'before');
+    }
+    return this.shiftNear(dn, n);
+  }
+
+  private tooManyYears(a: number, b: number): KalendsRangeError {
+    return new KalendsRangeError(
+      `calendar ${JSON.stringify(this.label)}: its holidays do not repeat every 400 years (a Julian Easter rule, an Easter substitute day, or an Easter holiday near other holidays), so its years are evaluated one by one, and this call (from ${formatPlainDate(a)}${b !== a ? ` to ${formatPlainDate(b)}` : ''}) needs more than the ${MAX_EVALUATED_YEARS} years one call may evaluate; use a shorter range or a smaller amount`,
+      { code: 'limit-exceeded', received: b },
+    );
+  }
+
   private pastEnd(dn: number, n: number, which: 'first' | 'last', year: number): KalendsRangeError {
     return new KalendsRangeError(
-      `shifting ${isoDateFromDayNumber(dn)} by ${n} business days passes the ${which} year (${year}) that calendar ${JSON.stringify(this.label)} supports`,
+      `shifting ${formatPlainDate(dn)} by ${n} business days passes the ${which} year (${year}) that calendar ${JSON.stringify(this.label)} supports`,
       { code: 'out-of-range', received: n },
     );
   }
 
   private noBusinessDay(dn: number, where: 'after' | 'before'): KalendsRangeError {
     return new KalendsRangeError(
-      `calendar ${JSON.stringify(this.label)} has no business day within ${MAX_EMPTY_YEARS} years ${where} ${isoDateFromDayNumber(dn)}; its holidays cover every weekday`,
+      `calendar ${JSON.stringify(this.label)} has no business day within ${MAX_EMPTY_YEARS} years ${where} ${formatPlainDate(dn)}; its holidays cover every weekday`,
       { code: 'no-business-day', received: dn },
     );
   }

@@ -26,7 +26,7 @@ import { appendBusinessDaysUnchecked, nthBusinessDayInRangeUnchecked } from '../
 const SEED = 20261208;
 const DAY_MS = 86_400_000;
 const WEEKDAYS = ['monday', 'tuesday', 'wednesday', 'thursday', 'friday', 'saturday', 'sunday'] as const;
-const SHIFTS = ['previous-weekday', 'next-weekday', 'nearest-weekday'] as const;
+const SHIFTS = ['previous-non-weekend-day', 'next-non-weekend-day', 'nearest-non-weekend-day'] as const;
 
 const dayOf = (y: number, m: number, d: number) => Date.UTC(y, m - 1, d) / DAY_MS;
 const weekdayOf = (dn: number) => ((new Date(dn * DAY_MS).getUTCDay() + 6) % 7) + 1;
@@ -181,7 +181,7 @@ describe('business layer fast path (internal, unchecked)', () => {
       id: 'long',
       years: { from: 1, until: 5200 },
       holidays: [{ id: 'new-year', name: 'New Year', kind: 'fixed', month: 1, day: 1 }],
-      observance: { saturday: 'previous-weekday', sunday: 'next-weekday' },
+      observance: { saturday: 'previous-non-weekend-day', sunday: 'next-non-weekend-day' },
     });
     const year1 = new Date(0);
     year1.setUTCFullYear(1, 0, 1); // Date.UTC would read year 1 as 1901
