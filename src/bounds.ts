@@ -43,3 +43,20 @@ export const MAX_WINDOW_YEARS = 4096;
 export const MAX_EVALUATED_YEARS = 50_000;
 /** Largest total offset, in days, of an Easter or relative holiday rule from its base date. */
 export const MAX_RULE_OFFSET = 300;
+/**
+ * Largest `count` of a frequency rule whose occurrences repeat (a fixed step, or the 400-year Gregorian cycle):
+ * where its count ends is computed, not listed, at a cost that does not grow with the count.
+ */
+export const MAX_COUNT = 10_000_000;
+/**
+ * Largest `count` of a rule whose count is found by listing its occurrences: business-day selectors and steps,
+ * fiscal periods, wall-clock intraday steps, RFC 5545 times of day in a zone.
+ */
+export const MAX_LISTED_COUNT = 100_000;
+/** Most occurrences one list or bulk call returns by default (`maxCount`), and the most it may be raised to. */
+export const DEFAULT_MAX_OCCURRENCES = 1_000_000;
+export const MAX_OCCURRENCES = 10_000_000;
+/** Largest RFC 5545 INTERVAL accepted (RFC 5545 sets no upper bound). */
+export const MAX_RFC5545_INTERVAL = 1_000_000;
+/** Most periods a finance schedule may have. */
+export const MAX_SCHEDULE_PERIODS = 1_000_000;

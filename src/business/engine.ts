@@ -9,7 +9,7 @@
  *
  * @module
  */
-import { MAX_EMPTY_YEARS, MAX_EVALUATED_YEARS, MAX_WINDOW_YEARS } from '../bounds.js';
+import { MAX_EMPTY_YEARS, MAX_WINDOW_YEARS } from '../bounds.js';
 import {
   dayNumberFromYmdUnchecked,
   isLeapYearUnchecked,
@@ -18,7 +18,7 @@ import {
 } from '../civil/gregorian.js';
 import { KalendsRangeError } from '../errors.js';
 import { formatPlainDate } from '../instant/index.js';
-import { type Periodicity, periodicityOf } from './periodic.js';
+import { CYCLE_YEARS, type YearBudget, YearCounts } from './periodic.js';
 import { holidaysOfYear } from './rules.js';
 import type { CalendarNode } from './validate.js';
 
@@ -28,16 +28,6 @@ const WORDS = 12;
 const MARGIN_YEARS = 8;
 /** Shifts of more business days than this skip whole years instead of growing the compiled window. */
 const LONG_SHIFT = 100_000;
-/** Years in one Gregorian cycle. */
-const CYCLE_YEARS = 400;
-
-/** Business days in one 400-year stretch of generic years, from its first year. */
-interface CycleTable {
-  /** counts[i]: business days of year first + i. */
-  readonly counts: Int32Array;
-  /** Business days of the whole cycle. */
-  readonly total: number;
-}
 
 /** Number of set bits in a 32-bit word. */
 export function popcount32(x: number): number {
@@ -64,9 +54,8 @@ export class Engine {
   readonly endDay: number;
   /** Weekend mask, and the number of days of the week outside the weekend. */
   private readonly weekdaysPerWeek: number;
-  private periodicity: Periodicity | undefined;
-  /** Cycle tables by the first year of their stretch of generic years. */
-  private readonly tables = new Map<number, CycleTable>();
+  /** Business days of whole years (by 400-year cycles where the calendar repeats). */
+  private readonly years: YearCounts;
   private readonly scratch = new Uint32Array(WORDS);
 
   constructor(
@@ -80,6 +69,7 @@ export class Engine {
     let w = 0;
     for (let wd = 1; wd <= 7; wd++) if ((node.weekendMask & (1 << wd)) === 0) w++;
     this.weekdaysPerWeek = w;
+    this.years = new YearCounts(node, label, (y) => this.yearCount(y));
   }
 
   /** Compiles one year's bits into `words` at `offset`. */
@@ -131,8 +121,10 @@ export class Engine {
     let newLo: number;
     let newHi: number;
     if (this.count > 0 && Math.max(hi, yHi) - Math.min(this.lo, yLo) + 1 <= MAX_WINDOW_YEARS) {
-      newLo = yLo < this.lo ? Math.max(this.firstYear, yLo - MARGIN_YEARS) : this.lo;
-      newHi = yHi > hi ? Math.min(this.lastYear, yHi + MARGIN_YEARS) : hi;
+      // Grow by at least half the window, so that a walk through many years recompiles in O(years) overall.
+      const margin = Math.max(MARGIN_YEARS, this.count >> 1);
+      newLo = yLo < this.lo ? Math.max(this.firstYear, yLo - margin) : this.lo;
+      newHi = yHi > hi ? Math.min(this.lastYear, yHi + margin) : hi;
     } else {
       newLo = Math.max(this.firstYear, yLo - MARGIN_YEARS);
       newHi = Math.min(this.lastYear, yHi + MARGIN_YEARS);
@@ -377,7 +369,7 @@ export class Engine {
     }
     // The partial years at both ends through the window, the whole years between by years (or cycles).
     const head = this.countInYear(a, dayNumberFromYmdUnchecked(ya + 1, 1, 1));
-    const middle = this.countYears(ya + 1, yb - 1, a, b);
+    const middle = this.years.sum(ya + 1, yb - 1, { evaluated: 0, from: a, to: b });
     return head + middle + this.countInYear(dayNumberFromYmdUnchecked(yb, 1, 1), b);
   }
 
@@ -403,49 +395,6 @@ export class Engine {
     return count;
   }
 
-  /**
-   * The stretch [first, last] of generic years holding `y` (./periodic.ts) when the calendar repeats every 400
-   * years and the stretch holds at least two cycles; otherwise undefined.
-   */
-  private stretchOf(y: number): readonly [number, number] | undefined {
-    const p = (this.periodicity ??= periodicityOf(this.node));
-    if (!p.periodic) return undefined;
-    const b = p.breaks;
-    const r = p.margin;
-    // The last break at or before y + r, and the first one after it.
-    let lo = 0;
-    let hi = b.length;
-    while (lo < hi) {
-      const mid = (lo + hi) >> 1;
-      if (b[mid]! <= y + r) lo = mid + 1;
-      else hi = mid;
-    }
-    const prev = b[lo - 1]!;
-    const next = b[lo]!;
-    if (prev > y - r) return undefined;
-    const first = prev + r;
-    const last = next - r - 1;
-    return last - first + 1 >= 2 * CYCLE_YEARS ? [first, last] : undefined;
-  }
-
-  /** Business days of each year of the cycle that starts at `first` (the first year of a stretch). */
-  private cycleTable(first: number): CycleTable {
-    let t = this.tables.get(first);
-    if (!t) {
-      const counts = new Int32Array(CYCLE_YEARS);
-      let total = 0;
-      for (let i = 0; i < CYCLE_YEARS; i++) {
-        const c = this.yearCount(first + i);
-        counts[i] = c;
-        total += c;
-      }
-      t = { counts, total };
-      if (this.tables.size >= 16) this.tables.clear();
-      this.tables.set(first, t);
-    }
-    return t;
-  }
-
   /** Business days of year y: from the window when it holds y, else compiled on its own. */
   private yearCount(y: number): number {
     if (this.count > 0 && y >= this.lo && y < this.lo + this.count) {
@@ -459,47 +408,13 @@ export class Engine {
     return c;
   }
 
-  /** Business days of year y, and whether it came from a cycle table; counts the years evaluated one by one. */
-  private yearCountCounted(y: number, budget: { evaluated: number }, a: number, b: number): number {
-    const s = this.stretchOf(y);
-    if (s) return this.cycleTable(s[0]).counts[(y - s[0]) % CYCLE_YEARS]!;
-    if (++budget.evaluated > MAX_EVALUATED_YEARS) throw this.tooManyYears(a, b);
-    return this.yearCount(y);
-  }
-
-  /** Business days in the whole years [y0, y1] (none when y1 < y0), by whole cycles where the years repeat. */
-  private countYears(y0: number, y1: number, a: number, b: number): number {
-    let sum = 0;
-    const budget = { evaluated: 0 };
-    let y = y0;
-    while (y <= y1) {
-      const s = this.stretchOf(y);
-      if (!s) {
-        sum += this.yearCountCounted(y, budget, a, b);
-        y++;
-        continue;
-      }
-      const t = this.cycleTable(s[0]);
-      const last = Math.min(y1, s[1]);
-      const n = last - y + 1;
-      const q = Math.floor(n / CYCLE_YEARS);
-      sum += q * t.total;
-      let i = (y - s[0]) % CYCLE_YEARS;
-      for (let k = q * CYCLE_YEARS; k < n; k++) {
-        sum += t.counts[i]!;
-        i = i === CYCLE_YEARS - 1 ? 0 : i + 1;
-      }
-      y = last + 1;
-    }
-    return sum;
-  }
-
   /**
    * {@link shift} for |n| > LONG_SHIFT: the business days left in dn's year, then whole years (whole 400-year
    * cycles where the years repeat), then the day within the year where the count ends.
    */
   private shiftFar(dn: number, n: number): number {
-    const budget = { evaluated: 0 };
+    const budget: YearBudget = { evaluated: 0, from: dn, to: dn };
+    const years = this.years;
     let empty = 0;
     if (n > 0) {
       let y = yearOfDayNumberUnchecked(dn);
@@ -507,9 +422,9 @@ export class Engine {
       while (left > 0) {
         y++;
         if (y > this.lastYear) throw this.pastEnd(dn, n, 'last', this.lastYear);
-        const s = this.stretchOf(y);
+        const s = years.stretchOf(y);
         if (s) {
-          const t = this.cycleTable(s[0]);
+          const t = years.table(s[0]);
           const room = Math.floor((Math.min(s[1], this.lastYear) - y + 1) / CYCLE_YEARS);
           const q = t.total > 0 ? Math.min(room, Math.floor((left - 1) / t.total)) : 0;
           if (q > 0) {
@@ -519,7 +434,7 @@ export class Engine {
             continue;
           }
         }
-        const c = this.yearCountCounted(y, budget, dn, dn);
+        const c = years.of(y, budget);
         if (left <= c) {
           this.ensure(y, y);
           return this.select(this.rank(dayNumberFromYmdUnchecked(y, 1, 1)) + left - 1);
@@ -536,9 +451,9 @@ export class Engine {
     while (left > 0) {
       y--;
       if (y < this.firstYear) throw this.pastEnd(dn, n, 'first', this.firstYear);
-      const s = this.stretchOf(y);
+      const s = years.stretchOf(y);
       if (s) {
-        const t = this.cycleTable(s[0]);
+        const t = years.table(s[0]);
         const room = Math.floor((y - Math.max(s[0], this.firstYear) + 1) / CYCLE_YEARS);
         const q = t.total > 0 ? Math.min(room, Math.floor((left - 1) / t.total)) : 0;
         if (q > 0) {
@@ -548,7 +463,7 @@ export class Engine {
           continue;
         }
       }
-      const c = this.yearCountCounted(y, budget, dn, dn);
+      const c = years.of(y, budget);
       if (left <= c) {
         this.ensure(y, y);
         return this.select(this.rank(dayNumberFromYmdUnchecked(y + 1, 1, 1)) - left);
@@ -558,13 +473,6 @@ export class Engine {
       if (empty >= MAX_EMPTY_YEARS) throw this.noBusinessDay(dn, 'before');
     }
     return this.shiftNear(dn, n);
-  }
-
-  private tooManyYears(a: number, b: number): KalendsRangeError {
-    return new KalendsRangeError(
-      `calendar ${JSON.stringify(this.label)}: its holidays do not repeat every 400 years (a Julian Easter rule, an Easter substitute day, or an Easter holiday near other holidays), so its years are evaluated one by one, and this call (from ${formatPlainDate(a)}${b !== a ? ` to ${formatPlainDate(b)}` : ''}) needs more than the ${MAX_EVALUATED_YEARS} years one call may evaluate; use a shorter range or a smaller amount`,
-      { code: 'limit-exceeded', received: b },
-    );
   }
 
   private pastEnd(dn: number, n: number, which: 'first' | 'last', year: number): KalendsRangeError {

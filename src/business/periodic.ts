@@ -20,7 +20,9 @@
  */
 import { EASTER_MIN_YEAR } from '../civil/easter.js';
 import { yearOfDayNumberUnchecked } from '../civil/gregorian.js';
-import { MAX_SUBSTITUTE_SEARCH, MAX_YEAR, MIN_YEAR } from '../bounds.js';
+import { MAX_EVALUATED_YEARS, MAX_SUBSTITUTE_SEARCH, MAX_YEAR, MIN_YEAR } from '../bounds.js';
+import { KalendsRangeError } from '../errors.js';
+import { formatPlainDate } from '../instant/index.js';
 import {
   KIND_EASTER,
   KIND_FIXED,
@@ -153,4 +155,125 @@ export function periodicityOf(root: CalendarNode): Periodicity {
     for (const [a, b] of easter) for (const [c, d] of others) if (mayMeet(a, b, c, d)) periodic = false;
   }
   return { periodic, breaks: Int32Array.from([...breaks].sort((x, y) => x - y)), margin: 3 + depth };
+}
+
+/** Years in one Gregorian cycle. */
+export const CYCLE_YEARS = 400;
+
+/** Business days in one 400-year cycle of generic years, from its first year. */
+export interface CycleTable {
+  /** counts[i]: business days of year first + i. */
+  readonly counts: Int32Array;
+  /** Business days of the whole cycle. */
+  readonly total: number;
+}
+
+/** Counts the years evaluated one by one in a call, so that a calendar that does not repeat stays bounded. */
+export interface YearBudget {
+  evaluated: number;
+  /** The range (or the day and amount) of the call, for the message. */
+  readonly from: number;
+  readonly to: number;
+}
+
+/**
+ * The business days of whole years: one year compiled on its own, or, in a stretch of generic years of a
+ * calendar that repeats, a lookup in a table of one 400-year cycle.
+ */
+export class YearCounts {
+  private periodicity: Periodicity | undefined;
+  /** Cycle tables by the first year of their stretch of generic years. */
+  private readonly tables = new Map<number, CycleTable>();
+
+  constructor(
+    private readonly node: CalendarNode,
+    private readonly label: string,
+    /** Business days of one year, compiled (or read from a compiled window). */
+    private readonly compiledCount: (year: number) => number,
+  ) {}
+
+  /**
+   * The stretch [first, last] of generic years holding `y` when the calendar repeats every 400 years and the
+   * stretch holds at least two cycles; otherwise undefined.
+   */
+  stretchOf(y: number): readonly [number, number] | undefined {
+    const p = (this.periodicity ??= periodicityOf(this.node));
+    if (!p.periodic) return undefined;
+    const b = p.breaks;
+    const r = p.margin;
+    // The last break at or before y + r, and the first one after it (the range ends are always breaks).
+    let lo = 0;
+    let hi = b.length;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if (b[mid]! <= y + r) lo = mid + 1;
+      else hi = mid;
+    }
+    const prev = b[lo - 1]!;
+    const next = b[lo]!;
+    if (prev > y - r) return undefined;
+    const first = prev + r;
+    const last = next - r - 1;
+    return last - first + 1 >= 2 * CYCLE_YEARS ? [first, last] : undefined;
+  }
+
+  /** Business days of each year of the cycle that starts at `first` (the first year of a stretch). */
+  table(first: number): CycleTable {
+    let t = this.tables.get(first);
+    if (!t) {
+      const counts = new Int32Array(CYCLE_YEARS);
+      let total = 0;
+      for (let i = 0; i < CYCLE_YEARS; i++) {
+        const c = this.compiledCount(first + i);
+        counts[i] = c;
+        total += c;
+      }
+      t = { counts, total };
+      if (this.tables.size >= 16) this.tables.clear();
+      this.tables.set(first, t);
+    }
+    return t;
+  }
+
+  /** Business days of year y; a year evaluated on its own counts against the call's budget. */
+  of(y: number, budget: YearBudget): number {
+    const s = this.stretchOf(y);
+    if (s) return this.table(s[0]).counts[(y - s[0]) % CYCLE_YEARS]!;
+    if (++budget.evaluated > MAX_EVALUATED_YEARS) throw this.tooManyYears(budget);
+    return this.compiledCount(y);
+  }
+
+  /** Business days in the whole years [y0, y1] (none when y1 < y0), by whole cycles where the years repeat. */
+  sum(y0: number, y1: number, budget: YearBudget): number {
+    let sum = 0;
+    let y = y0;
+    while (y <= y1) {
+      const s = this.stretchOf(y);
+      if (!s) {
+        sum += this.of(y, budget);
+        y++;
+        continue;
+      }
+      const t = this.table(s[0]);
+      const last = Math.min(y1, s[1]);
+      const n = last - y + 1;
+      const q = Math.floor(n / CYCLE_YEARS);
+      sum += q * t.total;
+      let i = (y - s[0]) % CYCLE_YEARS;
+      for (let k = q * CYCLE_YEARS; k < n; k++) {
+        sum += t.counts[i]!;
+        i = i === CYCLE_YEARS - 1 ? 0 : i + 1;
+      }
+      y = last + 1;
+    }
+    return sum;
+  }
+
+  private tooManyYears(budget: YearBudget): KalendsRangeError {
+    const { from, to } = budget;
+    return new KalendsRangeError(
+      `calendar ${JSON.stringify(this.label)}: its holidays do not repeat every 400 years (a Julian Easter rule, an Easter substitute day, or an Easter holiday near other holidays), so its years are evaluated one by one, and this call (from ${formatPlainDate(from)}${to !== from ? ` to ${formatPlainDate(to)}` : ''}) needs more than the ${MAX_EVALUATED_YEARS} years one call may evaluate; use a shorter range or a smaller amount`,
+      { code: 'limit-exceeded', received: to },
+    );
+  }
 }

@@ -185,7 +185,11 @@ export function holidaysOfYear(node: CalendarNode, year: number, applyRemovals =
       list.push({ observed: a.dayNumber, actual: a.dayNumber, name: a.name, ruleId: undefined, oneOff: true });
     }
   }
-  // Stable sort keeps members first, then rules in date order, then additions, on equal dates.
+  // Stable sort keeps members first, then rules in date order, then additions, on equal dates (usually the list
+  // is in order already, and sorting it would only allocate).
+  let sorted = true;
+  for (let i = 1; i < list.length && sorted; i++) if (list[i]!.observed < list[i - 1]!.observed) sorted = false;
+  if (sorted) return list;
   return list.map((h, i) => ({ h, i })).sort((a, b) => a.h.observed - b.h.observed || a.i - b.i).map((x) => x.h);
 }
 

@@ -249,8 +249,9 @@ function draftOfObject(def: Record<string, unknown>, path: string, c: Issues, st
       }
     }
   }
-  draft.additions.push(...readDatedEntries(field('additions'), joinPath(path, 'additions'), c));
-  draft.removals.push(...readDatedEntries(field('removals'), joinPath(path, 'removals'), c));
+  // Loops, not spreads: a definition may list more one-offs than a call's arguments may hold.
+  for (const x of readDatedEntries(field('additions'), joinPath(path, 'additions'), c)) draft.additions.push(x);
+  for (const x of readDatedEntries(field('removals'), joinPath(path, 'removals'), c)) draft.removals.push(x);
   if (c.count > before) return undefined;
   return draft;
 }

@@ -14,8 +14,10 @@ import {
   formatInstant,
   formatPlainDate,
   formatRecurrenceRule,
-  iterateOccurrences,
-  listOccurrences,
+  iterateOccurrenceDayNumbers,
+  iterateOccurrenceEpochMs,
+  listOccurrenceDayNumbers,
+  listOccurrenceEpochMs,
   parseRecurrenceRule,
   weekdayOfDayNumber,
 } from '../../index.js';
@@ -99,11 +101,10 @@ Examples:
     const to = optionString(args, 'to');
     const count = countOption(args);
     if ((to === undefined) === (count === undefined)) throw new UsageError('give exactly one of --to (end of the range) or --count (how many occurrences)');
-    const values =
-      to !== undefined
-        ? listOccurrences(rule, from, to, { endInclusive: optionFlag(args, 'end-inclusive') })
-        : [...iterateOccurrences(rule, from, { limit: count! })];
     const dates = rule.values === 'dates';
+    const list = dates ? listOccurrenceDayNumbers : listOccurrenceEpochMs;
+    const iterate = dates ? iterateOccurrenceDayNumbers : iterateOccurrenceEpochMs;
+    const values = to !== undefined ? list(rule, from, to, { endInclusive: optionFlag(args, 'end-inclusive') }) : [...iterate(rule, from, { limit: count! })];
     const out = new RowWriter(io, optionFlag(args, 'json'), dates ? ['date', 'weekday'] : ['instant']);
     for (const v of values) out.write(dates ? { date: formatPlainDate(v), weekday: WEEKDAYS[weekdayOfDayNumber(v) - 1]! } : { instant: formatInstant(v) });
     out.end();
