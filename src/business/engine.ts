@@ -30,7 +30,7 @@ const MARGIN_YEARS = 8;
 const LONG_SHIFT = 100_000;
 
 /** Number of set bits in a 32-bit word. */
-export function popcount32(x: number): number {
+function popcount32(x: number): number {
   x = x - ((x >>> 1) & 0x55555555);
   x = (x & 0x33333333) + ((x >>> 2) & 0x33333333);
   x = (x + (x >>> 4)) & 0x0f0f0f0f;
@@ -477,14 +477,14 @@ export class Engine {
 
   private pastEnd(dn: number, n: number, which: 'first' | 'last', year: number): KalendsRangeError {
     return new KalendsRangeError(
-      `shifting ${formatPlainDate(dn)} by ${n} business days passes the ${which} year (${year}) that calendar ${JSON.stringify(this.label)} supports`,
+      `n: shifting ${formatPlainDate(dn)} by ${n} business days passes the ${which} year (${year}) that calendar ${JSON.stringify(this.label)} supports; use a smaller shift, or a calendar whose years reach further`,
       { code: 'out-of-range', received: n },
     );
   }
 
   private noBusinessDay(dn: number, where: 'after' | 'before'): KalendsRangeError {
     return new KalendsRangeError(
-      `calendar ${JSON.stringify(this.label)} has no business day within ${MAX_EMPTY_YEARS} years ${where} ${formatPlainDate(dn)}; its holidays cover every weekday`,
+      `calendar: ${JSON.stringify(this.label)} has no business day within ${MAX_EMPTY_YEARS} years ${where} ${formatPlainDate(dn)}; its holidays cover every day outside its weekend`,
       { code: 'no-business-day', received: dn },
     );
   }

@@ -114,7 +114,7 @@ function mayMeet(a: number, b: number, c: number, d: number): boolean {
 }
 
 /** Decides whether the calendar's generic years repeat every 400 years, and lists the breaks. */
-export function periodicityOf(root: CalendarNode): Periodicity {
+function periodicityOf(root: CalendarNode): Periodicity {
   const breaks = new Set<number>();
   const easter: [number, number][] = [];
   const others: [number, number][] = [];

@@ -14,7 +14,7 @@ const ORDINAL_WORDS = ['', 'first', 'second', 'third', 'fourth', 'fifth'];
 type Loose = Record<string, unknown>;
 
 /** "1st", "2nd", "23rd", "111th". */
-export function ordinalSuffix(n: number): string {
+function ordinalSuffix(n: number): string {
   const t = n % 100;
   if (t >= 11 && t <= 13) return `${n}th`;
   const u = n % 10;
@@ -41,7 +41,7 @@ function fromEnd(n: number, noun: string): string {
 }
 
 /** Words for one day selector. */
-export function describeSelector(s: Loose, periodNoun: string): string {
+function describeSelector(s: Loose, periodNoun: string): string {
   if (s['day'] !== undefined) {
     const n = s['day'] === 'last' ? -1 : (s['day'] as number);
     const base = n > 0 ? `the ${ordinalSuffix(n)}` : fromEnd(n, 'day');

@@ -121,7 +121,7 @@ export function gcd(a: number, b: number): number {
 }
 
 /** Months in one 400-year Gregorian cycle: the calendar (and its weekdays) repeats after it. */
-export const CYCLE_MONTHS = 4800;
+const CYCLE_MONTHS = 4800;
 /** Days in one 400-year Gregorian cycle (146,097 = 20,871 weeks). */
 export const CYCLE_DAYS = 146_097;
 const MIN_MONTH_INDEX = monthIndexOfDayNumberUnchecked(MIN_DAY_NUMBER);
@@ -168,10 +168,10 @@ export interface Selector {
 }
 
 /** Marks "no day selected". */
-export const NONE = Number.MIN_SAFE_INTEGER;
+const NONE = Number.MIN_SAFE_INTEGER;
 
 /** The day `s` picks in the period [first, end), or NONE. */
-export function pickDay(s: Selector, first: number, end: number, business: BusinessOps | undefined): number {
+function pickDay(s: Selector, first: number, end: number, business: BusinessOps | undefined): number {
   if (s.kind === 0) {
     if (s.n > 0) {
       const d = first + s.n - 1;

@@ -36,7 +36,7 @@ import { parseInstant, parsePlainDate, parsePlainDateTime, zoneOps } from './dep
 import type { Rfc5545Frequency } from './types.js';
 
 /** A zone of offset 0 for DTSTART values in UTC and for floating times. */
-export const UTC_OPS: ZoneOps = { id: 'UTC', zone: undefined, offsetSecondsFromEpochMs: () => 0, mayJumpHalfADay: () => false };
+const UTC_OPS: ZoneOps = { id: 'UTC', zone: undefined, offsetSecondsFromEpochMs: () => 0, mayJumpHalfADay: () => false };
 
 const FREQUENCIES: readonly Rfc5545Frequency[] = ['yearly', 'monthly', 'weekly', 'daily', 'hourly', 'minutely'];
 
@@ -200,7 +200,7 @@ function periodDays(spec: RfcDaySpec): number {
 }
 
 /** The engine of a date-level rule; returns undefined when the rule can never produce a date. */
-export function rfcDayEngine(spec: RfcDaySpec): Engine | undefined {
+function rfcDayEngine(spec: RfcDaySpec): Engine | undefined {
   const scratch: number[] = [];
   const startIndex = periodIndexOf(spec, spec.startDay);
   // Prove that the rule produces a date after DTSTART: the pattern repeats with the 400-year cycle, so one

@@ -344,7 +344,7 @@ function weekdayName(v: unknown): WeekdayName {
  * @internal The RFC 5545 definition that expands like `rule` from its first occurrence on or after `origin`
  * (default: the rule's start, else its anchor), or an `'unsupported'` error naming what has no RFC 5545 form.
  */
-export function rfcDefinitionOf(rule: Rule, origin?: unknown): Rfc5545RuleDefinition {
+function rfcDefinitionOf(rule: Rule, origin?: unknown): Rfc5545RuleDefinition {
   const c = compiledOf(rule);
   const d = rule.definition as unknown as Record<string, unknown>;
   if (rule.kind === 'rfc5545') return rule.definition as Rfc5545RuleDefinition;
