@@ -246,7 +246,15 @@ function isDigit(c: number): boolean {
 }
 
 function readAnnotations(sc: Scanner, f: Fields, opts: ParseDateTimeOptions | undefined): void {
-  const understood = opts?.understoodKeys ?? [];
+  // A string here would match substrings (String.prototype.includes): only an array of keys is accepted.
+  const given: unknown = opts?.understoodKeys;
+  if (given !== undefined && !(Array.isArray(given) && given.every((k) => typeof k === 'string'))) {
+    throw new KalendsTypeError(`options.understoodKeys: expected an array of annotation keys (strings) such as ["_foo"], got ${describeValue(given)}`, {
+      code: 'invalid-type',
+      received: given,
+    });
+  }
+  const understood = (given ?? []) as readonly string[];
   let sawTag = false;
   let seenKeys: Map<string, { value: string; differ: boolean; critical: boolean }> | undefined;
   while (sc.peek() === 91 /* [ */) {
