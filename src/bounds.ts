@@ -60,3 +60,9 @@ export const MAX_OCCURRENCES = 10_000_000;
 export const MAX_RFC5545_INTERVAL = 1_000_000;
 /** Most periods a finance schedule may have. */
 export const MAX_SCHEDULE_PERIODS = 1_000_000;
+/** Largest `every` of a rule stepping by days, weeks or business days, and largest step of a schedule. */
+export const MAX_RULE_EVERY = 100_000;
+/** Largest `every` of a rule stepping by months, quarters, years or fiscal periods. */
+export const MAX_RULE_EVERY_PERIODS = 10_000;
+/** Farthest, in days, a business-day convention may move a date before a rule reports `no-business-day`. */
+export const MAX_ADJUSTMENT_DAYS = 4096;

@@ -4,7 +4,7 @@
  *
  * @module
  */
-import { MAX_COUNT, MAX_DAY_NUMBER, MAX_EPOCH_MS, MIN_DAY_NUMBER, MIN_EPOCH_MS, MS_PER_DAY } from '../bounds.js';
+import { MAX_COUNT, MAX_DAY_NUMBER, MAX_EPOCH_MS, MAX_RULE_EVERY, MAX_RULE_EVERY_PERIODS, MIN_DAY_NUMBER, MIN_EPOCH_MS, MS_PER_DAY } from '../bounds.js';
 import { describeValue } from '../errors.js';
 import { weekdayOfDayNumberUnchecked } from '../civil/gregorian.js';
 import {
@@ -135,7 +135,7 @@ function readCommonDate(def: Record<string, unknown>, issues: Issues): CommonDat
   return { start, end, count, business, convention };
 }
 
-function readEvery(def: Record<string, unknown>, issues: Issues, max = 100_000): number {
+function readEvery(def: Record<string, unknown>, issues: Issues, max = MAX_RULE_EVERY): number {
   const v = def['every'];
   if (v === 0) {
     issues.add('every', `expected an integer of at least 1 (an interval of 0 would never move), got 0`);
@@ -261,7 +261,7 @@ function compileMonthFamily(def: Record<string, unknown>, kind: string, common: 
   } else {
     const extra = kind === 'monthly' ? ['months'] : ['month'];
     checkKeys(def, [...COMMON_DATE_KEYS, 'on', 'every', 'anchor', 'keepMonthEnd', ...extra], '', issues);
-    every = readEvery(def, issues, 10_000);
+    every = readEvery(def, issues, MAX_RULE_EVERY_PERIODS);
     anchor = readDate(def, 'anchor', 'anchor', issues) ?? common.start;
     if (def['keepMonthEnd'] !== undefined && typeof def['keepMonthEnd'] !== 'boolean') {
       issues.add('keepMonthEnd', `expected true or false, got ${describeValue(def['keepMonthEnd'])}`);
@@ -364,7 +364,7 @@ function compileWeekly(def: Record<string, unknown>, common: CommonDate, issues:
 
 function compilePeriods(def: Record<string, unknown>, common: CommonDate, issues: Issues): { engine: Engine; period: PeriodOps } | undefined {
   checkKeys(def, [...COMMON_DATE_KEYS, 'unit', 'on', 'every', 'anchor'], '', issues);
-  const every = readEvery(def, issues, 10_000);
+  const every = readEvery(def, issues, MAX_RULE_EVERY_PERIODS);
   const anchor = readDate(def, 'anchor', 'anchor', issues) ?? common.start;
   let period: PeriodOps | undefined;
   if (def['unit'] === undefined) issues.add('unit', 'expected a period unit (a compiled unit, a unit definition or a name such as "quarter"); got none');

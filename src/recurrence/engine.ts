@@ -14,6 +14,7 @@ import { dayNumberFromYmdUnchecked, dayCountOfMonthUnchecked, weekdayOfDayNumber
 import {
   dayCountOfMonthIndex,
   firstDayNumberOfMonthIndex,
+  monthIndexFromYearMonth,
   monthIndexOfDayNumberUnchecked,
   monthOfMonthIndex,
   yearOfMonthIndex,
@@ -399,7 +400,8 @@ export function monthsEngine(
 export function monthsCycleGap(step: number, phase: number, monthMask: number, selectors: readonly Selector[]): number {
   const civil = selectors.map((s) => (s.kind === 2 ? { ...s, kind: 0 as const, clamp: false, n: s.n > 0 ? 1 : -1 } : s));
   const candidates = CYCLE_MONTHS / gcd(step, CYCLE_MONTHS);
-  const base = 2000 * 12 + mod(phase - 2000 * 12, step);
+  const y2000 = monthIndexFromYearMonth(2000, 1);
+  const base = y2000 + mod(phase - y2000, step);
   let firstHit = -1;
   let lastHit = -1;
   let maxGap = 0;

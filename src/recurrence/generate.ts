@@ -6,7 +6,7 @@
  * @module
  */
 import { DefinitionError, KalendsRangeError, KalendsTypeError, describeValue } from '../errors.js';
-import { MAX_LISTED_COUNT, MS_PER_DAY } from '../bounds.js';
+import { MAX_ADJUSTMENT_DAYS, MAX_LISTED_COUNT, MS_PER_DAY } from '../bounds.js';
 import { Issues, didYouMean, isRecord, ownField } from '../diagnostics/index.js';
 import { type Compiled, VALUE_END, VALUE_MIN, compileCivilRule } from './compile.js';
 import { compileIntraday } from './compile-intraday.js';
@@ -83,11 +83,11 @@ export function compiledOf(rule: unknown, name = 'rule'): Compiled {
 function adjustmentMargin(c: Compiled, lo: number, hi: number): [number, number] {
   const cal = c.business!;
   let before = 8;
-  while (before <= 4096 && lo - before > cal.firstDay && cal.adjust(lo - before, c.convention) >= lo) before *= 2;
+  while (before <= MAX_ADJUSTMENT_DAYS && lo - before > cal.firstDay && cal.adjust(lo - before, c.convention) >= lo) before *= 2;
   let after = 8;
-  while (after <= 4096 && hi + after < cal.endDay - 1 && cal.adjust(hi + after, c.convention) < hi) after *= 2;
-  if (before > 4096 || after > 4096) {
-    throw new KalendsRangeError(`calendar ${JSON.stringify(cal.id)}: no business day within 4,096 days of the range; the adjustment convention cannot be applied`, {
+  while (after <= MAX_ADJUSTMENT_DAYS && hi + after < cal.endDay - 1 && cal.adjust(hi + after, c.convention) < hi) after *= 2;
+  if (before > MAX_ADJUSTMENT_DAYS || after > MAX_ADJUSTMENT_DAYS) {
+    throw new KalendsRangeError(`calendar: ${JSON.stringify(cal.id)} has no business day within ${MAX_ADJUSTMENT_DAYS} days of the range, so the convention ${JSON.stringify(c.convention)} cannot be applied`, {
       code: 'no-business-day',
       received: [lo, hi],
     });
@@ -151,11 +151,11 @@ function limitError(c: Compiled, from: number, direction: string): KalendsRangeE
 
 /** Highest value any occurrence can have (exclusive), to end searches early. */
 function occurrenceCeiling(c: Compiled): number {
-  const adjMargin = c.convention === 'none' ? 0 : 4096;
+  const adjMargin = c.convention === 'none' ? 0 : MAX_ADJUSTMENT_DAYS;
   return Math.min(VALUE_END[c.values], c.rawEnd + adjMargin);
 }
 function occurrenceFloor(c: Compiled): number {
-  const adjMargin = c.convention === 'none' ? 0 : 4096;
+  const adjMargin = c.convention === 'none' ? 0 : MAX_ADJUSTMENT_DAYS;
   return Math.max(VALUE_MIN[c.values], c.rawStart - adjMargin);
 }
 

@@ -9,7 +9,7 @@
  * @module
  */
 import { KalendsRangeError, KalendsSyntaxError, KalendsTypeError, describeValue } from '../errors.js';
-import { readOptions, requireEnum } from '../diagnostics/index.js';
+import { lookupName, readOptions, requireEnum } from '../diagnostics/index.js';
 import { MAX_COUNT, MAX_DAY_NUMBER, MAX_EPOCH_MS, MAX_RFC5545_INTERVAL } from '../bounds.js';
 import { dayCountOfMonthUnchecked, packedYmdUnchecked } from '../civil/gregorian.js';
 import { WEEKDAY_NAMES, dayCountOfMonthIndex, dayOfPacked, monthIndexOfPacked, weekdayFromName } from '../civil/names.js';
@@ -187,7 +187,7 @@ export function parseRecurrenceRule(text: string, options?: ParseRecurrenceOptio
     const value = part.slice(eq + 1);
     if (seen.has(name)) throw syntax(`${name} occurs more than once (RFC 5545 section 3.3.10)`, text, at);
     seen.add(name);
-    const unsupported = UNSUPPORTED_PARTS[name];
+    const unsupported = lookupName(UNSUPPORTED_PARTS, name);
     if (unsupported) throw syntax(unsupported, text, at, 'unsupported');
     switch (name) {
       case 'FREQ': {
@@ -279,7 +279,7 @@ function fold(line: string): string {
 }
 
 function unsupported(what: string): KalendsRangeError {
-  return new KalendsRangeError(`formatRecurrenceRule: ${what} has no RFC 5545 form`, { code: 'unsupported', received: what });
+  return new KalendsRangeError(`rule: ${what} has no RFC 5545 form; list its occurrences instead of writing it as RFC 5545 text`, { code: 'unsupported', received: what });
 }
 
 /** Options of {@link formatRecurrenceRule}. */

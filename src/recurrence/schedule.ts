@@ -13,7 +13,7 @@
 import { KalendsRangeError, KalendsTypeError, describeValue } from '../errors.js';
 import { packedYmdUnchecked } from '../civil/gregorian.js';
 import { dayCountOfMonthIndex, dayOfPacked, firstDayNumberOfMonthIndex, monthIndexOfPacked } from '../civil/names.js';
-import { MAX_SCHEDULE_PERIODS } from '../bounds.js';
+import { MAX_RULE_EVERY, MAX_SCHEDULE_PERIODS } from '../bounds.js';
 import { isRecord, ownField, readOptions, requireBoolean, requireEnum, requireWhole } from '../diagnostics/index.js';
 import { BUSINESS_DAY_CONVENTIONS } from '../business/index.js';
 import { businessOps, toDayNumber } from './deps.js';
@@ -62,7 +62,6 @@ export interface Schedule {
   readonly periods: readonly SchedulePeriod[];
 }
 
-const MAX_STEP = 100_000;
 const PLACEMENTS: readonly StubPlacement[] = ['short-front', 'long-front', 'short-back', 'long-back'];
 
 function rollMonths(rollDate: number, months: number, keepMonthEnd: boolean): number {
@@ -85,7 +84,7 @@ function stepOf(step: unknown): { unit: 'months' | 'days'; n: number } | Rule {
     const keys = ['months', 'weeks', 'days'].filter((k) => s[k] !== undefined);
     if (keys.length === 1) {
       const k = keys[0]!;
-      const n = requireWhole(`step.${k}`, s[k], 1, MAX_STEP);
+      const n = requireWhole(`step.${k}`, s[k], 1, MAX_RULE_EVERY);
       return k === 'months' ? { unit: 'months', n } : { unit: 'days', n: k === 'weeks' ? 7 * n : n };
     }
   }

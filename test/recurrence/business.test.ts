@@ -210,6 +210,11 @@ describe('count with a business-day convention, against a brute-force stepper (s
     ]);
   });
 
+  it('a search from long before the start of an adjusted rule finds its first date (0.1 gave up after 524 days)', () => {
+    const rule = defineRule({ kind: 'monthly', on: { day: 15 }, calendar: 'us-federal', convention: 'following', start: '2025-01-01' });
+    expect(iso(nextOccurrenceDayNumber(rule, '2005-01-01')!)).toBe('2025-01-15');
+  });
+
   it('the first `count` raw dates from start, each adjusted (ISDA 2006 section 4.12 by adjustDayNumber), equal the occurrences', () => {
     fc.assert(
       fc.property(
