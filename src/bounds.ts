@@ -63,3 +63,45 @@ export const MAX_TRANSITION_WALK_YEARS = 2_000;
 export const DEFAULT_TRANSITION_LIMIT = 100_000;
 /** Largest `limit` of `listTransitions`. */
 export const MAX_TRANSITION_LIMIT = 10_000_000;
+
+// Business and recurrence limits (docs/design.md, "Limits").
+
+/** Most holidays one `listHolidays` call returns; longer ranges are listed a page (a narrower range) at a time. */
+export const MAX_LISTED_HOLIDAYS = 100_000;
+/** Longest search, in days, for a bank-holiday substitute day before a calendar gives up with an error. */
+export const MAX_SUBSTITUTE_SEARCH = 60;
+/** Consecutive years without a business day after which a search gives up with a 'no-business-day' error. */
+export const MAX_EMPTY_YEARS = 100;
+/** Most years of business-day bits a calendar keeps compiled at once (about 100 bytes a year). */
+export const MAX_WINDOW_YEARS = 4096;
+/**
+ * Most years a single business-day count or shift evaluates one by one, for calendars whose years do not repeat
+ * every 400 years (a Julian Easter rule, an Easter substitute day); beyond it the call throws 'limit-exceeded'.
+ * Calendars that repeat count any span of years at the cost of one 400-year cycle.
+ */
+export const MAX_EVALUATED_YEARS = 50_000;
+/** Largest total offset, in days, of an Easter or relative holiday rule from its base date. */
+export const MAX_RULE_OFFSET = 300;
+/**
+ * Largest `count` of a frequency rule whose occurrences repeat (a fixed step, or the 400-year Gregorian cycle):
+ * where its count ends is computed, not listed, at a cost that does not grow with the count.
+ */
+export const MAX_COUNT = 10_000_000;
+/**
+ * Largest `count` of a rule whose count is found by listing its occurrences: business-day selectors and steps,
+ * fiscal periods, wall-clock intraday steps, RFC 5545 times of day in a zone.
+ */
+export const MAX_LISTED_COUNT = 100_000;
+/** Most occurrences one list or bulk call returns by default (`maxCount`), and the most it may be raised to. */
+export const DEFAULT_MAX_OCCURRENCES = 1_000_000;
+export const MAX_OCCURRENCES = 10_000_000;
+/** Largest RFC 5545 INTERVAL accepted (RFC 5545 sets no upper bound). */
+export const MAX_RFC5545_INTERVAL = 1_000_000;
+/** Most periods a finance schedule may have. */
+export const MAX_SCHEDULE_PERIODS = 1_000_000;
+/** Largest `every` of a rule stepping by days, weeks or business days, and largest step of a schedule. */
+export const MAX_RULE_EVERY = 100_000;
+/** Largest `every` of a rule stepping by months, quarters, years or fiscal periods. */
+export const MAX_RULE_EVERY_PERIODS = 10_000;
+/** Farthest, in days, a business-day convention may move a date before a rule reports `no-business-day`. */
+export const MAX_ADJUSTMENT_DAYS = 4096;

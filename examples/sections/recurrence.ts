@@ -6,7 +6,8 @@ import {
   formatInstant,
   formatPlainDate,
   formatRecurrenceRule,
-  listOccurrences,
+  listOccurrenceDayNumbers,
+  listOccurrenceEpochMs,
   offsetSecondsFromEpochMs,
   weekdayOfDayNumber,
 } from '../../src/index.js';
@@ -32,12 +33,12 @@ export const section: DemoSection = {
       label: 'Supplier payments',
     });
     print(describeRule(suppliers));
-    print(`  ${listOccurrences(suppliers, '2026-01-01', '2026-07-01').map(day).join(', ')}`);
+    print(`  ${listOccurrenceDayNumbers(suppliers, '2026-01-01', '2026-07-01').map(day).join(', ')}`);
 
     // Hourly staff are paid every other Friday; a Friday that is a closing day pays the business day before.
     const biweekly = defineRule({ kind: 'weekly', weekdays: ['friday'], every: 2, anchor: '2026-01-09', calendar, convention: 'preceding', label: 'Hourly payroll' });
     print(describeRule(biweekly));
-    print(`  ${listOccurrences(biweekly, '2026-10-01', '2027-01-01').map(day).join(', ')}`);
+    print(`  ${listOccurrenceDayNumbers(biweekly, '2026-10-01', '2027-01-01').map(day).join(', ')}`);
     const plainBiweekly = defineRule({ kind: 'weekly', weekdays: ['friday'], every: 2, anchor: '2026-01-09', start: '2026-01-09' });
     print(`  the same Fridays as RFC 5545 text for the staff calendar (before adjustment):`);
     for (const line of formatRecurrenceRule(plainBiweekly).split('\n')) print(`    ${line}`);
@@ -45,7 +46,7 @@ export const section: DemoSection = {
     // Salaried staff are paid semi-monthly, on the 15th and the last day, moved to the business day before.
     const salaried = defineRule({ kind: 'semi-monthly', days: [15, 'last'], calendar, convention: 'preceding', label: 'Salaried payroll' });
     print(describeRule(salaried));
-    print(`  ${listOccurrences(salaried, '2026-11-01', '2027-01-01').map(day).join(', ')}`);
+    print(`  ${listOccurrenceDayNumbers(salaried, '2026-11-01', '2027-01-01').map(day).join(', ')}`);
 
     // The company's (invented) term loan: quarterly interest periods rolled back from maturity, short front stub.
     const loan = defineSchedule({
@@ -65,7 +66,7 @@ export const section: DemoSection = {
     // The roastery logs its ovens every 30 minutes on the Chicago wall clock; on 2026-03-08 clocks skip 02:00-03:00.
     const ovens = defineRule({ kind: 'intraday', zone: BOOKING_ZONE, every: { minutes: 30 }, anchor: '2026-03-08T00:00', clock: 'wall', skipped: 'drop' });
     print(describeRule(ovens));
-    const times = listOccurrences(ovens, '2026-03-08T07:00:00Z', '2026-03-08T09:30:00Z');
+    const times = listOccurrenceEpochMs(ovens, '2026-03-08T07:00:00Z', '2026-03-08T09:30:00Z');
     print(`  ${times.map((t) => formatInstant(t, { offsetSeconds: offsetSecondsFromEpochMs(BOOKING_ZONE, t) }).slice(11)).join(', ')}`);
     print('  (holiday calendars change by proclamation: verify payment dates against the official calendar)');
   },

@@ -5,27 +5,17 @@
  *
  * @module
  */
-import { MIN_YEAR } from '../bounds.js';
-import { packedYmdUnchecked, requireDayNumber } from '../civil/gregorian.js';
-import {
-  DefinitionError,
-  type DefinitionIssue,
-  KalendsRangeError,
-  KalendsTypeError,
-  describeValue,
-  requireInteger,
-} from '../errors.js';
-import {
-  BUSINESS_DAY_CONVENTIONS,
-  type BusinessDayConvention,
-  type CalendarDefinition,
-  WEEKDAY_NAMES,
-  type WeekdayName,
-} from './definition.js';
-import { isoDateFromDayNumber } from './dates.js';
+import { MAX_LISTED_HOLIDAYS } from '../bounds.js';
+import { monthIndexOfDayNumberUnchecked } from '../civil/names.js';
+import { yearOfDayNumberUnchecked } from '../civil/gregorian.js';
+import { isRecord, lookupName, ownField, requireDayNumberArgument, requireEnum, requireWhole } from '../diagnostics/index.js';
+import { DefinitionError, type DefinitionIssue, KalendsRangeError, KalendsTypeError, describeValue } from '../errors.js';
+import { formatPlainDate } from '../instant/index.js';
+import { WEEKDAY_NAMES, type WeekdayName } from '../civil/names.js';
+import { BUSINESS_DAY_CONVENTIONS, type BusinessDayConvention, type CalendarDefinition } from './definition.js';
 import { Engine } from './engine.js';
-import { BUNDLED_DEFINITIONS, suggestCalendarNames } from './jurisdictions/index.js';
-import { holidaysOfYear } from './rules.js';
+import { BUNDLED_CALENDAR_NAMES, BUNDLED_DEFINITIONS, suggestCalendarNames } from './jurisdictions/index.js';
+import { holidaysOfYear, mostHolidaysOfYears } from './rules.js';
 import { type CalendarNode, normalizeDefinition } from './validate.js';
 
 const ENGINE = Symbol('kalends.business.engine');
@@ -92,8 +82,8 @@ export class UnknownCalendarError extends KalendsRangeError {
   constructor(name: string, parameter: string) {
     const suggestions = suggestCalendarNames(name);
     super(
-      `${parameter}: unknown calendar ${describeValue(name)}${suggestions.length ? `; did you mean ${suggestions.map((s) => JSON.stringify(s)).join(' or ')}?` : ''} (bundled calendars: ${Object.keys(BUNDLED_DEFINITIONS).join(', ')})`,
-      { code: 'out-of-range', received: name },
+      `${parameter}: unknown calendar ${describeValue(name)}${suggestions.length ? `; did you mean ${suggestions.map((s) => JSON.stringify(s)).join(' or ')}?` : ''}; bundled calendars are ${BUNDLED_CALENDAR_NAMES.map((n) => JSON.stringify(n)).join(', ')} (or pass a calendar from defineCalendar)`,
+      { code: 'unknown-name', received: name },
     );
     this.name = 'UnknownCalendarError';
     this.suggestions = suggestions;
@@ -112,13 +102,13 @@ function deepFreeze<T>(value: T): T {
 function checkRemovals(node: CalendarNode, issues: DefinitionIssue[]): void {
   for (const m of node.members) checkRemovals(m, issues);
   for (const r of node.removals) {
-    const year = Math.floor(packedYmdUnchecked(r.dayNumber) / 512) + MIN_YEAR;
+    const year = yearOfDayNumberUnchecked(r.dayNumber);
     const list = holidaysOfYear(node, year, false);
     if (!list.some((h) => h.observed === r.dayNumber)) {
-      const shown = list.map((h) => isoDateFromDayNumber(h.observed)).join(', ');
+      const shown = list.map((h) => formatPlainDate(h.observed)).join(', ');
       issues.push({
         path: `${r.path}.date`,
-        message: `no holiday of this calendar is observed on ${isoDateFromDayNumber(r.dayNumber)}, so there is nothing to remove; holidays in ${year}: ${shown || '(none)'}`,
+        message: `no holiday of this calendar is observed on ${formatPlainDate(r.dayNumber)}, so there is nothing to remove; holidays in ${year}: ${shown || '(none)'}`,
       });
     }
   }
@@ -150,14 +140,18 @@ export function defineCalendar(definition: CalendarDefinition): BusinessCalendar
   }
   if (removalIssues.length) throw new DefinitionError(removalIssues, definition);
   const frozen = Object.isFrozen(definition) ? definition : deepFreeze(JSON.parse(JSON.stringify(definition)) as CalendarDefinition);
-  const id = typeof definition.id === 'string' ? definition.id : 'custom';
+  const own = (key: string): string | undefined => {
+    const v = isRecord(definition) ? ownField(definition, key) : undefined;
+    return typeof v === 'string' ? v : undefined;
+  };
+  const id = own('id') ?? (typeof definition === 'string' ? definition : 'custom');
   const weekend: number[] = [];
   for (let wd = 1; wd <= 7; wd++) if (node.weekendMask & (1 << wd)) weekend.push(wd);
   const calendar: Internal = {
     id,
-    name: definition.name,
-    source: definition.source,
-    caution: definition.caution,
+    name: own('name'),
+    source: own('source'),
+    caution: own('caution'),
     weekend: Object.freeze(weekend),
     weekendNames: Object.freeze(weekend.map((wd) => WEEKDAY_NAMES[wd - 1]!)),
     firstYear: node.firstYear,
@@ -182,32 +176,31 @@ const bundledCache = new Map<string, BusinessCalendar>();
  * ```
  */
 export function calendarFromName(name: string): BusinessCalendar {
+  return bundledCalendar(name, 'name');
+}
+
+function bundledCalendar(name: unknown, parameter: string): BusinessCalendar {
+  if (typeof name !== 'string') {
+    throw new KalendsTypeError(
+      `${parameter}: expected the name of a bundled calendar (${BUNDLED_CALENDAR_NAMES.map((n) => JSON.stringify(n)).join(', ')}), got ${describeValue(name)}`,
+      { code: 'invalid-type', received: name },
+    );
+  }
   const cached = bundledCache.get(name);
   if (cached) return cached;
-  if (typeof name !== 'string') {
-    throw new KalendsTypeError(`name: expected the name of a bundled calendar, got ${describeValue(name)}`, {
-      code: 'invalid-type',
-      received: name,
-    });
-  }
-  const def = (BUNDLED_DEFINITIONS as Readonly<Record<string, CalendarDefinition>>)[name];
-  if (!def || !Object.prototype.hasOwnProperty.call(BUNDLED_DEFINITIONS, name)) throw new UnknownCalendarError(name, 'name');
+  const def = lookupName<CalendarDefinition>(BUNDLED_DEFINITIONS, name);
+  if (!def) throw new UnknownCalendarError(name, parameter);
   const cal = defineCalendar(def);
   bundledCache.set(name, cal);
   return cal;
 }
 
 function engineOf(calendar: CalendarInput): Engine {
-  if (typeof calendar === 'string') {
-    const cached = bundledCache.get(calendar);
-    if (cached) return (cached as Internal)[ENGINE];
-    if (!Object.prototype.hasOwnProperty.call(BUNDLED_DEFINITIONS, calendar)) throw new UnknownCalendarError(calendar, 'calendar');
-    return (calendarFromName(calendar) as Internal)[ENGINE];
-  }
+  if (typeof calendar === 'string') return (bundledCalendar(calendar, 'calendar') as Internal)[ENGINE];
   const engine = typeof calendar === 'object' && calendar !== null ? (calendar as Internal)[ENGINE] : undefined;
   if (!engine) {
     throw new KalendsTypeError(
-      `calendar: expected a BusinessCalendar from defineCalendar or a bundled calendar name, got ${describeValue(calendar)}`,
+      `calendar: expected a BusinessCalendar from defineCalendar or a bundled calendar name (${BUNDLED_CALENDAR_NAMES.map((n) => JSON.stringify(n)).join(', ')}), got ${describeValue(calendar)}`,
       { code: 'invalid-type', received: calendar },
     );
   }
@@ -215,15 +208,26 @@ function engineOf(calendar: CalendarInput): Engine {
 }
 
 /** Validates a day number against the civil range and the calendar's years; `extra` allows one day past the end. */
-function requireDay(engine: Engine, dayNumber: number, name: string, extra = 0): number {
-  requireDayNumber(dayNumber, name);
-  if (dayNumber < engine.firstDay || dayNumber >= engine.endDay + extra) {
+function requireDay(engine: Engine, dayNumber: unknown, name: string, extra = 0): number {
+  requireDayNumberArgument(name, dayNumber);
+  const dn = dayNumber as number;
+  if (dn < engine.firstDay || dn >= engine.endDay + extra) {
     throw new KalendsRangeError(
-      `${name}: ${isoDateFromDayNumber(dayNumber)} (day number ${dayNumber}) is outside the years ${engine.firstYear}..${engine.lastYear} that calendar ${JSON.stringify(engine.label)} supports`,
-      { code: 'out-of-range', received: dayNumber },
+      `${name}: expected a day in the years ${engine.firstYear}..${engine.lastYear} that calendar ${JSON.stringify(engine.label)} supports, got ${dn} (${formatPlainDate(dn)}); use a calendar whose years cover it (its "years" field)`,
+      { code: 'out-of-range', received: dn },
     );
   }
-  return dayNumber;
+  return dn;
+}
+
+/** Refuses a range whose end comes before its start (ranges are end-exclusive: start === end is empty). */
+function requireOrderedRange(start: number, end: number): void {
+  if (end < start) {
+    throw new KalendsRangeError(`end: expected a day number not before start (${start}, ${formatPlainDate(start)}), got ${end} (${formatPlainDate(end)}); swap the two`, {
+      code: 'out-of-range',
+      received: end,
+    });
+  }
 }
 
 /**
@@ -283,7 +287,7 @@ export function previousBusinessDay(calendar: CalendarInput, dayNumber: number):
 export function shiftBusinessDays(calendar: CalendarInput, dayNumber: number, n: number): number {
   const e = engineOf(calendar);
   requireDay(e, dayNumber, 'dayNumber');
-  requireInteger('n', n, -Number.MAX_SAFE_INTEGER, Number.MAX_SAFE_INTEGER);
+  requireWhole('n', n, -Number.MAX_SAFE_INTEGER, Number.MAX_SAFE_INTEGER);
   return e.shift(dayNumber, n);
 }
 
@@ -306,9 +310,6 @@ export function countBusinessDays(calendar: CalendarInput, start: number, end: n
   return back === 0 ? 0 : -back;
 }
 
-function monthKey(dayNumber: number): number {
-  return packedYmdUnchecked(dayNumber) >> 5;
-}
 
 /**
  * Adjusts a date that may fall on a non-business day, by a business-day convention. The first three are the
@@ -327,23 +328,18 @@ function monthKey(dayNumber: number): number {
 export function adjustDayNumber(calendar: CalendarInput, dayNumber: number, convention: BusinessDayConvention): number {
   const e = engineOf(calendar);
   requireDay(e, dayNumber, 'dayNumber');
-  if (!BUSINESS_DAY_CONVENTIONS.includes(convention)) {
-    throw new KalendsRangeError(
-      `convention: expected one of ${BUSINESS_DAY_CONVENTIONS.join(', ')}, got ${describeValue(convention)}`,
-      { code: 'out-of-range', received: convention },
-    );
-  }
+  requireEnum('convention', convention, BUSINESS_DAY_CONVENTIONS);
   if (convention === 'none' || e.isBusinessDay(dayNumber)) return dayNumber;
   if (convention === 'following') return e.shift(dayNumber, 1);
   if (convention === 'preceding') return e.shift(dayNumber, -1);
   const forward = convention === 'modified-following';
-  const month = monthKey(dayNumber);
+  const month = monthIndexOfDayNumberUnchecked(dayNumber);
   const first = e.shift(dayNumber, forward ? 1 : -1);
-  if (monthKey(first) === month) return first;
+  if (monthIndexOfDayNumberUnchecked(first) === month) return first;
   const second = e.shift(dayNumber, forward ? -1 : 1);
-  if (monthKey(second) === month) return second;
+  if (monthIndexOfDayNumberUnchecked(second) === month) return second;
   throw new KalendsRangeError(
-    `${convention}: the month of ${isoDateFromDayNumber(dayNumber)} has no business day in calendar ${JSON.stringify(e.label)}, so the date cannot be adjusted within its month`,
+    `convention: ${JSON.stringify(convention)} keeps the date in its month, but the month of ${formatPlainDate(dayNumber)} has no business day in calendar ${JSON.stringify(e.label)}; use "following" or "preceding" to leave the month`,
     { code: 'no-business-day', received: dayNumber },
   );
 }
@@ -364,16 +360,20 @@ export function listHolidays(calendar: CalendarInput, start: number, end: number
   const e = engineOf(calendar);
   requireDay(e, start, 'start', 1);
   requireDay(e, end, 'end', 1);
-  if (end < start) {
-    throw new KalendsRangeError(`end: expected a day number not before start (${start}), got ${end}`, {
-      code: 'out-of-range',
-      received: end,
-    });
-  }
+  requireOrderedRange(start, end);
   const out: Holiday[] = [];
   if (end === start) return out;
-  const ya = Math.floor(packedYmdUnchecked(start) / 512) + MIN_YEAR;
-  const yb = Math.floor(packedYmdUnchecked(end - 1) / 512) + MIN_YEAR;
+  const ya = yearOfDayNumberUnchecked(start);
+  const yb = yearOfDayNumberUnchecked(end - 1);
+  // The cap is checked before anything is built, from the number of rule-years that can reach the range.
+  const most = mostHolidaysOfYears(e.node, ya, yb);
+  if (most > MAX_LISTED_HOLIDAYS) {
+    const years = Math.max(1, Math.floor((MAX_LISTED_HOLIDAYS * (yb - ya + 1)) / most));
+    throw new KalendsRangeError(
+      `end: the range ${formatPlainDate(start)}..${formatPlainDate(end)} can hold up to ${most} holidays of calendar ${JSON.stringify(e.label)}, more than the ${MAX_LISTED_HOLIDAYS} one list may return; list at most about ${years} years at a time (page with consecutive ranges)`,
+      { code: 'limit-exceeded', received: end },
+    );
+  }
   for (let y = ya; y <= yb; y++) {
     for (const h of holidaysOfYear(e.node, y)) {
       if (h.observed < start || h.observed >= end) continue;
@@ -381,8 +381,8 @@ export function listHolidays(calendar: CalendarInput, start: number, end: number
         Object.freeze({
           dayNumber: h.observed,
           actualDayNumber: h.actual,
-          date: isoDateFromDayNumber(h.observed),
-          actualDate: isoDateFromDayNumber(h.actual),
+          date: formatPlainDate(h.observed),
+          actualDate: formatPlainDate(h.actual),
           name: h.name,
           moved: h.observed !== h.actual,
           oneOff: h.oneOff,
@@ -408,13 +408,8 @@ export function nthBusinessDayOfRange(calendar: CalendarInput, start: number, en
   const e = engineOf(calendar);
   requireDay(e, start, 'start', 1);
   requireDay(e, end, 'end', 1);
-  if (end < start) {
-    throw new KalendsRangeError(`end: expected a day number not before start (${start}), got ${end}`, {
-      code: 'out-of-range',
-      received: end,
-    });
-  }
-  requireInteger('n', n, -Number.MAX_SAFE_INTEGER, Number.MAX_SAFE_INTEGER);
+  requireOrderedRange(start, end);
+  requireWhole('n', n, -Number.MAX_SAFE_INTEGER, Number.MAX_SAFE_INTEGER);
   if (n === 0) {
     throw new KalendsRangeError('n: expected a non-zero integer (1 is the first business day, -1 the last), got 0', {
       code: 'out-of-range',
@@ -424,7 +419,7 @@ export function nthBusinessDayOfRange(calendar: CalendarInput, start: number, en
   const available = e.countBetween(start, end);
   if (Math.abs(n) > available) {
     throw new KalendsRangeError(
-      `n: the range ${isoDateFromDayNumber(start)}..${isoDateFromDayNumber(end)} (end-exclusive) holds ${available} business days in calendar ${JSON.stringify(e.label)}, so there is no business day number ${n}`,
+      `n: the range ${formatPlainDate(start)}..${formatPlainDate(end)} (end-exclusive) holds ${available} business days in calendar ${JSON.stringify(e.label)}, so there is no business day number ${n}`,
       { code: 'no-business-day', received: n },
     );
   }
@@ -454,15 +449,18 @@ export interface PeriodLike {
  * ```
  */
 export function nthBusinessDayOfPeriod(calendar: CalendarInput, period: PeriodLike, n: number): number {
-  const unit = typeof period === 'object' && period !== null ? period.unit : undefined;
-  if (!unit || typeof unit.firstDayNumberFromOrdinal !== 'function' || typeof period.ordinal !== 'number') {
-    throw new KalendsTypeError(`period: expected a period { unit, ordinal } of the period layer, got ${describeValue(period)}`, {
-      code: 'invalid-type',
-      received: period,
-    });
+  const unit = typeof period === 'object' && period !== null ? (period.unit as unknown) : undefined;
+  const ordinal = typeof period === 'object' && period !== null ? (period.ordinal as unknown) : undefined;
+  const first = typeof unit === 'object' && unit !== null ? (unit as Record<string, unknown>)['firstDayNumberFromOrdinal'] : undefined;
+  if (typeof first !== 'function' || typeof ordinal !== 'number' || !Number.isInteger(ordinal)) {
+    throw new KalendsTypeError(
+      `period: expected a period { unit, ordinal } of the period layer (from periodFromDayNumber or parsePeriod), got ${describeValue(period)}`,
+      { code: 'invalid-type', received: period },
+    );
   }
-  const start = unit.firstDayNumberFromOrdinal(period.ordinal);
-  const end = unit.firstDayNumberFromOrdinal(period.ordinal + 1);
+  const u = unit as PeriodLike['unit'];
+  const start = u.firstDayNumberFromOrdinal(ordinal);
+  const end = u.firstDayNumberFromOrdinal(ordinal + 1);
   return nthBusinessDayOfRange(calendar, start, end, n);
 }
 

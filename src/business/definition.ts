@@ -6,37 +6,30 @@
  * @module
  */
 
-import type { WeekdayName } from '../period/definition.js';
+import type { WeekdayName } from '../civil/names.js';
 
-/** A weekday by its lowercase English name, as written in definitions (the period layer's type). */
+/** A weekday by its lowercase English name, as written in definitions (the civil layer's type). */
 export type { WeekdayName };
 
-/** Weekday names in ISO 8601 order: index 0 is Monday (ISO weekday 1). */
-export const WEEKDAY_NAMES: readonly WeekdayName[] = Object.freeze([
-  'monday',
-  'tuesday',
-  'wednesday',
-  'thursday',
-  'friday',
-  'saturday',
-  'sunday',
-]);
-
 /**
- * Where a holiday moves when its date falls on one of the weekend days its rule names. "Weekday" here means a
- * day outside the calendar's weekend.
+ * Where a holiday moves when its date falls on one of the weekend days its rule names. A "non-weekend day" is a
+ * day outside the calendar's weekend (it may still be another holiday, except for `substitute-day`).
  *
- * - `previous-weekday`: the nearest earlier weekday (Saturday -> Friday with a Saturday-Sunday weekend).
- * - `next-weekday`: the nearest later weekday (Sunday -> Monday).
- * - `nearest-weekday`: whichever of the two is closer; a tie goes to the later one.
+ * - `previous-non-weekend-day`: the nearest earlier day outside the weekend (Saturday -> Friday with a
+ *   Saturday-Sunday weekend).
+ * - `next-non-weekend-day`: the nearest later day outside the weekend (Sunday -> Monday).
+ * - `nearest-non-weekend-day`: whichever of the two is closer; a tie goes to the later one.
  * - `substitute-day`: the first later day that is neither a weekend day nor already a holiday (the actual date of
  *   another holiday of this calendar, or a substitute given earlier), as with bank-holiday substitute days.
+ *
+ * Renamed in 0.2: `previous-weekday`, `next-weekday` and `nearest-weekday` (the old words read wrongly next to a
+ * rule's `weekday: 'friday'`).
  */
-export type ObservanceShift = 'previous-weekday' | 'next-weekday' | 'nearest-weekday' | 'substitute-day';
+export type ObservanceShift = 'previous-non-weekend-day' | 'next-non-weekend-day' | 'nearest-non-weekend-day' | 'substitute-day';
 
 /**
  * Which weekend days move a holiday, and where to. Only the weekdays named here trigger a move: a rule with
- * `{ sunday: 'next-weekday' }` stays on a Saturday. Every key must be a weekend day of the calendar.
+ * `{ sunday: 'next-non-weekend-day' }` stays on a Saturday. Every key must be a weekend day of the calendar.
  */
 export type Observance = { readonly [day in WeekdayName]?: ObservanceShift };
 

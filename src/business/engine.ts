@@ -3,10 +3,13 @@
  * per year, plus a running count of business days before each word. A contiguous window of compiled years is
  * kept (compiled lazily, bounded to MAX_WINDOW_YEARS); inside it, the business days before any day are one
  * lookup and one popcount, and the kth business day is a binary search over the running counts, so counting and
- * shifting never walk day by day. Spans longer than the window are handled in window-sized chunks.
+ * shifting never walk day by day. Spans longer than the window are counted year by year, and where the
+ * calendar's years repeat every 400 years (./periodic.ts) by whole 400-year cycles, so that a count or a shift
+ * over the whole supported range costs one cycle's compilation.
  *
  * @module
  */
+import { MAX_EMPTY_YEARS, MAX_WINDOW_YEARS } from '../bounds.js';
 import {
   dayNumberFromYmdUnchecked,
   isLeapYearUnchecked,
@@ -14,21 +17,20 @@ import {
   yearOfDayNumberUnchecked,
 } from '../civil/gregorian.js';
 import { KalendsRangeError } from '../errors.js';
-import { isoDateFromDayNumber } from './dates.js';
+import { formatPlainDate } from '../instant/index.js';
+import { CYCLE_YEARS, type YearBudget, YearCounts } from './periodic.js';
 import { holidaysOfYear } from './rules.js';
 import type { CalendarNode } from './validate.js';
 
 /** Words of 32 days per compiled year (384 bits cover 366 days). */
 const WORDS = 12;
-/** Most years a calendar keeps compiled at once (about 100 bytes a year). */
-export const MAX_WINDOW_YEARS = 4096;
 /** Extra years compiled on each side when the window grows, so that nearby queries do not grow it again. */
 const MARGIN_YEARS = 8;
-/** Consecutive years without a business day after which a search gives up with a 'no-business-day' error. */
-export const MAX_EMPTY_YEARS = 100;
+/** Shifts of more business days than this skip whole years instead of growing the compiled window. */
+const LONG_SHIFT = 100_000;
 
 /** Number of set bits in a 32-bit word. */
-export function popcount32(x: number): number {
+function popcount32(x: number): number {
   x = x - ((x >>> 1) & 0x55555555);
   x = (x & 0x33333333) + ((x >>> 2) & 0x33333333);
   x = (x + (x >>> 4)) & 0x0f0f0f0f;
@@ -50,6 +52,11 @@ export class Engine {
   /** First supported day, and the day after the last one. */
   readonly firstDay: number;
   readonly endDay: number;
+  /** Weekend mask, and the number of days of the week outside the weekend. */
+  private readonly weekdaysPerWeek: number;
+  /** Business days of whole years (by 400-year cycles where the calendar repeats). */
+  private readonly years: YearCounts;
+  private readonly scratch = new Uint32Array(WORDS);
 
   constructor(
     readonly node: CalendarNode,
@@ -59,6 +66,10 @@ export class Engine {
   ) {
     this.firstDay = dayNumberFromYmdUnchecked(firstYear, 1, 1);
     this.endDay = dayNumberFromYmdUnchecked(lastYear + 1, 1, 1);
+    let w = 0;
+    for (let wd = 1; wd <= 7; wd++) if ((node.weekendMask & (1 << wd)) === 0) w++;
+    this.weekdaysPerWeek = w;
+    this.years = new YearCounts(node, label, (y) => this.yearCount(y));
   }
 
   /** Compiles one year's bits into `words` at `offset`. */
@@ -110,8 +121,10 @@ export class Engine {
     let newLo: number;
     let newHi: number;
     if (this.count > 0 && Math.max(hi, yHi) - Math.min(this.lo, yLo) + 1 <= MAX_WINDOW_YEARS) {
-      newLo = yLo < this.lo ? Math.max(this.firstYear, yLo - MARGIN_YEARS) : this.lo;
-      newHi = yHi > hi ? Math.min(this.lastYear, yHi + MARGIN_YEARS) : hi;
+      // Grow by at least half the window, so that a walk through many years recompiles in O(years) overall.
+      const margin = Math.max(MARGIN_YEARS, this.count >> 1);
+      newLo = yLo < this.lo ? Math.max(this.firstYear, yLo - margin) : this.lo;
+      newHi = yHi > hi ? Math.min(this.lastYear, yHi + margin) : hi;
     } else {
       newLo = Math.max(this.firstYear, yLo - MARGIN_YEARS);
       newHi = Math.min(this.lastYear, yHi + MARGIN_YEARS);
@@ -174,6 +187,16 @@ export class Engine {
    * before, n = 0 gives dn if it is a business day, else the next one.
    */
   shift(dn: number, n: number): number {
+    // A shift that must leave the supported years fails at once: there are at most as many business days as
+    // days outside the weekend.
+    if (n > 0 && n > this.nonWeekendDays(dn + 1, this.endDay)) throw this.pastEnd(dn, n, 'last', this.lastYear);
+    if (n < 0 && -n > this.nonWeekendDays(this.firstDay, dn)) throw this.pastEnd(dn, n, 'first', this.firstYear);
+    if (n > LONG_SHIFT || n < -LONG_SHIFT) return this.shiftFar(dn, n);
+    return this.shiftNear(dn, n);
+  }
+
+  /** {@link shift} by growing the compiled window as far as the count needs. */
+  private shiftNear(dn: number, n: number): number {
     const y = yearOfDayNumberUnchecked(dn);
     this.ensure(y, y);
     if (n > 0 || (n === 0 && !this.bit(dn))) {
@@ -344,25 +367,124 @@ export class Engine {
       this.ensure(ya, yb);
       return this.rank(b) - this.rank(a);
     }
-    let sum = 0;
-    for (let chunk = ya; chunk <= yb; chunk += MAX_WINDOW_YEARS) {
-      const chunkHi = Math.min(yb, chunk + MAX_WINDOW_YEARS - 1);
-      this.setWindow(chunk, chunkHi);
-      sum += (chunkHi === yb ? this.rank(b) : this.total) - (chunk === ya ? this.rank(a) : 0);
+    // The partial years at both ends through the window, the whole years between by years (or cycles).
+    const head = this.countInYear(a, dayNumberFromYmdUnchecked(ya + 1, 1, 1));
+    const middle = this.years.sum(ya + 1, yb - 1, { evaluated: 0, from: a, to: b });
+    return head + middle + this.countInYear(dayNumberFromYmdUnchecked(yb, 1, 1), b);
+  }
+
+  /** Business days in [a, b) where both lie in one year (b may be 1 January of the next). */
+  private countInYear(a: number, b: number): number {
+    if (a >= b) return 0;
+    const y = yearOfDayNumberUnchecked(a);
+    this.ensure(y, y);
+    return this.rank(b) - this.rank(a);
+  }
+
+  /** Days outside the weekend in [a, b): an upper bound on the business days there, by arithmetic. */
+  private nonWeekendDays(a: number, b: number): number {
+    if (a >= b) return 0;
+    const weeks = Math.floor((b - a) / 7);
+    let count = weeks * this.weekdaysPerWeek;
+    const mask = this.node.weekendMask;
+    let wd = weekdayOfDayNumberUnchecked(a);
+    for (let d = a + weeks * 7; d < b; d++) {
+      if ((mask & (1 << wd)) === 0) count++;
+      wd = wd === 7 ? 1 : wd + 1;
     }
-    return sum;
+    return count;
+  }
+
+  /** Business days of year y: from the window when it holds y, else compiled on its own. */
+  private yearCount(y: number): number {
+    if (this.count > 0 && y >= this.lo && y < this.lo + this.count) {
+      const w = (y - this.lo) * WORDS;
+      return this.cum[w + WORDS]! - this.cum[w]!;
+    }
+    const words = this.scratch;
+    this.compileYear(y, words, 0);
+    let c = 0;
+    for (let k = 0; k < WORDS; k++) c += popcount32(words[k]!);
+    return c;
+  }
+
+  /**
+   * {@link shift} for |n| > LONG_SHIFT: the business days left in dn's year, then whole years (whole 400-year
+   * cycles where the years repeat), then the day within the year where the count ends.
+   */
+  private shiftFar(dn: number, n: number): number {
+    const budget: YearBudget = { evaluated: 0, from: dn, to: dn };
+    const years = this.years;
+    let empty = 0;
+    if (n > 0) {
+      let y = yearOfDayNumberUnchecked(dn);
+      let left = n - this.countInYear(dn + 1, dayNumberFromYmdUnchecked(y + 1, 1, 1));
+      while (left > 0) {
+        y++;
+        if (y > this.lastYear) throw this.pastEnd(dn, n, 'last', this.lastYear);
+        const s = years.stretchOf(y);
+        if (s) {
+          const t = years.table(s[0]);
+          const room = Math.floor((Math.min(s[1], this.lastYear) - y + 1) / CYCLE_YEARS);
+          const q = t.total > 0 ? Math.min(room, Math.floor((left - 1) / t.total)) : 0;
+          if (q > 0) {
+            left -= q * t.total;
+            y += q * CYCLE_YEARS - 1;
+            empty = 0;
+            continue;
+          }
+        }
+        const c = years.of(y, budget);
+        if (left <= c) {
+          this.ensure(y, y);
+          return this.select(this.rank(dayNumberFromYmdUnchecked(y, 1, 1)) + left - 1);
+        }
+        left -= c;
+        empty = c === 0 ? empty + 1 : 0;
+        if (empty >= MAX_EMPTY_YEARS) throw this.noBusinessDay(dn, 'after');
+      }
+      // Only when n did not leave dn's year (not reached for |n| > LONG_SHIFT, kept for safety).
+      return this.shiftNear(dn, n);
+    }
+    let y = yearOfDayNumberUnchecked(dn);
+    let left = -n - this.countInYear(dayNumberFromYmdUnchecked(y, 1, 1), dn);
+    while (left > 0) {
+      y--;
+      if (y < this.firstYear) throw this.pastEnd(dn, n, 'first', this.firstYear);
+      const s = years.stretchOf(y);
+      if (s) {
+        const t = years.table(s[0]);
+        const room = Math.floor((y - Math.max(s[0], this.firstYear) + 1) / CYCLE_YEARS);
+        const q = t.total > 0 ? Math.min(room, Math.floor((left - 1) / t.total)) : 0;
+        if (q > 0) {
+          left -= q * t.total;
+          y -= q * CYCLE_YEARS - 1;
+          empty = 0;
+          continue;
+        }
+      }
+      const c = years.of(y, budget);
+      if (left <= c) {
+        this.ensure(y, y);
+        return this.select(this.rank(dayNumberFromYmdUnchecked(y + 1, 1, 1)) - left);
+      }
+      left -= c;
+      empty = c === 0 ? empty + 1 : 0;
+      if (empty >= MAX_EMPTY_YEARS) throw this.noBusinessDay(dn, 'before');
+    }
+    return this.shiftNear(dn, n);
   }
 
   private pastEnd(dn: number, n: number, which: 'first' | 'last', year: number): KalendsRangeError {
     return new KalendsRangeError(
-      `shifting ${isoDateFromDayNumber(dn)} by ${n} business days passes the ${which} year (${year}) that calendar ${JSON.stringify(this.label)} supports`,
+      `n: shifting ${formatPlainDate(dn)} by ${n} business days passes the ${which} year (${year}) that calendar ${JSON.stringify(this.label)} supports; use a smaller shift, or a calendar whose years reach further`,
       { code: 'out-of-range', received: n },
     );
   }
 
   private noBusinessDay(dn: number, where: 'after' | 'before'): KalendsRangeError {
     return new KalendsRangeError(
-      `calendar ${JSON.stringify(this.label)} has no business day within ${MAX_EMPTY_YEARS} years ${where} ${isoDateFromDayNumber(dn)}; its holidays cover every weekday`,
+      `calendar: ${JSON.stringify(this.label)} has no business day within ${MAX_EMPTY_YEARS} years ${where} ${formatPlainDate(dn)}; its holidays cover every day outside its weekend`,
       { code: 'no-business-day', received: dn },
     );
   }

@@ -4,7 +4,7 @@
  *
  * @module
  */
-import { MAX_YEAR, MIN_YEAR } from '../bounds.js';
+import { MAX_SUBSTITUTE_SEARCH, MAX_YEAR, MIN_YEAR } from '../bounds.js';
 import { EASTER_MIN_YEAR, JULIAN_EASTER_MIN_YEAR, easterDayNumberOfYear, julianEasterDayNumberOfYear } from '../civil/easter.js';
 import {
   dayNumberFromYmdUnchecked,
@@ -13,9 +13,8 @@ import {
   weekdayOfDayNumberUnchecked,
 } from '../civil/gregorian.js';
 import { KalendsRangeError } from '../errors.js';
-import { isoDateFromDayNumber } from './dates.js';
+import { formatPlainDate } from '../instant/index.js';
 import {
-  type CalendarNode,
   KIND_EASTER,
   KIND_FIXED,
   KIND_NTH,
@@ -28,10 +27,9 @@ import {
   SHIFT_NONE,
   SHIFT_PREVIOUS,
   SHIFT_SUBSTITUTE,
-} from './validate.js';
+} from './holiday-rules.js';
+import type { CalendarNode } from './validate.js';
 
-/** Longest search, in days, for a substitute day before giving up with an error. */
-export const MAX_SUBSTITUTE_SEARCH = 60;
 
 /** @internal One holiday as evaluated: where it is observed, where the rule put it, its name. */
 export interface HolidayInstance {
@@ -153,7 +151,7 @@ function ruleHolidays(node: CalendarNode, year: number, out: HolidayInstance[]):
           observed++;
           if (observed - c.actual > MAX_SUBSTITUTE_SEARCH) {
             throw new KalendsRangeError(
-              `${r.path}: no substitute day for ${JSON.stringify(r.name)} of ${isoDateFromDayNumber(c.actual)} within ${MAX_SUBSTITUTE_SEARCH} days; every later day is a weekend day or a holiday`,
+              `${r.path}: no substitute day for ${JSON.stringify(r.name)} of ${formatPlainDate(c.actual)} within ${MAX_SUBSTITUTE_SEARCH} days; every later day is a weekend day or a holiday`,
               { code: 'no-business-day', received: c.actual, path: r.path },
             );
           }
@@ -187,6 +185,26 @@ export function holidaysOfYear(node: CalendarNode, year: number, applyRemovals =
       list.push({ observed: a.dayNumber, actual: a.dayNumber, name: a.name, ruleId: undefined, oneOff: true });
     }
   }
-  // Stable sort keeps members first, then rules in date order, then additions, on equal dates.
+  // Stable sort keeps members first, then rules in date order, then additions, on equal dates (usually the list
+  // is in order already, and sorting it would only allocate).
+  let sorted = true;
+  for (let i = 1; i < list.length && sorted; i++) if (list[i]!.observed < list[i - 1]!.observed) sorted = false;
+  if (sorted) return list;
   return list.map((h, i) => ({ h, i })).sort((a, b) => a.h.observed - b.h.observed || a.i - b.i).map((x) => x.h);
+}
+
+/**
+ * @internal An upper bound on the holidays observed in the years [ya, yb], by counting alone: each rule gives at
+ * most one holiday per year it applies in (a holiday observed across New Year comes from the neighbouring year,
+ * hence one year of margin each side), plus the one-off additions. Nothing is evaluated.
+ */
+export function mostHolidaysOfYears(node: CalendarNode, ya: number, yb: number): number {
+  let most = 0;
+  for (const m of node.members) most += mostHolidaysOfYears(m, ya, yb);
+  for (const r of node.rules) {
+    const a = Math.max(ya - 1, r.from);
+    const b = Math.min(yb + 1, r.until);
+    if (b >= a) most += b - a + 1;
+  }
+  return most + node.additions.length;
 }

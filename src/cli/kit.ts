@@ -601,6 +601,7 @@ export function shellMessage(e: unknown, words: Readonly<Record<string, string>>
     const lead = /^([A-Za-z]+): /.exec(text);
     if (lead && (FUNCTION_NAMES.has(lead[1]!) || LEADING_PARAMETERS.has(lead[1]!))) text = text.slice(lead[0].length);
     text = text.replace(/\s*\(day number -?\d+\)/g, '');
+    text = text.replace(/\bgot -?\d+ \(([+-]?\d{4,6}-\d{2}-\d{2})\)/g, 'got $1');
     text = text.replace(/\b(wallMs|epochMs|dayNumber|startEpochMs|endEpochMs)\b/g, (w) => SHELL_WORDS[w]!);
     for (const [word, shell] of Object.entries(words)) text = text.split(word).join(shell);
   } else if (e instanceof Error) text = `internal error (${e.name}: ${e.message}); this is a defect in kalends, please report it with the command line`;

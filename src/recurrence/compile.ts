@@ -1,11 +1,23 @@
 /**
- * @internal Validation and compilation of rule definitions into engines.
+ * @internal Validation and compilation of rule definitions into engines, on the diagnostics kit: every fault is
+ * recorded with its dotted path, unknown keys and misspelled values get a suggestion.
  *
  * @module
  */
-import { MAX_DAY_NUMBER, MAX_EPOCH_MS, MIN_DAY_NUMBER, MIN_EPOCH_MS, MIN_YEAR, MS_PER_DAY } from '../bounds.js';
+import { MAX_COUNT, MAX_DAY_NUMBER, MAX_EPOCH_MS, MAX_RULE_EVERY, MAX_RULE_EVERY_PERIODS, MIN_DAY_NUMBER, MIN_EPOCH_MS, MS_PER_DAY } from '../bounds.js';
 import { describeValue } from '../errors.js';
-import { dayCountOfMonthUnchecked, packedYmdUnchecked, weekdayOfDayNumberUnchecked } from '../civil/gregorian.js';
+import { weekdayOfDayNumberUnchecked } from '../civil/gregorian.js';
+import {
+  WEEKDAY_NAMES,
+  dayCountOfMonthIndex,
+  dayOfPacked,
+  monthIndexOfDayNumberUnchecked,
+  monthIndexOfPacked,
+  titleOfWeekday,
+  weekdayFromName,
+} from '../civil/names.js';
+import { packedYmdUnchecked } from '../civil/gregorian.js';
+import { type Issues, checkKeys, didYouMean, isRecord, ownField, readEnum, readInt } from '../diagnostics/index.js';
 import {
   type BusinessOps,
   type Engine,
@@ -13,20 +25,15 @@ import {
   type Selector,
   type ZoneOps,
   businessDaysEngine,
-  daysEngine,
-  elapsedEngine,
+  stepEngine,
   mod,
-  monthIndexOf,
   monthsCycleGap,
   monthsEngine,
   periodsCycleGap,
   periodsEngine,
-  resolveWall,
-  wallClockEngine,
   weeklyEngine,
 } from './engine.js';
-import { businessOps, parsePlainDateTime, periodOps, toDayNumber, toEpochMs, zoneOps } from './deps.js';
-import { Issues, checkKeys, isRecord, readEnum, readInt, readWeekday } from './validate.js';
+import { businessOps, periodOps, toDayNumber, toEpochMs } from './deps.js';
 import type { Convention } from './types.js';
 
 /** Everything generation needs to know about a rule. */
@@ -38,10 +45,9 @@ export interface Compiled {
   readonly convention: Convention;
   /** Raw occurrences lie in [rawStart, rawEnd). */
   readonly rawStart: number;
-  readonly rawEnd: number;
+  rawEnd: number;
+  /** At most this many raw occurrences from `rawStart`; `rawEnd` is narrowed to the last of them when defined. */
   readonly count: number | undefined;
-  /** Occurrences (after adjustment) lie before this; set from `count` once it has been counted. */
-  countEnd: number;
   /** Values removed from the set (RFC 5545 EXDATE). */
   readonly exclude: ReadonlySet<number> | undefined;
   readonly zone: ZoneOps | undefined;
@@ -54,27 +60,43 @@ export const VALUE_END = { dates: MAX_DAY_NUMBER + 1, instants: MAX_EPOCH_MS + 1
 
 const CONVENTIONS: readonly Convention[] = ['following', 'modified-following', 'preceding', 'modified-preceding', 'none'];
 const COMMON_DATE_KEYS = ['kind', 'start', 'end', 'count', 'calendar', 'convention', 'label'];
-/** Largest `count` accepted: counting is done once, when the rule is defined. */
-export const MAX_COUNT = 10_000_000;
+
+/** ISO weekday number (1..7) of a weekday name or number, or NaN (recording the fault). */
+function readWeekday(v: unknown, path: string, issues: Issues): number {
+  if (typeof v === 'number' && Number.isInteger(v) && v >= 1 && v <= 7) return v;
+  const wd = weekdayFromName(v);
+  if (wd > 0) return wd;
+  issues.add(path, `expected a weekday "monday".."sunday" or an ISO weekday number 1..7, got ${describeValue(v)}${didYouMean(typeof v === 'string' ? v.toLowerCase() : v, WEEKDAY_NAMES)}`);
+  return Number.NaN;
+}
+
+/**
+ * @internal The message of a parser or coercion error, without the function name it starts with: it quotes the
+ * text given and says what is wrong, so it can follow a definition path.
+ */
+export function reasonOf(e: unknown): string {
+  return (e as Error).message.replace(/^[A-Za-z]+: /, '');
+}
 
 function readDate(obj: Record<string, unknown>, key: string, path: string, issues: Issues): number | undefined {
-  const v = obj[key];
+  const v = ownField(obj, key);
   if (v === undefined) return undefined;
   try {
     return toDayNumber(v);
   } catch (e) {
-    issues.add(path, `expected an ISO 8601 date such as "2025-01-31" or a day number, got ${describeValue(v)} (${(e as Error).message})`);
+    issues.add(path, `expected an ISO 8601 date such as "2025-01-31" or a day number; ${reasonOf(e)}`);
     return undefined;
   }
 }
 
-function readInstant(obj: Record<string, unknown>, key: string, path: string, issues: Issues): number | undefined {
-  const v = obj[key];
+/** @internal An optional instant field: RFC 3339 text or epoch milliseconds. */
+export function readInstant(obj: Record<string, unknown>, key: string, path: string, issues: Issues): number | undefined {
+  const v = ownField(obj, key);
   if (v === undefined) return undefined;
   try {
     return toEpochMs(v);
   } catch (e) {
-    issues.add(path, `expected an RFC 3339 instant such as "2025-03-09T06:00:00Z" or epoch milliseconds, got ${describeValue(v)} (${(e as Error).message})`);
+    issues.add(path, `expected an RFC 3339 instant such as "2025-03-09T06:00:00Z" or epoch milliseconds; ${reasonOf(e)}`);
     return undefined;
   }
 }
@@ -113,7 +135,7 @@ function readCommonDate(def: Record<string, unknown>, issues: Issues): CommonDat
   return { start, end, count, business, convention };
 }
 
-function readEvery(def: Record<string, unknown>, issues: Issues, max = 100_000): number {
+function readEvery(def: Record<string, unknown>, issues: Issues, max = MAX_RULE_EVERY): number {
   const v = def['every'];
   if (v === 0) {
     issues.add('every', `expected an integer of at least 1 (an interval of 0 would never move), got 0`);
@@ -195,20 +217,18 @@ function readSelectors(v: unknown, path: string, limits: SelectorLimits, hasCale
   return sel ? [sel] : undefined;
 }
 
-const WEEKDAY_WORDS = ['Monday', 'Tuesday', 'Wednesday', 'Thursday', 'Friday', 'Saturday', 'Sunday'];
-
 function describeSelectors(sels: readonly Selector[]): string {
   const nth = (n: number) => (n > 0 ? `number ${n}` : n === -1 ? 'the last' : `number ${-n} from the end`);
   return sels
-    .map((s) => (s.kind === 0 ? `day ${nth(s.n)}` : s.kind === 1 ? `${WEEKDAY_WORDS[s.weekday - 1]} ${nth(s.n)}` : `business day ${nth(s.n)}`))
+    .map((s) => (s.kind === 0 ? `day ${nth(s.n)}` : s.kind === 1 ? `${titleOfWeekday(s.weekday)} ${nth(s.n)}` : `business day ${nth(s.n)}`))
     .join(' or ');
 }
 
 /** The day selector implied by an anchor date: its day of the month, or the month end under `keepMonthEnd`. */
 function selectorFromAnchor(anchor: number, keepMonthEnd: boolean): Selector {
   const p = packedYmdUnchecked(anchor);
-  const day = p & 31;
-  const last = dayCountOfMonthUnchecked(Math.floor(p / 512) + MIN_YEAR, (p >> 5) & 15);
+  const day = dayOfPacked(p);
+  const last = dayCountOfMonthIndex(monthIndexOfPacked(p));
   if (keepMonthEnd && day === last) return { kind: 0, n: -1, weekday: 0, clamp: false };
   return { kind: 0, n: day, weekday: 0, clamp: true };
 }
@@ -241,7 +261,7 @@ function compileMonthFamily(def: Record<string, unknown>, kind: string, common: 
   } else {
     const extra = kind === 'monthly' ? ['months'] : ['month'];
     checkKeys(def, [...COMMON_DATE_KEYS, 'on', 'every', 'anchor', 'keepMonthEnd', ...extra], '', issues);
-    every = readEvery(def, issues, 10_000);
+    every = readEvery(def, issues, MAX_RULE_EVERY_PERIODS);
     anchor = readDate(def, 'anchor', 'anchor', issues) ?? common.start;
     if (def['keepMonthEnd'] !== undefined && typeof def['keepMonthEnd'] !== 'boolean') {
       issues.add('keepMonthEnd', `expected true or false, got ${describeValue(def['keepMonthEnd'])}`);
@@ -279,7 +299,7 @@ function compileMonthFamily(def: Record<string, unknown>, kind: string, common: 
   const step = length * every;
   let phase = 0;
   if (anchor !== undefined) {
-    phase = monthIndexOf(anchor);
+    phase = monthIndexOfDayNumberUnchecked(anchor);
     if (monthOfYear !== undefined) phase += mod(monthOfYear - 1 - phase, length);
   } else if (monthOfYear !== undefined) {
     phase = monthOfYear - 1;
@@ -303,7 +323,7 @@ function compileDays(def: Record<string, unknown>, common: CommonDate, issues: I
   const anchor = readDate(def, 'anchor', 'anchor', issues) ?? common.start;
   if (every > 1 && anchor === undefined) issues.add('anchor', `every ${every} days counts from an anchor: give "anchor" (or "start")`);
   if (Number.isNaN(every)) return undefined;
-  return daysEngine(anchor ?? 0, every);
+  return stepEngine(anchor ?? 0, every);
 }
 
 function compileBusinessDays(def: Record<string, unknown>, common: CommonDate, issues: Issues): Engine | undefined {
@@ -344,7 +364,7 @@ function compileWeekly(def: Record<string, unknown>, common: CommonDate, issues:
 
 function compilePeriods(def: Record<string, unknown>, common: CommonDate, issues: Issues): { engine: Engine; period: PeriodOps } | undefined {
   checkKeys(def, [...COMMON_DATE_KEYS, 'unit', 'on', 'every', 'anchor'], '', issues);
-  const every = readEvery(def, issues, 10_000);
+  const every = readEvery(def, issues, MAX_RULE_EVERY_PERIODS);
   const anchor = readDate(def, 'anchor', 'anchor', issues) ?? common.start;
   let period: PeriodOps | undefined;
   if (def['unit'] === undefined) issues.add('unit', 'expected a period unit (a compiled unit, a unit definition or a name such as "quarter"); got none');
@@ -415,84 +435,8 @@ export function compileCivilRule(def: Record<string, unknown>, issues: Issues): 
     rawStart: Math.max(common.start ?? MIN_DAY_NUMBER, common.business?.firstDay ?? MIN_DAY_NUMBER),
     rawEnd: Math.min(common.end ?? MAX_DAY_NUMBER + 1, common.business?.endDay ?? MAX_DAY_NUMBER + 1),
     count: common.count,
-    countEnd: MAX_DAY_NUMBER + 1,
     exclude: undefined,
     zone: undefined,
     period,
-  };
-}
-
-/** Compiles an intraday rule. */
-export function compileIntraday(def: Record<string, unknown>, issues: Issues): Compiled | undefined {
-  checkKeys(def, ['kind', 'zone', 'every', 'anchor', 'clock', 'skipped', 'repeated', 'start', 'end', 'count', 'label'], '', issues);
-  let zone: ZoneOps | undefined;
-  if (def['zone'] === undefined) issues.add('zone', 'expected an IANA zone id such as "America/Chicago" (or a zone); got none');
-  else {
-    try {
-      zone = zoneOps(def['zone'], 'zone');
-    } catch (e) {
-      issues.add('zone', (e as Error).message);
-    }
-  }
-  let stepMs = Number.NaN;
-  const every = def['every'];
-  if (!isRecord(every)) issues.add('every', `expected { "minutes": n } or { "hours": n }, got ${describeValue(every)}`);
-  else {
-    checkKeys(every, ['hours', 'minutes'], 'every', issues);
-    const h = readInt(every, 'hours', 'every.hours', 0, 24, issues, 0);
-    const m = readInt(every, 'minutes', 'every.minutes', 0, 1440, issues, 0);
-    if (!Number.isNaN(h) && !Number.isNaN(m)) {
-      stepMs = (h * 60 + m) * 60_000;
-      if (stepMs === 0) {
-        issues.add('every', `expected a step of at least one minute (an interval of 0 would never move), got ${describeValue(every)}`);
-        stepMs = Number.NaN;
-      } else if (stepMs > MS_PER_DAY) {
-        issues.add('every', `expected a step of at most 24 hours (use a date rule for longer steps), got ${h * 60 + m} minutes`);
-        stepMs = Number.NaN;
-      }
-    }
-  }
-  let anchorWall = Number.NaN;
-  if (typeof def['anchor'] !== 'string') issues.add('anchor', `expected a local date-time such as "2025-03-09T00:00", got ${describeValue(def['anchor'])}`);
-  else {
-    try {
-      anchorWall = parsePlainDateTime(def['anchor']);
-    } catch (e) {
-      issues.add('anchor', `expected a local date-time such as "2025-03-09T00:00", got ${describeValue(def['anchor'])} (${(e as Error).message})`);
-    }
-  }
-  const clock = readEnum(def, 'clock', 'clock', ['wall', 'elapsed'] as const, issues, undefined);
-  if (def['clock'] === undefined) issues.add('clock', 'state the clock: "wall" (steps of local wall-clock time) or "elapsed" (steps of absolute time); got none');
-  const skipped = readEnum(def, 'skipped', 'skipped', ['shift-forward', 'drop'] as const, issues, 'shift-forward');
-  const repeated = readEnum(def, 'repeated', 'repeated', ['earlier', 'both'] as const, issues, 'earlier');
-  if (clock === 'elapsed') {
-    for (const k of ['skipped', 'repeated']) {
-      if (def[k] !== undefined) issues.add(k, `applies only to clock "wall": elapsed steps are never skipped or repeated; got ${describeValue(def[k])}`);
-    }
-  }
-  const start = readInstant(def, 'start', 'start', issues);
-  const end = readInstant(def, 'end', 'end', issues);
-  if (start !== undefined && end !== undefined && end <= start) issues.add('end', `expected an instant after start, got ${describeValue(def['end'])}`);
-  const countRaw = readInt(def, 'count', 'count', 1, MAX_COUNT, issues, Number.NaN);
-  const count = Number.isNaN(countRaw) ? undefined : countRaw;
-  if (count !== undefined && def['start'] === undefined) issues.add('count', `counts occurrences from start, so start is required; got count ${count} without start`);
-  if (def['label'] !== undefined && typeof def['label'] !== 'string') issues.add('label', `expected a string, got ${describeValue(def['label'])}`);
-  if (!issues.ok || !zone || Number.isNaN(stepMs) || Number.isNaN(anchorWall) || !clock) return undefined;
-  const engine =
-    clock === 'elapsed'
-      ? elapsedEngine(resolveWall(zone, anchorWall).earlier, stepMs)
-      : wallClockEngine(zone, anchorWall, stepMs, skipped === 'drop', repeated === 'both');
-  return {
-    values: 'instants',
-    engine,
-    business: undefined,
-    convention: 'none',
-    rawStart: start ?? MIN_EPOCH_MS,
-    rawEnd: end ?? MAX_EPOCH_MS + 1,
-    count,
-    countEnd: MAX_EPOCH_MS + 1,
-    exclude: undefined,
-    zone,
-    period: undefined,
   };
 }

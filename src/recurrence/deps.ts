@@ -4,7 +4,7 @@
  *
  * @module
  */
-import { KalendsTypeError, describeValue } from '../errors.js';
+import { KalendsRangeError, KalendsTypeError, describeValue } from '../errors.js';
 import { dayNumberFromYmdUnchecked } from '../civil/gregorian.js';
 import {
   formatInstant,
@@ -16,7 +16,11 @@ import {
   toDayNumber,
   toEpochMs,
 } from '../instant/index.js';
-import { type Zone, offsetSecondsFromEpochMs, toZone } from '../zone/index.js';
+import { type Zone, nextTransition, offsetSecondsFromEpochMs, toZone } from '../zone/index.js';
+import { MIN_EPOCH_MS } from '../bounds.js';
+
+/** Most zone transitions one check walks before answering "may". */
+const MAX_TRANSITIONS_WALKED = 100_000;
 import { type PeriodUnit, toUnit } from '../period/index.js';
 import {
   type BusinessCalendar,
@@ -26,6 +30,7 @@ import {
   defineCalendar,
   isBusinessDay,
   nthBusinessDayOfRange,
+  shiftBusinessDays,
 } from '../business/index.js';
 import { appendBusinessDaysUnchecked, nthBusinessDayInRangeUnchecked } from '../business/calendar.js';
 import type { BusinessOps, PeriodOps, ZoneOps } from './engine.js';
@@ -64,6 +69,15 @@ export function businessOps(input: unknown, path: string): BusinessOps {
     countBusinessDays: (a, b) => countBusinessDays(cal, a, b),
     nthInRangeUnchecked: (a, b, n) => nthBusinessDayInRangeUnchecked(cal, a, b, n),
     appendBusinessDaysUnchecked: (a, b, out) => appendBusinessDaysUnchecked(cal, a, b, out),
+    shiftOrNaN: (dn, n) => {
+      try {
+        return shiftBusinessDays(cal, dn, n);
+      } catch (e) {
+        // Only "passes the first or last year" means "not within the calendar"; anything else is reported.
+        if (e instanceof KalendsRangeError && e.code === 'out-of-range') return Number.NaN;
+        throw e;
+      }
+    },
     nthBusinessDayOfRange: (a, b, n) => {
       try {
         return nthBusinessDayOfRange(cal, a, b, n);
@@ -88,5 +102,20 @@ export function periodOps(input: unknown, path: string): PeriodOps {
 /** A zone from a compiled zone or an id (IANA id, "UTC", or a fixed offset such as "+05:30"). */
 export function zoneOps(input: unknown, path: string): ZoneOps {
   const zone = toZone(input as never, path);
-  return { id: zone.id, zone, offsetSecondsFromEpochMs: (ms) => offsetSecondsFromEpochMs(zone, ms) };
+  return {
+    id: zone.id,
+    zone,
+    offsetSecondsFromEpochMs: (ms) => offsetSecondsFromEpochMs(zone, ms),
+    mayJumpHalfADay: (startMs, endMs) => {
+      // Walk the transitions (about two a year where daylight saving is kept); give up, saying "may", after many.
+      let t = Math.max(startMs, MIN_EPOCH_MS);
+      for (let seen = 0; seen < MAX_TRANSITIONS_WALKED; seen++) {
+        const next = nextTransition(zone, t);
+        if (next === null || next.epochMs >= endMs) return false;
+        if (Math.abs(next.offsetAfterSeconds - next.offsetBeforeSeconds) >= 43_200) return true;
+        t = next.epochMs;
+      }
+      return true;
+    },
+  };
 }

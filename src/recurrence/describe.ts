@@ -3,19 +3,18 @@
  *
  * @module
  */
+import { titleOfWeekday, weekdayFromName } from '../civil/names.js';
 import { compiledOf } from './generate.js';
 import { formatPlainDate, toDayNumber } from './deps.js';
 import type { Rule } from './types.js';
 
-const WEEKDAYS = ['Monday', 'Tuesday', 'Wednesday', 'Thursday', 'Friday', 'Saturday', 'Sunday'];
-const WEEKDAY_KEYS = ['monday', 'tuesday', 'wednesday', 'thursday', 'friday', 'saturday', 'sunday'];
 const MONTHS = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'];
 const ORDINAL_WORDS = ['', 'first', 'second', 'third', 'fourth', 'fifth'];
 
 type Loose = Record<string, unknown>;
 
 /** "1st", "2nd", "23rd", "111th". */
-export function ordinalSuffix(n: number): string {
+function ordinalSuffix(n: number): string {
   const t = n % 100;
   if (t >= 11 && t <= 13) return `${n}th`;
   const u = n % 10;
@@ -27,9 +26,8 @@ function nthWord(n: number): string {
 }
 
 function weekdayOf(v: unknown): string {
-  if (typeof v === 'number') return WEEKDAYS[v - 1] ?? String(v);
-  const i = WEEKDAY_KEYS.indexOf(String(v));
-  return i >= 0 ? WEEKDAYS[i]! : String(v);
+  const wd = typeof v === 'number' && Number.isInteger(v) && v >= 1 && v <= 7 ? v : weekdayFromName(v);
+  return wd > 0 ? titleOfWeekday(wd) : String(v);
 }
 
 function list(items: readonly string[]): string {
@@ -43,7 +41,7 @@ function fromEnd(n: number, noun: string): string {
 }
 
 /** Words for one day selector. */
-export function describeSelector(s: Loose, periodNoun: string): string {
+function describeSelector(s: Loose, periodNoun: string): string {
   if (s['day'] !== undefined) {
     const n = s['day'] === 'last' ? -1 : (s['day'] as number);
     const base = n > 0 ? `the ${ordinalSuffix(n)}` : fromEnd(n, 'day');
@@ -207,7 +205,12 @@ export function describeRule(rule: Rule): string {
         text = `every ${step} of elapsed time from ${String(d['anchor'])} ${zone} (daylight-saving changes shift the local times; no step is skipped or repeated)`;
       } else {
         const gap = d['skipped'] === 'drop' ? 'a time skipped by a daylight-saving gap is dropped' : 'a time skipped by a daylight-saving gap moves forward by the length of the gap';
-        const fold = d['repeated'] === 'both' ? 'a repeated time happens twice' : 'a repeated time happens once, at its earlier instant';
+        const fold =
+          d['repeated'] === 'both'
+            ? 'a repeated time happens twice'
+            : d['repeated'] === 'later'
+              ? 'a repeated time happens once, at its later instant'
+              : 'a repeated time happens once, at its earlier instant';
         text = `every ${step} on the ${zone} wall clock from ${String(d['anchor'])}; ${gap}; ${fold}`;
       }
       break;

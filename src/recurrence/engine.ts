@@ -1,19 +1,25 @@
 /**
- * @internal The expansion engines behind every rule. An engine writes its raw occurrences in a half-open range
- * `[lo, hi)` in strictly increasing order, computing each one directly (anchor + n x step, or the n-th period's
- * selected day): nothing is found by adding a step repeatedly, and every loop is bounded by the range.
+ * @internal The expansion engines behind every date rule. An engine writes its raw occurrences in a half-open
+ * range `[lo, hi)` in strictly increasing order, computing each one directly (anchor + n x step, or the n-th
+ * period's selected day): nothing is found by adding a step repeatedly, and every loop is bounded by the range.
+ * Engines whose occurrences repeat (a fixed step, or the 400-year Gregorian cycle) can also locate their k-th
+ * occurrence from a point without listing the ones before it; a rule's `count` is found that way. The engines
+ * of instants are in ./engine-instants.ts.
  *
  * Units are day numbers for date engines and epoch milliseconds for instant engines.
  *
  * @module
  */
+import { dayNumberFromYmdUnchecked, dayCountOfMonthUnchecked, weekdayOfDayNumberUnchecked } from '../civil/gregorian.js';
 import {
-  dayNumberFromYmdUnchecked,
-  dayCountOfMonthUnchecked,
-  packedYmdUnchecked,
-  weekdayOfDayNumberUnchecked,
-} from '../civil/gregorian.js';
-import { MAX_DAY_NUMBER, MIN_DAY_NUMBER, MIN_YEAR, MS_PER_DAY } from '../bounds.js';
+  dayCountOfMonthIndex,
+  firstDayNumberOfMonthIndex,
+  monthIndexFromYearMonth,
+  monthIndexOfDayNumberUnchecked,
+  monthOfMonthIndex,
+  yearOfMonthIndex,
+} from '../civil/names.js';
+import { MAX_DAY_NUMBER, MIN_DAY_NUMBER } from '../bounds.js';
 
 /** A growable buffer of numbers: one allocation per doubling, none per element. */
 export class Sink {
@@ -42,6 +48,12 @@ export class Sink {
 export interface Engine {
   /** Appends the occurrences in [lo, hi) in strictly increasing order. */
   fill(lo: number, hi: number, out: Sink): void;
+  /**
+   * The occurrence number k (0 = the first) at or after `lo`, found without listing the ones before it (cost
+   * independent of k); NaN when it would lie at or after `end`. Undefined (or a missing method) when this engine
+   * cannot locate it there, and the caller must list.
+   */
+  locate?(lo: number, k: number, end: number): number | undefined;
   /** Typical distance between occurrences (units), to size search windows. */
   readonly stride: number;
   /**
@@ -71,6 +83,8 @@ export interface BusinessOps {
   nthInRangeUnchecked(start: number, end: number, n: number): number;
   /** Fast path of the engines: pushes the business days in [start, end) to `out`. Unchecked, as above. */
   appendBusinessDaysUnchecked(start: number, end: number, out: Sink): void;
+  /** The business day n business days from `dayNumber` (as shiftBusinessDays), or NaN when it lies outside the calendar's years. */
+  shiftOrNaN(dayNumber: number, n: number): number;
   /** The compiled calendar, for definitions that are serialized again. */
   readonly calendar: unknown;
 }
@@ -87,6 +101,11 @@ export interface PeriodOps {
 export interface ZoneOps {
   readonly id: string;
   offsetSecondsFromEpochMs(epochMs: number): number;
+  /**
+   * True when the zone's offset may change by 12 hours or more at once within [startMs, endMs) (a zone that moved
+   * across the date line skips or repeats a whole calendar day), or when that cannot be told cheaply.
+   */
+  mayJumpHalfADay(startMs: number, endMs: number): boolean;
   readonly zone: unknown;
 }
 
@@ -96,32 +115,44 @@ export function mod(a: number, n: number): number {
   return r < 0 ? r + n : r;
 }
 
-function gcd(a: number, b: number): number {
+/** Greatest common divisor of two positive integers. */
+export function gcd(a: number, b: number): number {
   while (b !== 0) [a, b] = [b, a % b];
   return Math.abs(a);
 }
 
 /** Months in one 400-year Gregorian cycle: the calendar (and its weekdays) repeats after it. */
-export const CYCLE_MONTHS = 4800;
+const CYCLE_MONTHS = 4800;
 /** Days in one 400-year Gregorian cycle (146,097 = 20,871 weeks). */
 export const CYCLE_DAYS = 146_097;
-/** Index of the month that holds a day number: year * 12 + (month - 1). */
-export function monthIndexOf(dayNumber: number): number {
-  const p = packedYmdUnchecked(dayNumber);
-  return (Math.floor(p / 512) + MIN_YEAR) * 12 + ((p >> 5) & 15) - 1;
+const MIN_MONTH_INDEX = monthIndexOfDayNumberUnchecked(MIN_DAY_NUMBER);
+const MAX_MONTH_INDEX = monthIndexOfDayNumberUnchecked(MAX_DAY_NUMBER);
+
+/**
+ * The occurrence number k at or after `lo` of an engine whose occurrences repeat every `cycle` units: one cycle
+ * is listed, then whole cycles are counted. Near the ends of the supported values (where a period of the
+ * pattern may be cut short) it lists directly, at most two cycles; near the start it declines (undefined).
+ */
+export function locateByCycle(engine: Engine, cycle: number, lo: number, k: number, end: number, min: number): number | undefined {
+  if (lo - min < cycle) return undefined;
+  const sink = new Sink(64);
+  if (lo + 2 * cycle >= end) {
+    engine.fill(lo, end, sink);
+    return k < sink.length ? sink.data[k]! : Number.NaN;
+  }
+  engine.fill(lo, lo + cycle, sink);
+  const per = sink.length;
+  if (per === 0) return Number.NaN;
+  const q = Math.floor(k / per);
+  const base = lo + q * cycle;
+  if (base + 2 * cycle >= end) {
+    sink.clear();
+    engine.fill(base, end, sink);
+    const i = k - q * per;
+    return i < sink.length ? sink.data[i]! : Number.NaN;
+  }
+  return sink.data[k - q * per]! + q * cycle;
 }
-/** First day number of month index `mi`. */
-export function firstDayOfMonthIndex(mi: number): number {
-  const y = Math.floor(mi / 12);
-  return dayNumberFromYmdUnchecked(y, mi - y * 12 + 1, 1);
-}
-/** Length in days of month index `mi`. */
-export function lengthOfMonthIndex(mi: number): number {
-  const y = Math.floor(mi / 12);
-  return dayCountOfMonthUnchecked(y, mi - y * 12 + 1);
-}
-const MIN_MONTH_INDEX = monthIndexOf(MIN_DAY_NUMBER);
-const MAX_MONTH_INDEX = monthIndexOf(MAX_DAY_NUMBER);
 
 // ---------------------------------------------------------------------------------------------------------------
 // Day selectors
@@ -138,10 +169,10 @@ export interface Selector {
 }
 
 /** Marks "no day selected". */
-export const NONE = Number.MIN_SAFE_INTEGER;
+const NONE = Number.MIN_SAFE_INTEGER;
 
 /** The day `s` picks in the period [first, end), or NONE. */
-export function pickDay(s: Selector, first: number, end: number, business: BusinessOps | undefined): number {
+function pickDay(s: Selector, first: number, end: number, business: BusinessOps | undefined): number {
   if (s.kind === 0) {
     if (s.n > 0) {
       const d = first + s.n - 1;
@@ -211,14 +242,18 @@ function selectsSomething(selectors: readonly Selector[], first: number, end: nu
 // ---------------------------------------------------------------------------------------------------------------
 // Date engines
 
-/** Every `step` days from `anchor`. */
-export function daysEngine(anchor: number, step: number): Engine {
+/** Every `step` units (days, or milliseconds of elapsed time) from `anchor`, in both directions. */
+export function stepEngine(anchor: number, step: number): Engine {
   return {
     stride: step,
     maxGap: step,
     fill(lo, hi, out) {
       let k = Math.ceil((lo - anchor) / step);
       for (let d = anchor + k * step; d < hi; d = anchor + ++k * step) out.push(d);
+    },
+    locate(lo, k, end) {
+      const d = anchor + (Math.ceil((lo - anchor) / step) + k) * step;
+      return d < end ? d : Number.NaN;
     },
   };
 }
@@ -258,6 +293,15 @@ export function businessDaysEngine(cal: BusinessOps, anchor: number, step: numbe
         index++;
       }
     },
+    locate(lo, k, end) {
+      if (lo < cal.firstDay || lo >= cal.endDay) return undefined;
+      // The first business day on or after lo, its index from the anchor, then whole steps of business days.
+      const first = cal.shiftOrNaN(lo, 0);
+      if (first !== first) return Number.NaN;
+      const index = first >= anchor ? cal.countBusinessDays(anchor, first) : -cal.countBusinessDays(first, anchor);
+      const d = cal.shiftOrNaN(first, mod(-index, step) + k * step);
+      return d === d && d < end ? d : Number.NaN;
+    },
   };
 }
 
@@ -276,6 +320,16 @@ export function weeklyEngine(weekZero: number, offsets: readonly number[], step:
         }
       }
     },
+    locate(lo, k, end) {
+      // Occurrences in lo's span before lo, then k more from the span's first one.
+      const w = Math.floor((lo - weekZero) / span);
+      const base = weekZero + w * span;
+      let before = 0;
+      while (before < offsets.length && base + offsets[before]! < lo) before++;
+      const i = before + k;
+      const d = base + Math.floor(i / offsets.length) * span + offsets[i % offsets.length]!;
+      return d < end ? d : Number.NaN;
+    },
   };
 }
 
@@ -292,18 +346,21 @@ export function monthsEngine(
   maxGapMonths: number,
 ): Engine {
   const scratch: number[] = [];
-  return {
+  // Without business-day selectors the months repeat with the 400-year cycle: every lcm(step, 4,800) months.
+  const civil = selectors.every((s) => s.kind !== 2);
+  const cycleDays = (step / gcd(step, CYCLE_MONTHS)) * CYCLE_DAYS;
+  const engine: Engine = {
     stride: (30.44 * step) / selectors.length,
     maxGap: Number.isFinite(maxGapMonths) ? (maxGapMonths + 1) * 31 : Number.POSITIVE_INFINITY,
     fill(lo, hi, out) {
       if (lo >= hi) return;
-      const miLo = Math.max(monthIndexOf(lo), MIN_MONTH_INDEX);
-      const miHi = Math.min(monthIndexOf(hi - 1), MAX_MONTH_INDEX);
+      const miLo = Math.max(monthIndexOfDayNumberUnchecked(lo), MIN_MONTH_INDEX);
+      const miHi = Math.min(monthIndexOfDayNumberUnchecked(hi - 1), MAX_MONTH_INDEX);
       let mi = miLo + mod(phase - miLo, step);
       if (mi > miHi) return;
       // Walk the months by year and month, carrying the first day forward (no division per month).
-      let y = Math.floor(mi / 12);
-      let m = mi - y * 12 + 1;
+      let y = yearOfMonthIndex(mi);
+      let m = monthOfMonthIndex(mi);
       let first = dayNumberFromYmdUnchecked(y, m, 1);
       const one = selectors.length === 1 ? selectors[0]! : undefined;
       for (;;) {
@@ -323,13 +380,15 @@ export function monthsEngine(
             y++;
           }
         } else {
-          y = Math.floor(mi / 12);
-          m = mi - y * 12 + 1;
+          y = yearOfMonthIndex(mi);
+          m = monthOfMonthIndex(mi);
           first = dayNumberFromYmdUnchecked(y, m, 1);
         }
       }
     },
   };
+  if (civil) engine.locate = (lo, k, end) => locateByCycle(engine, cycleDays, lo, k, end, MIN_DAY_NUMBER);
+  return engine;
 }
 
 /**
@@ -341,16 +400,17 @@ export function monthsEngine(
 export function monthsCycleGap(step: number, phase: number, monthMask: number, selectors: readonly Selector[]): number {
   const civil = selectors.map((s) => (s.kind === 2 ? { ...s, kind: 0 as const, clamp: false, n: s.n > 0 ? 1 : -1 } : s));
   const candidates = CYCLE_MONTHS / gcd(step, CYCLE_MONTHS);
-  const base = 2000 * 12 + mod(phase - 2000 * 12, step);
+  const y2000 = monthIndexFromYearMonth(2000, 1);
+  const base = y2000 + mod(phase - y2000, step);
   let firstHit = -1;
   let lastHit = -1;
   let maxGap = 0;
   for (let k = 0; k < candidates; k++) {
     const mi = base + k * step;
-    const m = mod(mi, 12) + 1;
+    const m = monthOfMonthIndex(mi);
     if (monthMask !== 0 && ((monthMask >> m) & 1) === 0) continue;
-    const first = firstDayOfMonthIndex(mi);
-    if (!selectsSomething(civil, first, first + lengthOfMonthIndex(mi), undefined)) continue;
+    const first = firstDayNumberOfMonthIndex(mi);
+    if (!selectsSomething(civil, first, first + dayCountOfMonthIndex(mi), undefined)) continue;
     if (firstHit < 0) firstHit = k;
     else maxGap = Math.max(maxGap, k - lastHit);
     lastHit = k;
@@ -411,120 +471,3 @@ export function periodsCycleGap(unit: PeriodOps, step: number, anchorOrdinal: nu
   return Math.max(gap, first + (stopDay - startDay) - last) + 62;
 }
 
-// ---------------------------------------------------------------------------------------------------------------
-// Instants
-
-/** How a wall-clock time maps to instants in a zone: one instant, a gap, or an overlap with two. */
-export interface WallResolution {
-  /** 0 = unique, 1 = in a gap (skipped), 2 = in an overlap (repeated). */
-  readonly state: 0 | 1 | 2;
-  /** Unique: the instant; gap: the instant shifted forward by the gap; overlap: the earlier instant. */
-  readonly earlier: number;
-  /** Overlap: the later instant; otherwise the same as `earlier`. */
-  readonly later: number;
-}
-
-const resolution = { state: 0 as 0 | 1 | 2, earlier: 0, later: 0 };
-
-/**
- * Resolves a wall time by probing the zone's offsets a day before and after (the approach of Temporal's
- * GetPossibleEpochNanoseconds), so that only `offsetSecondsFromEpochMs` is needed. Returns a shared object: copy it.
- */
-export function resolveWall(zone: ZoneOps, wallMs: number): WallResolution {
-  const before = zone.offsetSecondsFromEpochMs(wallMs - MS_PER_DAY) * 1000;
-  const after = zone.offsetSecondsFromEpochMs(wallMs + MS_PER_DAY) * 1000;
-  const e1 = wallMs - before;
-  const e2 = wallMs - after;
-  const ok1 = zone.offsetSecondsFromEpochMs(e1) * 1000 === before;
-  const ok2 = before !== after && zone.offsetSecondsFromEpochMs(e2) * 1000 === after;
-  if (ok1 && ok2) {
-    resolution.state = 2;
-    resolution.earlier = Math.min(e1, e2);
-    resolution.later = Math.max(e1, e2);
-  } else if (ok1 || ok2) {
-    resolution.state = 0;
-    resolution.earlier = resolution.later = ok1 ? e1 : e2;
-  } else if (before === after) {
-    // Two transitions within two days: fall back to the offset at the first guess.
-    const e = wallMs - zone.offsetSecondsFromEpochMs(e1) * 1000;
-    resolution.state = 0;
-    resolution.earlier = resolution.later = e;
-  } else {
-    // In a gap: read the wall time with the offset in force before the gap (RFC 5545 section 3.3.5; Temporal
-    // 'compatible'), which lands after the transition by the length of the gap.
-    resolution.state = 1;
-    resolution.earlier = resolution.later = e1;
-  }
-  return resolution;
-}
-
-/** Fixed steps of absolute time from `anchorMs`. */
-export function elapsedEngine(anchorMs: number, stepMs: number): Engine {
-  return {
-    stride: stepMs,
-    maxGap: stepMs,
-    fill(lo, hi, out) {
-      let k = Math.ceil((lo - anchorMs) / stepMs);
-      for (let t = anchorMs + k * stepMs; t < hi; t = anchorMs + ++k * stepMs) out.push(t);
-    },
-  };
-}
-
-/** Steps of wall-clock time from `anchorWallMs`, resolved in `zone` with the stated gap and overlap rules. */
-export function wallClockEngine(zone: ZoneOps, anchorWallMs: number, stepMs: number, dropSkipped: boolean, repeatTwice: boolean): Engine {
-  const scratch: number[] = [];
-  return {
-    stride: stepMs,
-    // A step can vanish in a gap (dropped) and gaps are shorter than a day.
-    maxGap: stepMs + MS_PER_DAY,
-    fill(lo, hi, out) {
-      if (lo >= hi) return;
-      // Every instant in [lo, hi) has a wall time within a day of it (offsets are below 24 hours).
-      const wLo = lo - MS_PER_DAY;
-      const wHi = hi + MS_PER_DAY;
-      scratch.length = 0;
-      let k = Math.ceil((wLo - anchorWallMs) / stepMs);
-      for (let w = anchorWallMs + k * stepMs; w < wHi; w = anchorWallMs + ++k * stepMs) {
-        const r = resolveWall(zone, w);
-        if (r.state === 1 && dropSkipped) continue;
-        if (r.earlier >= lo && r.earlier < hi) scratch.push(r.earlier);
-        if (r.state === 2 && repeatTwice && r.later >= lo && r.later < hi) scratch.push(r.later);
-      }
-      let sorted = true;
-      for (let i = 1; i < scratch.length; i++) if (scratch[i]! < scratch[i - 1]!) sorted = false;
-      if (!sorted) scratch.sort((a, b) => a - b);
-      let prev = Number.NaN;
-      for (const t of scratch) {
-        if (t !== prev) out.push(t);
-        prev = t;
-      }
-    },
-  };
-}
-
-/**
- * Instants at wall time `timeOfDayMs` on the days of a date engine, resolved in `zone` (a gap moves the time
- * forward, an overlap takes the earlier instant: RFC 5545 section 3.3.5).
- */
-export function timeOfDayEngine(days: Engine, zone: ZoneOps, timeOfDayMs: number): Engine {
-  const buffer = new Sink(64);
-  return {
-    stride: days.stride * MS_PER_DAY,
-    maxGap: days.maxGap * MS_PER_DAY + MS_PER_DAY,
-    fill(lo, hi, out) {
-      if (lo >= hi) return;
-      buffer.clear();
-      const dLo = Math.max(Math.floor(lo / MS_PER_DAY) - 2, MIN_DAY_NUMBER);
-      const dHi = Math.min(Math.floor(hi / MS_PER_DAY) + 3, MAX_DAY_NUMBER + 1);
-      days.fill(dLo, dHi, buffer);
-      let prev = Number.NaN;
-      for (let i = 0; i < buffer.length; i++) {
-        const t = resolveWall(zone, buffer.data[i]! * MS_PER_DAY + timeOfDayMs).earlier;
-        if (t >= lo && t < hi && !(t <= prev)) {
-          out.push(t);
-          prev = t;
-        }
-      }
-    },
-  };
-}

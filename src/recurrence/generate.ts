@@ -1,18 +1,20 @@
 /**
- * Generation: occurrences between bounds, the first n, lazy iteration, next and previous, membership and bulk
- * typed arrays. Every range is end-exclusive (`[start, end)`, docs/design.md "Ranges"); `endInclusive` says
- * otherwise where it is wanted.
+ * Rules: `defineRule`, and the expansion every query is built on: the occurrences in a range (raw dates within
+ * the rule's bounds, adjusted, de-duplicated, exclusions removed) and bounded searches for the nearest one. A
+ * rule's `count` is located here, once, when the rule is defined. The public queries are in ./occurrences.ts.
  *
  * @module
  */
 import { DefinitionError, KalendsRangeError, KalendsTypeError, describeValue } from '../errors.js';
-import { MS_PER_DAY } from '../bounds.js';
-import { type Compiled, MAX_COUNT, VALUE_END, VALUE_MIN, compileCivilRule, compileIntraday } from './compile.js';
+import { MAX_ADJUSTMENT_DAYS, MAX_LISTED_COUNT, MS_PER_DAY } from '../bounds.js';
+import { Issues, didYouMean, isRecord, ownField } from '../diagnostics/index.js';
+import { type Compiled, VALUE_END, VALUE_MIN, compileCivilRule } from './compile.js';
+import { compileIntraday } from './compile-intraday.js';
 import { Sink } from './engine.js';
-import { toDayNumber, toEpochMs } from './deps.js';
 import { compileRfc5545 } from './rfc5545-compile.js';
+import { formatInstant, formatPlainDate } from './deps.js';
 import type { Rule, RuleDefinition, RuleKind } from './types.js';
-import { Issues, deepFreeze, isRecord, plainCopy } from './validate.js';
+import { deepFreeze, plainCopy } from './plain.js';
 
 const compiledRules = new WeakMap<Rule, Compiled>();
 
@@ -38,7 +40,7 @@ const KINDS: readonly RuleKind[] = [
  * @example
  * ```ts
  * const paydays = defineRule({ kind: 'monthly', on: [{ day: 15 }, { day: 'last' }] });
- * listOccurrences(paydays, '2025-02-01', '2025-04-01').map(formatPlainDate);
+ * listOccurrenceDayNumbers(paydays, '2025-02-01', '2025-04-01').map(formatPlainDate);
  * // ['2025-02-15', '2025-02-28', '2025-03-15', '2025-03-31']
  * ```
  */
@@ -46,10 +48,10 @@ export function defineRule(definition: RuleDefinition): Rule {
   if (!isRecord(definition)) {
     throw new DefinitionError([{ path: '', message: `expected a rule definition object with a "kind", got ${describeValue(definition)}` }], definition);
   }
-  const kind = definition['kind' as keyof typeof definition] as unknown;
+  const kind = ownField(definition as unknown as Record<string, unknown>, 'kind');
   if (typeof kind !== 'string' || !(KINDS as readonly string[]).includes(kind)) {
     throw new DefinitionError(
-      [{ path: 'kind', message: `expected one of ${KINDS.map((k) => JSON.stringify(k)).join(', ')}, got ${describeValue(kind)}` }],
+      [{ path: 'kind', message: `expected one of ${KINDS.map((k) => JSON.stringify(k)).join(', ')}, got ${describeValue(kind)}${didYouMean(kind, KINDS)}` }],
       definition,
     );
   }
@@ -59,9 +61,9 @@ export function defineRule(definition: RuleDefinition): Rule {
     kind === 'intraday' ? compileIntraday(copy, issues) : kind === 'rfc5545' ? compileRfc5545(copy, issues) : compileCivilRule(copy, issues);
   issues.throwIfAny(definition);
   if (!compiled) throw new DefinitionError([{ path: '', message: 'could not compile the rule' }], definition);
+  if (compiled.count !== undefined) locateCount(compiled, definition);
   const rule: Rule = Object.freeze({ kind: kind as RuleKind, values: compiled.values, definition: deepFreeze(copy) as unknown as RuleDefinition });
   compiledRules.set(rule, compiled);
-  if (compiled.count !== undefined) countOccurrences(compiled, definition);
   return rule;
 }
 
@@ -77,30 +79,15 @@ export function compiledOf(rule: unknown, name = 'rule'): Compiled {
   return c;
 }
 
-/** Reads a value argument as a day number or an instant, per the rule. */
-function valueOf(c: Compiled, v: unknown, name: string): number {
-  try {
-    return c.values === 'dates' ? toDayNumber(v) : toEpochMs(v);
-  } catch (e) {
-    const what = c.values === 'dates' ? 'a date (ISO 8601 string or day number)' : 'an instant (RFC 3339 string or epoch milliseconds)';
-    const err = e as Error & { code?: string };
-    const Ctor = e instanceof TypeError ? KalendsTypeError : KalendsRangeError;
-    throw new Ctor(`${name}: expected ${what}, got ${describeValue(v)}: ${err.message}`, {
-      code: e instanceof TypeError ? 'invalid-type' : 'out-of-range',
-      received: v,
-    });
-  }
-}
-
 /** Margin (units) around a range so that raw dates adjusted into it are seen. */
 function adjustmentMargin(c: Compiled, lo: number, hi: number): [number, number] {
   const cal = c.business!;
   let before = 8;
-  while (before <= 4096 && lo - before > cal.firstDay && cal.adjust(lo - before, c.convention) >= lo) before *= 2;
+  while (before <= MAX_ADJUSTMENT_DAYS && lo - before > cal.firstDay && cal.adjust(lo - before, c.convention) >= lo) before *= 2;
   let after = 8;
-  while (after <= 4096 && hi + after < cal.endDay - 1 && cal.adjust(hi + after, c.convention) < hi) after *= 2;
-  if (before > 4096 || after > 4096) {
-    throw new KalendsRangeError(`calendar ${JSON.stringify(cal.id)}: no business day within 4,096 days of the range; the adjustment convention cannot be applied`, {
+  while (after <= MAX_ADJUSTMENT_DAYS && hi + after < cal.endDay - 1 && cal.adjust(hi + after, c.convention) < hi) after *= 2;
+  if (before > MAX_ADJUSTMENT_DAYS || after > MAX_ADJUSTMENT_DAYS) {
+    throw new KalendsRangeError(`calendar: ${JSON.stringify(cal.id)} has no business day within ${MAX_ADJUSTMENT_DAYS} days of the range, so the convention ${JSON.stringify(c.convention)} cannot be applied`, {
       code: 'no-business-day',
       received: [lo, hi],
     });
@@ -112,11 +99,11 @@ const scratchSink = new Sink(256);
 
 /**
  * @internal Appends the occurrences in [lo, hi) to `out`, in strictly increasing order: raw dates within the
- * rule's bounds, adjusted, de-duplicated, with exclusions removed unless `keepExcluded`.
+ * rule's bounds (start, end and count), adjusted, de-duplicated, with exclusions removed.
  */
-export function fillOccurrences(c: Compiled, lo: number, hi: number, out: Sink, keepExcluded = false): void {
+export function fillOccurrences(c: Compiled, lo: number, hi: number, out: Sink): void {
   lo = Math.max(lo, VALUE_MIN[c.values]);
-  hi = Math.min(hi, VALUE_END[c.values], keepExcluded ? VALUE_END[c.values] : c.countEnd);
+  hi = Math.min(hi, VALUE_END[c.values]);
   if (lo >= hi) return;
   const before = out.length;
   if (c.convention === 'none' || !c.business) {
@@ -136,7 +123,7 @@ export function fillOccurrences(c: Compiled, lo: number, hi: number, out: Sink, 
     }
     raw.clear();
   }
-  if (c.exclude && !keepExcluded) {
+  if (c.exclude) {
     let w = before;
     for (let i = before; i < out.length; i++) {
       const v = out.data[i]!;
@@ -154,35 +141,37 @@ function searchLimit(c: Compiled): number {
 }
 
 function limitError(c: Compiled, from: number, direction: string): KalendsRangeError {
-  const unit = c.values === 'dates' ? 'days' : 'ms';
+  const days = Math.round(searchLimit(c) / (c.values === 'dates' ? 1 : MS_PER_DAY));
+  const shown = c.values === 'dates' ? `${from} (${formatPlainDate(from)})` : `${from} (${formatInstant(from)})`;
   return new KalendsRangeError(
-    `no occurrence ${direction} ${from} within ${searchLimit(c)} ${unit} (about 800 years): the rule's business calendar leaves no matching day there; the search stops instead of running on`,
+    `from: the rule has no occurrence ${direction} ${shown} within ${days} days (about ${Math.round(days / 365.2425)} years), where its business calendar leaves no matching day; the search stops there instead of running on`,
     { code: 'limit-exceeded', received: from },
   );
 }
 
 /** Highest value any occurrence can have (exclusive), to end searches early. */
-function occurrenceCeiling(c: Compiled, keepExcluded = false): number {
-  const adjMargin = c.convention === 'none' ? 0 : 4096;
-  return Math.min(VALUE_END[c.values], keepExcluded ? VALUE_END[c.values] : c.countEnd, c.rawEnd + adjMargin);
+function occurrenceCeiling(c: Compiled): number {
+  const adjMargin = c.convention === 'none' ? 0 : MAX_ADJUSTMENT_DAYS;
+  return Math.min(VALUE_END[c.values], c.rawEnd + adjMargin);
 }
 function occurrenceFloor(c: Compiled): number {
-  const adjMargin = c.convention === 'none' ? 0 : 4096;
+  const adjMargin = c.convention === 'none' ? 0 : MAX_ADJUSTMENT_DAYS;
   return Math.max(VALUE_MIN[c.values], c.rawStart - adjMargin);
 }
 
 /** @internal First occurrence >= from, or undefined. */
-export function firstAtOrAfter(c: Compiled, from: number, keepExcluded = false): number | undefined {
-  const ceiling = occurrenceCeiling(c, keepExcluded);
+export function firstAtOrAfter(c: Compiled, from: number): number | undefined {
+  const ceiling = occurrenceCeiling(c);
   let lo = Math.max(from, occurrenceFloor(c));
   const limit = searchLimit(c);
-  const origin = lo;
+  // The search gives up after `limit` units without an occurrence, counted from where occurrences can begin.
+  const origin = Math.max(lo, c.rawStart);
   let width = Math.ceil(Math.max(c.engine.stride * 4, c.values === 'dates' ? 8 : 60_000));
   const out = new Sink(16);
   while (lo < ceiling) {
     const hi = Math.min(lo + width, ceiling);
     out.clear();
-    fillOccurrences(c, lo, hi, out, keepExcluded);
+    fillOccurrences(c, lo, hi, out);
     if (out.length > 0) return out.data[0]!;
     if (hi - origin > limit) throw limitError(c, from, 'on or after');
     lo = hi;
@@ -196,7 +185,7 @@ export function lastBefore(c: Compiled, before: number): number | undefined {
   const floor = occurrenceFloor(c);
   let hi = Math.min(before, occurrenceCeiling(c));
   const limit = searchLimit(c);
-  const origin = hi;
+  const origin = Math.min(hi, c.rawEnd);
   let width = Math.ceil(Math.max(c.engine.stride * 4, c.values === 'dates' ? 8 : 60_000));
   const out = new Sink(16);
   while (hi > floor) {
@@ -211,224 +200,58 @@ export function lastBefore(c: Compiled, before: number): number | undefined {
   return undefined;
 }
 
-/** Counts `count` occurrences from the rule's start and records where they stop. */
-function countOccurrences(c: Compiled, definition: unknown): void {
-  const target = c.count!;
+/**
+ * Narrows `rawEnd` to just after the rule's `count`-th raw occurrence from `rawStart`. The count applies to the
+ * raw dates, before any business-day adjustment (like `start` and `end`), and before RFC 5545 EXDATE exclusions
+ * (RFC 5545 section 3.8.5.1: the recurrence set is generated, then the excluded dates removed). Engines whose
+ * occurrences repeat locate it at a cost independent of the count; the others list up to MAX_LISTED_COUNT.
+ */
+function locateCount(c: Compiled, definition: unknown): void {
+  const k = c.count! - 1;
+  let nth: number | undefined;
+  try {
+    nth = c.engine.locate?.(c.rawStart, k, c.rawEnd);
+  } catch (e) {
+    // A calendar that must evaluate too many years one by one: fall back to listing (bounded below).
+    if (!(e instanceof KalendsRangeError)) throw e;
+    nth = undefined;
+  }
+  if (nth === undefined) {
+    if (c.count! > MAX_LISTED_COUNT) {
+      throw new DefinitionError(
+        [
+          {
+            path: 'count',
+            message: `expected at most ${MAX_LISTED_COUNT} for this rule, got ${c.count}: its count is found by listing its occurrences (business-day selectors and steps, fiscal periods, wall-clock steps and RFC 5545 times of day do not repeat in a pattern that can be counted); give an end instead of a count, or a smaller count`,
+          },
+        ],
+        definition,
+      );
+    }
+    nth = listedNth(c, k);
+  }
+  if (nth === nth) c.rawEnd = Math.min(c.rawEnd, nth + 1);
+}
+
+/** The raw occurrence number k (0 = the first) from `rawStart`, by listing; NaN when the rule ends first. */
+function listedNth(c: Compiled, k: number): number {
+  const out = new Sink(1024);
+  const unit = c.values === 'dates' ? 1 : MS_PER_DAY;
+  const limit = searchLimit(c);
   let seen = 0;
-  let lo = occurrenceFloor(c);
-  const ceiling = occurrenceCeiling(c, true);
-  const out = new Sink(Math.min(target, 4096));
-  const first = firstAtOrAfter(c, lo, true);
-  if (first === undefined) return;
-  lo = first;
-  let width = Math.ceil(Math.max(c.engine.stride * 64, 64));
-  while (lo < ceiling) {
-    const hi = Math.min(lo + width, ceiling);
+  let lo = c.rawStart;
+  let last = lo;
+  let width = Math.ceil(Math.max(c.engine.stride * 256, 64 * unit));
+  while (lo < c.rawEnd) {
+    const hi = Math.min(lo + width, c.rawEnd);
     out.clear();
-    fillOccurrences(c, lo, hi, out, true);
-    if (seen + out.length >= target) {
-      c.countEnd = out.data[target - seen - 1]! + 1;
-      return;
-    }
+    c.engine.fill(lo, hi, out);
+    if (seen + out.length > k) return out.data[k - seen]!;
     seen += out.length;
-    if (out.length === 0) {
-      const next = firstAtOrAfter(c, hi, true);
-      if (next === undefined) return;
-      lo = next;
-      continue;
-    }
+    if (out.length > 0) last = out.data[out.length - 1]!;
+    else if (hi - last > limit) throw limitError(c, last, 'after');
     lo = hi;
-    width = Math.ceil(Math.min(width * 2, c.engine.stride * 1_048_576));
+    width = Math.ceil(Math.min(width * 2, c.engine.stride * 65_536 + 64 * unit));
   }
-  void definition;
-}
-
-function requireRange(c: Compiled, start: unknown, end: unknown, endInclusive: boolean | undefined): [number, number] {
-  const s = valueOf(c, start, 'start');
-  let e = valueOf(c, end, 'end');
-  if (endInclusive) e += 1;
-  if (e < s) {
-    throw new KalendsRangeError(`end: expected a value on or after start (${describeValue(start)}), got ${describeValue(end)}`, {
-      code: 'out-of-range',
-      received: end,
-    });
-  }
-  return [s, e];
-}
-
-/** Options of {@link listOccurrences} and {@link occurrenceBulk}. */
-export interface RangeOptions {
-  /** Include an occurrence that falls exactly on `end` (default false: ranges are `[start, end)`). */
-  readonly endInclusive?: boolean;
-  /** Most occurrences accepted before a `limit-exceeded` error (default 10,000,000). */
-  readonly maxCount?: number;
-}
-
-function fillRange(c: Compiled, s: number, e: number, out: Sink, maxCount: number): void {
-  const chunk = Math.ceil(Math.max(c.engine.stride * 4096, c.values === 'dates' ? 4096 : 4096 * 60_000));
-  for (let lo = s; lo < e; lo += chunk) {
-    fillOccurrences(c, lo, Math.min(lo + chunk, e), out);
-    if (out.length > maxCount) {
-      throw new KalendsRangeError(`the range holds more than maxCount = ${maxCount} occurrences; narrow the range or raise options.maxCount`, {
-        code: 'limit-exceeded',
-        received: maxCount,
-      });
-    }
-  }
-}
-
-/**
- * The occurrences of `rule` in `[start, end)`, in increasing order: day numbers for date rules, epoch
- * milliseconds for instant rules. Bounds accept what `toDayNumber` / `toEpochMs` accept (ISO strings, numbers).
- * With a business-day convention the adjusted dates are the occurrences: they are what falls in the range, and
- * two dates that adjust to the same day appear once.
- *
- * @example
- * ```ts
- * const fridays = defineRule({ kind: 'weekly', weekdays: ['friday'], every: 2, anchor: '2025-01-03' });
- * listOccurrences(fridays, '2025-01-01', '2025-02-01').map(formatPlainDate);
- * // ['2025-01-03', '2025-01-17', '2025-01-31']
- * ```
- */
-export function listOccurrences(rule: Rule, start: unknown, end: unknown, options?: RangeOptions): number[] {
-  const c = compiledOf(rule);
-  const [s, e] = requireRange(c, start, end, options?.endInclusive);
-  const out = new Sink(64);
-  fillRange(c, s, e, out, options?.maxCount ?? MAX_COUNT);
-  return Array.from(out.data.subarray(0, out.length));
-}
-
-/**
- * The occurrences of `rule` in `[start, end)` as a typed array: an `Int32Array` of day numbers for date rules,
- * a `Float64Array` of epoch milliseconds for instant rules. One pass, no per-occurrence allocation.
- *
- * @example
- * ```ts
- * const monthEnds = defineRule({ kind: 'monthly', on: { businessDay: 'last' }, calendar: myCalendar });
- * occurrenceBulk(monthEnds, '1900-01-01', '2101-01-01'); // Int32Array(2412)
- * ```
- */
-export function occurrenceBulk(rule: Rule, start: unknown, end: unknown, options?: RangeOptions): Int32Array | Float64Array {
-  const c = compiledOf(rule);
-  const [s, e] = requireRange(c, start, end, options?.endInclusive);
-  const out = new Sink(c.values === 'dates' ? Math.min(Math.max(16, Math.ceil((e - s) / Math.max(1, c.engine.stride)) + 16), 1 << 20) : 64);
-  fillRange(c, s, e, out, options?.maxCount ?? MAX_COUNT);
-  return c.values === 'dates' ? Int32Array.from(out.data.subarray(0, out.length)) : out.data.slice(0, out.length);
-}
-
-/** Options of {@link iterateOccurrences}. */
-export interface IterateOptions {
-  /**
-   * The most occurrences to yield. Required unless the rule itself ends (it has `end`, `count` or UNTIL): an
-   * unbounded expansion without a limit is an error, not an endless loop.
-   */
-  readonly limit?: number;
-}
-
-/**
- * Lazily yields the occurrences of `rule` from `from` (inclusive) in increasing order, at most `options.limit`
- * of them. A rule that never ends needs a limit.
- *
- * @example
- * ```ts
- * const daily = defineRule({ kind: 'days' });
- * [...iterateOccurrences(daily, '2025-01-30', { limit: 3 })].map(formatPlainDate);
- * // ['2025-01-30', '2025-01-31', '2025-02-01']
- * ```
- */
-export function* iterateOccurrences(rule: Rule, from: unknown, options?: IterateOptions): Generator<number, void, undefined> {
-  const c = compiledOf(rule);
-  let lo = valueOf(c, from, 'from');
-  const limit = options?.limit;
-  const bounded = c.rawEnd < VALUE_END[c.values] || c.countEnd < VALUE_END[c.values] || c.count !== undefined;
-  if (limit === undefined && !bounded) {
-    throw new KalendsRangeError(
-      'options.limit: the rule has no end, count or UNTIL, so iterating it needs a limit (the most occurrences to yield); got undefined',
-      { code: 'limit-exceeded', received: limit },
-    );
-  }
-  if (limit !== undefined && (typeof limit !== 'number' || !Number.isInteger(limit) || limit < 0)) {
-    throw new KalendsRangeError(`options.limit: expected a non-negative integer, got ${describeValue(limit)}`, { code: 'out-of-range', received: limit });
-  }
-  let left = limit ?? Number.POSITIVE_INFINITY;
-  const out = new Sink(64);
-  while (left > 0) {
-    const first = firstAtOrAfter(c, lo);
-    if (first === undefined) return;
-    const width = Math.ceil(Math.max(c.engine.stride * 64, c.values === 'dates' ? 64 : 3_600_000));
-    out.clear();
-    fillOccurrences(c, first, first + width, out);
-    for (let i = 0; i < out.length && left > 0; i++, left--) yield out.data[i]!;
-    lo = first + width;
-  }
-}
-
-/**
- * The first `count` occurrences of `rule` on or after `from`, as an array (fewer when the rule ends first).
- *
- * @example
- * ```ts
- * listFirstOccurrences(defineRule({ kind: 'monthly', on: { day: 'last' } }), '2024-01-15', 3).map(formatPlainDate);
- * // ['2024-01-31', '2024-02-29', '2024-03-31']
- * ```
- */
-export function listFirstOccurrences(rule: Rule, from: unknown, count: number): number[] {
-  if (typeof count !== 'number' || !Number.isInteger(count) || count < 0 || count > MAX_COUNT) {
-    throw new KalendsRangeError(`count: expected an integer from 0 to ${MAX_COUNT}, got ${describeValue(count)}`, { code: 'out-of-range', received: count });
-  }
-  return [...iterateOccurrences(rule, from, { limit: count })];
-}
-
-/** Options of {@link nextOccurrence} and {@link previousOccurrence}. */
-export interface StepOptions {
-  /** Count `from` itself when it is an occurrence (default false: strictly after / before). */
-  readonly inclusive?: boolean;
-}
-
-/**
- * The first occurrence strictly after `from` (or on it, with `inclusive`), or null when the rule has ended.
- * Searches are bounded: a rule whose business calendar leaves no matching day for centuries gives a
- * `limit-exceeded` error instead of running on.
- *
- * @example
- * ```ts
- * const payday = defineRule({ kind: 'monthly', on: { day: 15 } });
- * formatPlainDate(nextOccurrence(payday, '2025-01-15')!); // '2025-02-15'
- * ```
- */
-export function nextOccurrence(rule: Rule, from: unknown, options?: StepOptions): number | null {
-  const c = compiledOf(rule);
-  const v = valueOf(c, from, 'from');
-  return firstAtOrAfter(c, options?.inclusive ? v : v + 1) ?? null;
-}
-
-/**
- * The last occurrence strictly before `from` (or on it, with `inclusive`), or null when there is none.
- *
- * @example
- * ```ts
- * const payday = defineRule({ kind: 'monthly', on: { day: 15 } });
- * formatPlainDate(previousOccurrence(payday, '2025-01-15')!); // '2024-12-15'
- * ```
- */
-export function previousOccurrence(rule: Rule, from: unknown, options?: StepOptions): number | null {
-  const c = compiledOf(rule);
-  const v = valueOf(c, from, 'from');
-  return lastBefore(c, options?.inclusive ? v + 1 : v) ?? null;
-}
-
-/**
- * Whether `value` (a date for date rules, an instant for instant rules) is an occurrence of `rule`.
- *
- * @example
- * ```ts
- * matchesRule(defineRule({ kind: 'monthly', on: { weekday: 'friday', nth: -1 } }), '2025-01-31'); // true
- * ```
- */
-export function matchesRule(rule: Rule, value: unknown): boolean {
-  const c = compiledOf(rule);
-  const v = valueOf(c, value, 'value');
-  const out = new Sink(4);
-  fillOccurrences(c, v, v + 1, out);
-  return out.length > 0;
+  return Number.NaN;
 }

@@ -25,19 +25,24 @@ export type {
   RuleKind,
   Rule,
 } from './types.js';
+export { defineRule } from './generate.js';
 export {
   type RangeOptions,
   type IterateOptions,
   type StepOptions,
-  defineRule,
-  listOccurrences,
-  listFirstOccurrences,
-  iterateOccurrences,
-  nextOccurrence,
-  previousOccurrence,
-  matchesRule,
-  occurrenceBulk,
-} from './generate.js';
+  listOccurrenceDayNumbers,
+  listOccurrenceEpochMs,
+  occurrenceDayNumberBulk,
+  occurrenceEpochMsBulk,
+  iterateOccurrenceDayNumbers,
+  iterateOccurrenceEpochMs,
+  nextOccurrenceDayNumber,
+  nextOccurrenceEpochMs,
+  previousOccurrenceDayNumber,
+  previousOccurrenceEpochMs,
+  isOccurrenceDayNumber,
+  isOccurrenceEpochMs,
+} from './occurrences.js';
 export { type ParseRecurrenceOptions, type FormatRecurrenceOptions, parseRecurrenceRule, formatRecurrenceRule } from './rfc5545.js';
 export {
   type StubPlacement,

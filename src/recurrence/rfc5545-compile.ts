@@ -9,7 +9,7 @@
  *
  * @module
  */
-import { MAX_DAY_NUMBER, MAX_EPOCH_MS, MIN_DAY_NUMBER, MIN_YEAR, MS_PER_DAY } from '../bounds.js';
+import { MAX_COUNT, MAX_DAY_NUMBER, MAX_EPOCH_MS, MAX_RFC5545_INTERVAL, MIN_DAY_NUMBER, MS_PER_DAY } from '../bounds.js';
 import { describeValue } from '../errors.js';
 import {
   dayNumberFromYmdUnchecked,
@@ -17,16 +17,26 @@ import {
   isLeapYearUnchecked,
   packedYmdUnchecked,
   weekdayOfDayNumberUnchecked,
+  yearOfDayNumberUnchecked,
 } from '../civil/gregorian.js';
-import type { Compiled } from './compile.js';
-import { MAX_COUNT } from './compile.js';
-import { type Engine, type ZoneOps, CYCLE_DAYS, elapsedEngine, mod, monthIndexOf, resolveWall, timeOfDayEngine } from './engine.js';
+import {
+  WEEKDAY_NAMES,
+  dayOfPacked,
+  firstDayNumberOfMonthIndex,
+  monthIndexOfDayNumberUnchecked,
+  monthOfPacked,
+  weekdayFromName,
+  yearOfPacked,
+} from '../civil/names.js';
+import { type Issues, checkKeys, isRecord, readEnum, readInt } from '../diagnostics/index.js';
+import { type Compiled, reasonOf } from './compile.js';
+import { type Engine, type ZoneOps, CYCLE_DAYS, gcd, locateByCycle, mod } from './engine.js';
+import { elapsedEngine, resolveWall, timeOfDayEngine } from './engine-instants.js';
 import { parseInstant, parsePlainDate, parsePlainDateTime, zoneOps } from './deps.js';
-import { Issues, WEEKDAY_NAMES, checkKeys, readEnum, readInt } from './validate.js';
-import type { Rfc5545Frequency, WeekdayName } from './types.js';
+import type { Rfc5545Frequency } from './types.js';
 
 /** A zone of offset 0 for DTSTART values in UTC and for floating times. */
-export const UTC_OPS: ZoneOps = { id: 'UTC', zone: undefined, offsetSecondsFromEpochMs: () => 0 };
+const UTC_OPS: ZoneOps = { id: 'UTC', zone: undefined, offsetSecondsFromEpochMs: () => 0, mayJumpHalfADay: () => false };
 
 const FREQUENCIES: readonly Rfc5545Frequency[] = ['yearly', 'monthly', 'weekly', 'daily', 'hourly', 'minutely'];
 
@@ -46,10 +56,6 @@ export interface RfcDaySpec {
   readonly weekStart: number;
 }
 
-function yearOf(dn: number): number {
-  return Math.floor(packedYmdUnchecked(dn) / 512) + MIN_YEAR;
-}
-
 /** First day of week 1 of `year` for weeks starting on `weekStart`: the week holding January 4 (RFC 5545 BYWEEKNO, ISO 8601). */
 function week1Start(year: number, weekStart: number): number {
   const jan4 = dayNumberFromYmdUnchecked(year, 1, 4);
@@ -58,7 +64,7 @@ function week1Start(year: number, weekStart: number): number {
 
 /** Week number (positive) and the number of weeks in its week-year. */
 function weekNumber(dn: number, weekStart: number): [number, number] {
-  let y = yearOf(dn);
+  let y = yearOfDayNumberUnchecked(dn);
   let s = week1Start(y, weekStart);
   if (dn < s) {
     y -= 1;
@@ -77,9 +83,9 @@ function weekNumber(dn: number, weekStart: number): [number, number] {
 /** Whether day `dn` satisfies every date-level part. */
 function dayMatches(spec: RfcDaySpec, dn: number): boolean {
   const p = packedYmdUnchecked(dn);
-  const y = Math.floor(p / 512) + MIN_YEAR;
-  const m = (p >> 5) & 15;
-  const dom = p & 31;
+  const y = yearOfPacked(p);
+  const m = monthOfPacked(p);
+  const dom = dayOfPacked(p);
   if (spec.byMonthMask !== 0 && ((spec.byMonthMask >> m) & 1) === 0) return false;
   if (spec.byWeekNo) {
     const [wn, weeks] = weekNumber(dn, spec.weekStart);
@@ -124,9 +130,9 @@ function dayMatches(spec: RfcDaySpec, dn: number): boolean {
 function periodIndexOf(spec: RfcDaySpec, dn: number): number {
   switch (spec.frequency) {
     case 'yearly':
-      return yearOf(dn);
+      return yearOfDayNumberUnchecked(dn);
     case 'monthly':
-      return monthIndexOf(dn);
+      return monthIndexOfDayNumberUnchecked(dn);
     case 'weekly':
       return Math.floor((dn - mod(spec.weekStart - 4, 7)) / 7);
     default:
@@ -137,10 +143,8 @@ function periodFirst(spec: RfcDaySpec, index: number): number {
   switch (spec.frequency) {
     case 'yearly':
       return dayNumberFromYmdUnchecked(index, 1, 1);
-    case 'monthly': {
-      const y = Math.floor(index / 12);
-      return dayNumberFromYmdUnchecked(y, index - y * 12 + 1, 1);
-    }
+    case 'monthly':
+      return firstDayNumberOfMonthIndex(index);
     case 'weekly':
       // Day 0 (1970-01-01) is a Thursday (ISO 4); weeks start on weekStart.
       return index * 7 + mod(spec.weekStart - 4, 7);
@@ -185,18 +189,18 @@ function expandPeriod(spec: RfcDaySpec, index: number, scratch: number[]): void 
 
 /** Periods in one repeat of the pattern (the 400-year Gregorian cycle, counted in candidate periods). */
 function cyclePeriods(spec: RfcDaySpec): number {
-  const per = spec.frequency === 'yearly' ? 400 : spec.frequency === 'monthly' ? 4800 : spec.frequency === 'weekly' ? 20_871 : CYCLE_DAYS;
-  let a = spec.interval;
-  let b = per;
-  while (b !== 0) [a, b] = [b, a % b];
-  return per / a;
+  return periodsPerCycle(spec) / gcd(spec.interval, periodsPerCycle(spec));
+}
+/** Periods of the frequency in one 400-year cycle. */
+function periodsPerCycle(spec: RfcDaySpec): number {
+  return spec.frequency === 'yearly' ? 400 : spec.frequency === 'monthly' ? 4800 : spec.frequency === 'weekly' ? 20_871 : CYCLE_DAYS;
 }
 function periodDays(spec: RfcDaySpec): number {
   return spec.frequency === 'yearly' ? 366 : spec.frequency === 'monthly' ? 31 : spec.frequency === 'weekly' ? 7 : 1;
 }
 
 /** The engine of a date-level rule; returns undefined when the rule can never produce a date. */
-export function rfcDayEngine(spec: RfcDaySpec): Engine | undefined {
+function rfcDayEngine(spec: RfcDaySpec): Engine | undefined {
   const scratch: number[] = [];
   const startIndex = periodIndexOf(spec, spec.startDay);
   // Prove that the rule produces a date after DTSTART: the pattern repeats with the 400-year cycle, so one
@@ -220,11 +224,19 @@ export function rfcDayEngine(spec: RfcDaySpec): Engine | undefined {
         let k = Math.ceil((lo - a) / step);
         for (let d = a + k * step; d < hi; d = a + ++k * step) out.push(d);
       },
+      locate(lo, k, end) {
+        const d = a + (Math.ceil((Math.max(lo, a) - a) / step) + k) * step;
+        return d < end ? d : Number.NaN;
+      },
     };
   }
-  return {
+  // The pattern repeats every cyclePeriods(spec) periods of the frequency: interval / gcd(interval, periods per
+  // cycle) whole 400-year cycles of 146,097 days.
+  const cycleDays = (spec.interval / gcd(spec.interval, periodsPerCycle(spec))) * CYCLE_DAYS;
+  const engine: Engine = {
     stride: Math.max(1, (spec.interval * periodDays(spec)) / 2),
     maxGap,
+    locate: (lo, k, end) => locateByCycle(engine, cycleDays, Math.max(lo, spec.startDay), k, end, MIN_DAY_NUMBER),
     fill(lo, hi, out) {
       lo = Math.max(lo, spec.startDay);
       if (lo >= hi) return;
@@ -236,6 +248,7 @@ export function rfcDayEngine(spec: RfcDaySpec): Engine | undefined {
       }
     },
   };
+  return engine;
 }
 
 function readList(def: Record<string, unknown>, key: string, min: number, max: number, allowNegative: boolean, issues: Issues): number[] | undefined {
@@ -271,7 +284,7 @@ function readStartLike(v: unknown, path: string, issues: Issues): StartValue | u
     const day = Math.floor(wall / MS_PER_DAY);
     return { day, timeMs: wall - day * MS_PER_DAY };
   } catch (e) {
-    issues.add(path, `expected a date "1997-09-02" or a local date-time "1997-09-02T09:00:00", got ${describeValue(v)} (${(e as Error).message})`);
+    issues.add(path, `expected a date "1997-09-02" or a local date-time "1997-09-02T09:00:00"; ${reasonOf(e)}`);
     return undefined;
   }
 }
@@ -288,7 +301,7 @@ export function compileRfc5545(def: Record<string, unknown>, issues: Issues): Co
   if (def['frequency'] === undefined) issues.add('frequency', 'expected the FREQ rule part: "yearly", "monthly", "weekly", "daily", "hourly" or "minutely"; got none');
   const start = readStartLike(def['start'], 'start', issues);
   if (def['interval'] === 0) issues.add('interval', 'expected an integer of at least 1 (INTERVAL=0 would never move), got 0');
-  const interval = def['interval'] === 0 ? Number.NaN : readInt(def, 'interval', 'interval', 1, 1_000_000, issues, 1);
+  const interval = def['interval'] === 0 ? Number.NaN : readInt(def, 'interval', 'interval', 1, MAX_RFC5545_INTERVAL, issues, 1);
   const countRaw = readInt(def, 'count', 'count', 1, MAX_COUNT, issues, Number.NaN);
   if (def['count'] !== undefined && def['until'] !== undefined) issues.add('until', 'UNTIL and COUNT must not both occur in one rule (RFC 5545 section 3.3.10)');
   const byMonth = readList(def, 'byMonth', 1, 12, false, issues);
@@ -297,7 +310,7 @@ export function compileRfc5545(def: Record<string, unknown>, issues: Issues): Co
   const byMonthDay = readList(def, 'byMonthDay', 1, 31, true, issues);
   const bySetPos = readList(def, 'bySetPos', 1, 366, true, issues);
   const weekStartName = readEnum(def, 'weekStart', 'weekStart', WEEKDAY_NAMES, issues, 'monday') ?? 'monday';
-  const weekStart = WEEKDAY_NAMES.indexOf(weekStartName as WeekdayName) + 1;
+  const weekStart = weekdayFromName(weekStartName);
   let byDayMask = 0;
   let byDayNth: { weekday: number; nth: number }[] | undefined;
   const byDay = def['byDay'];
@@ -306,7 +319,7 @@ export function compileRfc5545(def: Record<string, unknown>, issues: Issues): Co
     else {
       byDay.forEach((e, i) => {
         const path = `byDay[${i}]`;
-        if (typeof e !== 'object' || e === null) {
+        if (!isRecord(e)) {
           issues.add(path, `expected { "weekday": "monday", "nth"?: 1 }, got ${describeValue(e)}`);
           return;
         }
@@ -320,7 +333,7 @@ export function compileRfc5545(def: Record<string, unknown>, issues: Issues): Co
           return;
         }
         if (!wdName) return;
-        const wd = WEEKDAY_NAMES.indexOf(wdName) + 1;
+        const wd = weekdayFromName(wdName);
         if (nth === undefined) byDayMask |= 1 << wd;
         else (byDayNth ??= []).push({ weekday: wd, nth: nth as number });
       });
@@ -410,7 +423,7 @@ export function compileRfc5545(def: Record<string, unknown>, issues: Issues): Co
           rawEnd = dated ? Math.floor(w / MS_PER_DAY) + 1 : resolveWall(tz, w).earlier + 1;
         }
       } catch (e) {
-        issues.add('until', `expected a date "1997-12-24" or an instant "1997-12-24T00:00:00Z", got ${describeValue(until)} (${(e as Error).message})`);
+        issues.add('until', `expected a date "1997-12-24" or an instant "1997-12-24T00:00:00Z"; ${reasonOf(e)}`);
       }
     }
   }
@@ -426,10 +439,10 @@ export function compileRfc5545(def: Record<string, unknown>, issues: Issues): Co
       frequency,
       interval,
       startDay: start.day,
-      byMonthMask: (byMonth ?? (defaults && frequency === 'yearly' ? [(p >> 5) & 15] : [])).reduce((mask, m) => mask | (1 << m), 0),
+      byMonthMask: (byMonth ?? (defaults && frequency === 'yearly' ? [monthOfPacked(p)] : [])).reduce((mask, m) => mask | (1 << m), 0),
       byWeekNo,
       byYearDay,
-      byMonthDay: byMonthDay ?? (defaults && (frequency === 'yearly' || frequency === 'monthly') ? [p & 31] : undefined),
+      byMonthDay: byMonthDay ?? (defaults && (frequency === 'yearly' || frequency === 'monthly') ? [dayOfPacked(p)] : undefined),
       byDayMask: byDay === undefined && defaults && frequency === 'weekly' ? 1 << weekdayOfDayNumberUnchecked(start.day) : byDayMask,
       byDayNth,
       bySetPos,
@@ -450,7 +463,6 @@ export function compileRfc5545(def: Record<string, unknown>, issues: Issues): Co
     rawStart: startValue,
     rawEnd,
     count: Number.isNaN(countRaw) ? undefined : countRaw,
-    countEnd: dated ? MAX_DAY_NUMBER + 1 : MAX_EPOCH_MS + 1,
     exclude: excludes.length > 0 ? new Set(excludes.map(toValue)) : undefined,
     zone: dated ? undefined : tz,
     period: undefined,

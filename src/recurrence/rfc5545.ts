@@ -8,18 +8,19 @@
  *
  * @module
  */
-import { KalendsRangeError, KalendsSyntaxError, describeValue } from '../errors.js';
-import { MAX_DAY_NUMBER, MAX_EPOCH_MS, MIN_YEAR } from '../bounds.js';
+import { KalendsRangeError, KalendsSyntaxError, KalendsTypeError, describeValue } from '../errors.js';
+import { lookupName, readOptions, requireEnum } from '../diagnostics/index.js';
+import { MAX_COUNT, MAX_DAY_NUMBER, MAX_EPOCH_MS, MAX_RFC5545_INTERVAL } from '../bounds.js';
 import { dayCountOfMonthUnchecked, packedYmdUnchecked } from '../civil/gregorian.js';
+import { WEEKDAY_NAMES, dayCountOfMonthIndex, dayOfPacked, monthIndexOfPacked, weekdayFromName } from '../civil/names.js';
 import { defineRule, compiledOf, firstAtOrAfter } from './generate.js';
-import { resolveWall } from './engine.js';
+import { resolveWall } from './engine-instants.js';
 import { formatInstant, formatPlainDate, formatPlainDateTime, parsePlainDateTime, toDayNumber, toEpochMs } from './deps.js';
-import { WEEKDAY_NAMES } from './validate.js';
 import type { Rfc5545Frequency, Rfc5545RuleDefinition, Rfc5545WeekdayNum, Rule, WeekdayName } from './types.js';
 
 const WEEKDAY_CODES = ['MO', 'TU', 'WE', 'TH', 'FR', 'SA', 'SU'] as const;
 
-function syntax(message: string, text: string, position: number, code: 'malformed' | 'unsupported' = 'malformed'): KalendsSyntaxError {
+function syntax(message: string, text: string, position: number, code: 'malformed' | 'unsupported' | 'out-of-range' = 'malformed'): KalendsSyntaxError {
   return new KalendsSyntaxError(`parseRecurrenceRule: ${message} (at position ${position})`, { code, received: text, position });
 }
 
@@ -66,10 +67,24 @@ function contentLines(text: string): Line[] {
   });
 }
 
-/** Reads a DATE (`19970902`) or DATE-TIME (`19970902T090000`, optional `Z`) value into ISO text. */
-function readDateValue(value: string, text: string, at: number): { iso: string; utc: boolean; dated: boolean } {
+/**
+ * Reads a DATE (`19970902`) or DATE-TIME (`19970902T090000`, optional `Z`) value into ISO text. Fields out of
+ * range are a syntax error that quotes the value as written and points at it in the text.
+ */
+function readDateValue(value: string, text: string, at: number, part: string): { iso: string; utc: boolean; dated: boolean } {
   const m = /^(\d{4})(\d{2})(\d{2})(?:T(\d{2})(\d{2})(\d{2})(Z)?)?$/.exec(value);
-  if (!m) throw syntax(`expected a DATE (YYYYMMDD) or DATE-TIME (YYYYMMDDTHHMMSS, optional Z) value, got ${describeValue(value)}`, text, at);
+  if (!m) throw syntax(`${part}: expected a DATE (YYYYMMDD) or DATE-TIME (YYYYMMDDTHHMMSS, optional Z) value, got ${describeValue(value)}`, text, at);
+  const [year, month, day] = [Number(m[1]), Number(m[2]), Number(m[3])];
+  const outOfRange = (what: string, offset: number): KalendsSyntaxError =>
+    syntax(`${part}: ${describeValue(value)} ${what}`, text, at + offset, 'out-of-range');
+  if (month < 1 || month > 12) throw outOfRange(`has month ${m[2]}; expected 01 to 12`, 4);
+  const days = dayCountOfMonthUnchecked(year, month);
+  if (day < 1 || day > days) throw outOfRange(`has day ${m[3]}, but ${m[1]}-${m[2]} has days 01 to ${days}`, 6);
+  if (m[4] !== undefined) {
+    if (Number(m[4]) > 23) throw outOfRange(`has hour ${m[4]}; expected 00 to 23`, 9);
+    if (Number(m[5]) > 59) throw outOfRange(`has minute ${m[5]}; expected 00 to 59`, 11);
+    if (Number(m[6]) > 60) throw outOfRange(`has second ${m[6]}; expected 00 to 60`, 13);
+  }
   const date = `${m[1]}-${m[2]}-${m[3]}`;
   if (m[4] === undefined) return { iso: date, utc: false, dated: true };
   const second = m[6] === '60' ? '59' : m[6]; // RFC 5545 section 3.3.5: without leap seconds, read 60 as 59
@@ -112,11 +127,16 @@ const UNSUPPORTED_PARTS: Record<string, string> = {
  * @example
  * ```ts
  * const rule = parseRecurrenceRule('DTSTART;TZID=America/New_York:19970902T090000\nRRULE:FREQ=DAILY;COUNT=10');
- * listOccurrences(rule, '1997-09-01T00:00Z', '1997-10-01T00:00Z').length; // 10
+ * listOccurrenceEpochMs(rule, '1997-09-01T00:00Z', '1997-10-01T00:00Z').length; // 10
  * ```
  */
 export function parseRecurrenceRule(text: string, options?: ParseRecurrenceOptions): Rule {
-  if (typeof text !== 'string') throw syntax(`expected RFC 5545 text, got ${describeValue(text)}`, String(text), 0);
+  if (typeof text !== 'string') {
+    throw new KalendsTypeError(`text: expected RFC 5545 text (DTSTART and RRULE lines, or FREQ=...), got ${describeValue(text)}`, { code: 'invalid-type', received: text });
+  }
+  const o = readOptions('options', options, ['start', 'zone']);
+  const givenStart = optionalText('options.start', o['start']);
+  const givenZone = optionalText('options.zone', o['zone']);
   let dtstart: { iso: string; utc: boolean; dated: boolean; tzid: string | undefined } | undefined;
   let rrule: Line | undefined;
   const exdates: string[] = [];
@@ -124,7 +144,7 @@ export function parseRecurrenceRule(text: string, options?: ParseRecurrenceOptio
     switch (line.name) {
       case 'DTSTART': {
         if (dtstart) throw syntax('DTSTART occurs more than once', text, line.at);
-        const v = readDateValue(line.value, text, line.valueAt);
+        const v = readDateValue(line.value, text, line.valueAt, 'DTSTART');
         const valueType = line.params.get('VALUE');
         if (valueType === 'DATE' && !v.dated) throw syntax('DTSTART;VALUE=DATE needs a DATE value (YYYYMMDD)', text, line.valueAt);
         const tzid = line.params.get('TZID');
@@ -136,9 +156,14 @@ export function parseRecurrenceRule(text: string, options?: ParseRecurrenceOptio
         if (rrule) throw syntax('more than one RRULE: the recurrence set of several RRULE properties is undefined (RFC 5545 section 3.8.5.3)', text, line.at, 'unsupported');
         rrule = line;
         break;
-      case 'EXDATE':
-        for (const part of line.value.split(',')) exdates.push(readDateValue(part, text, line.valueAt).iso);
+      case 'EXDATE': {
+        let partAt = line.valueAt;
+        for (const part of line.value.split(',')) {
+          exdates.push(readDateValue(part, text, partAt, 'EXDATE').iso);
+          partAt += part.length + 1;
+        }
         break;
+      }
       case 'RDATE':
       case 'EXRULE':
         throw syntax(`${line.name} is not supported: only RRULE, DTSTART and EXDATE are read`, text, line.at, 'unsupported');
@@ -147,8 +172,8 @@ export function parseRecurrenceRule(text: string, options?: ParseRecurrenceOptio
     }
   }
   if (!rrule) throw syntax('expected an RRULE line (or a rule starting with FREQ=)', text, 0);
-  if (!dtstart && options?.start !== undefined) {
-    dtstart = { iso: options.start, utc: false, dated: !options.start.includes('T'), tzid: undefined };
+  if (!dtstart && givenStart !== undefined) {
+    dtstart = { iso: givenStart, utc: false, dated: !givenStart.includes('T'), tzid: undefined };
   }
   if (!dtstart) throw syntax('expected a DTSTART line (or options.start): the rule takes its first occurrence and missing parts from it', text, 0);
 
@@ -162,7 +187,7 @@ export function parseRecurrenceRule(text: string, options?: ParseRecurrenceOptio
     const value = part.slice(eq + 1);
     if (seen.has(name)) throw syntax(`${name} occurs more than once (RFC 5545 section 3.3.10)`, text, at);
     seen.add(name);
-    const unsupported = UNSUPPORTED_PARTS[name];
+    const unsupported = lookupName(UNSUPPORTED_PARTS, name);
     if (unsupported) throw syntax(unsupported, text, at, 'unsupported');
     switch (name) {
       case 'FREQ': {
@@ -176,12 +201,18 @@ export function parseRecurrenceRule(text: string, options?: ParseRecurrenceOptio
       }
       case 'INTERVAL':
       case 'COUNT': {
-        if (!/^\d{1,9}$/.test(value)) throw syntax(`${name}: expected a positive integer, got ${describeValue(value)}`, text, at);
-        def[name === 'INTERVAL' ? 'interval' : 'count'] = Number(value);
+        // RFC 5545 section 3.3.10 gives both as 1*DIGIT with no upper bound; ours are stated in docs/schedules.md.
+        const max = name === 'INTERVAL' ? MAX_RFC5545_INTERVAL : MAX_COUNT;
+        if (!/^\d+$/.test(value)) throw syntax(`${name}: expected a positive integer, got ${describeValue(value)}`, text, at + eq + 1);
+        const n = value.length > 12 ? Number.POSITIVE_INFINITY : Number(value);
+        if (n < 1 || n > max) {
+          throw syntax(`${name}: expected an integer from 1 to ${max}, got ${describeValue(value)}${n === 0 ? '' : '; use UNTIL for a longer rule'}`, text, at + eq + 1, 'out-of-range');
+        }
+        def[name === 'INTERVAL' ? 'interval' : 'count'] = n;
         break;
       }
       case 'UNTIL': {
-        const v = readDateValue(value, text, at + eq + 1);
+        const v = readDateValue(value, text, at + eq + 1, 'UNTIL');
         def['until'] = v.iso;
         break;
       }
@@ -224,9 +255,15 @@ export function parseRecurrenceRule(text: string, options?: ParseRecurrenceOptio
   def['start'] = dtstart.iso.replace(/Z$/, '');
   if (dtstart.utc) def['zone'] = 'UTC';
   else if (dtstart.tzid !== undefined) def['zone'] = dtstart.tzid;
-  else if (!dtstart.dated && options?.zone !== undefined) def['zone'] = options.zone;
+  else if (!dtstart.dated && givenZone !== undefined) def['zone'] = givenZone;
   if (exdates.length > 0) def['exclude'] = exdates.map((x) => x.replace(/Z$/, ''));
   return defineRule(def as unknown as Rfc5545RuleDefinition);
+}
+
+/** An optional string option. */
+function optionalText(name: string, v: unknown): string | undefined {
+  if (v === undefined || typeof v === 'string') return v;
+  throw new KalendsTypeError(`${name}: expected a string or undefined, got ${describeValue(v)}`, { code: 'invalid-type', received: v });
 }
 
 function compact(iso: string): string {
@@ -242,7 +279,7 @@ function fold(line: string): string {
 }
 
 function unsupported(what: string): KalendsRangeError {
-  return new KalendsRangeError(`formatRecurrenceRule: ${what} has no RFC 5545 form`, { code: 'unsupported', received: what });
+  return new KalendsRangeError(`rule: ${what} has no RFC 5545 form; list its occurrences instead of writing it as RFC 5545 text`, { code: 'unsupported', received: what });
 }
 
 /** Options of {@link formatRecurrenceRule}. */
@@ -267,8 +304,9 @@ export interface FormatRecurrenceOptions {
  * ```
  */
 export function formatRecurrenceRule(rule: Rule, options?: FormatRecurrenceOptions): string {
-  const def = rfcDefinitionOf(rule, options?.start);
-  const newline = options?.newline ?? '\n';
+  const o = readOptions('options', options, ['start', 'newline']);
+  const newline = requireEnum<'\n' | '\r\n'>('options.newline', o['newline'], ['\n', '\r\n'], '\n');
+  const def = rfcDefinitionOf(rule, o['start']);
   const dated = !def.start.includes('T');
   const lines: string[] = [];
   const startValue = compact(def.start);
@@ -284,9 +322,9 @@ export function formatRecurrenceRule(rule: Rule, options?: FormatRecurrenceOptio
   if (def.byWeekNo) parts.push(`BYWEEKNO=${def.byWeekNo.join(',')}`);
   if (def.byYearDay) parts.push(`BYYEARDAY=${def.byYearDay.join(',')}`);
   if (def.byMonthDay) parts.push(`BYMONTHDAY=${def.byMonthDay.join(',')}`);
-  if (def.byDay) parts.push(`BYDAY=${def.byDay.map((e) => `${e.nth ?? ''}${WEEKDAY_CODES[WEEKDAY_NAMES.indexOf(e.weekday)]}`).join(',')}`);
+  if (def.byDay) parts.push(`BYDAY=${def.byDay.map((e) => `${e.nth ?? ''}${WEEKDAY_CODES[weekdayFromName(e.weekday) - 1]}`).join(',')}`);
   if (def.bySetPos) parts.push(`BYSETPOS=${def.bySetPos.join(',')}`);
-  if (def.weekStart !== undefined && def.weekStart !== 'monday') parts.push(`WKST=${WEEKDAY_CODES[WEEKDAY_NAMES.indexOf(def.weekStart)]}`);
+  if (def.weekStart !== undefined && def.weekStart !== 'monday') parts.push(`WKST=${WEEKDAY_CODES[weekdayFromName(def.weekStart) - 1]}`);
   lines.push(`RRULE:${parts.join(';')}`);
   if (def.exclude && def.exclude.length > 0) {
     const values = def.exclude.map(compact).join(',');
@@ -306,7 +344,7 @@ function weekdayName(v: unknown): WeekdayName {
  * @internal The RFC 5545 definition that expands like `rule` from its first occurrence on or after `origin`
  * (default: the rule's start, else its anchor), or an `'unsupported'` error naming what has no RFC 5545 form.
  */
-export function rfcDefinitionOf(rule: Rule, origin?: unknown): Rfc5545RuleDefinition {
+function rfcDefinitionOf(rule: Rule, origin?: unknown): Rfc5545RuleDefinition {
   const c = compiledOf(rule);
   const d = rule.definition as unknown as Record<string, unknown>;
   if (rule.kind === 'rfc5545') return rule.definition as Rfc5545RuleDefinition;
@@ -380,8 +418,8 @@ function monthlyParts(rule: Rule, d: Record<string, unknown>, out: Record<string
   } else {
     // The day comes from the anchor: its day of the month, or the month end under keepMonthEnd.
     const p = packedYmdUnchecked(toDayNumber(d['anchor'] ?? d['start']));
-    const day = p & 31;
-    const isLast = d['keepMonthEnd'] === true && day === dayCountOfMonthUnchecked(Math.floor(p / 512) + MIN_YEAR, (p >> 5) & 15);
+    const day = dayOfPacked(p);
+    const isLast = d['keepMonthEnd'] === true && day === dayCountOfMonthIndex(monthIndexOfPacked(p));
     sels.push(isLast ? { day: 'last' } : { day, whenShort: 'last-day' });
   }
   const days: number[] = [];

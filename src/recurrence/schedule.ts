@@ -11,8 +11,11 @@
  * @module
  */
 import { KalendsRangeError, KalendsTypeError, describeValue } from '../errors.js';
-import { dayCountOfMonthUnchecked, packedYmdUnchecked, dayNumberFromYmdUnchecked } from '../civil/gregorian.js';
-import { MIN_YEAR } from '../bounds.js';
+import { packedYmdUnchecked } from '../civil/gregorian.js';
+import { dayCountOfMonthIndex, dayOfPacked, firstDayNumberOfMonthIndex, monthIndexOfPacked } from '../civil/names.js';
+import { MAX_RULE_EVERY, MAX_SCHEDULE_PERIODS } from '../bounds.js';
+import { isRecord, ownField, readOptions, requireBoolean, requireEnum, requireWhole } from '../diagnostics/index.js';
+import { BUSINESS_DAY_CONVENTIONS } from '../business/index.js';
 import { businessOps, toDayNumber } from './deps.js';
 import { compiledOf, fillOccurrences } from './generate.js';
 import { Sink } from './engine.js';
@@ -59,41 +62,55 @@ export interface Schedule {
   readonly periods: readonly SchedulePeriod[];
 }
 
-const MAX_PERIODS = 1_000_000;
 const PLACEMENTS: readonly StubPlacement[] = ['short-front', 'long-front', 'short-back', 'long-back'];
 
 function rollMonths(rollDate: number, months: number, keepMonthEnd: boolean): number {
   const p = packedYmdUnchecked(rollDate);
-  const y = Math.floor(p / 512) + MIN_YEAR;
-  const m = (p >> 5) & 15;
-  const d = p & 31;
-  const eom = keepMonthEnd && d === dayCountOfMonthUnchecked(y, m);
-  const mi = y * 12 + m - 1 + months;
-  const ty = Math.floor(mi / 12);
-  const tm = mi - ty * 12 + 1;
-  const len = dayCountOfMonthUnchecked(ty, tm);
-  return dayNumberFromYmdUnchecked(ty, tm, eom ? len : Math.min(d, len));
+  const d = dayOfPacked(p);
+  const from = monthIndexOfPacked(p);
+  const eom = keepMonthEnd && d === dayCountOfMonthIndex(from);
+  const target = from + months;
+  const len = dayCountOfMonthIndex(target);
+  return firstDayNumberOfMonthIndex(target) + (eom ? len : Math.min(d, len)) - 1;
 }
 
 function stepOf(step: unknown): { unit: 'months' | 'days'; n: number } | Rule {
-  if (typeof step === 'object' && step !== null) {
-    const s = step as Record<string, unknown>;
+  if (isRecord(step)) {
+    if (ownField(step, 'kind') !== undefined && 'definition' in step) {
+      compiledOf(step, 'step');
+      return step as unknown as Rule;
+    }
+    const s = readOptions('step', step, ['months', 'weeks', 'days']);
     const keys = ['months', 'weeks', 'days'].filter((k) => s[k] !== undefined);
     if (keys.length === 1) {
       const k = keys[0]!;
-      const n = s[k];
-      if (typeof n !== 'number' || !Number.isInteger(n) || n < 1 || n > 100_000) {
-        throw new KalendsRangeError(`step.${k}: expected an integer from 1 to 100000, got ${describeValue(n)}`, { code: 'out-of-range', received: n });
-      }
+      const n = requireWhole(`step.${k}`, s[k], 1, MAX_RULE_EVERY);
       return k === 'months' ? { unit: 'months', n } : { unit: 'days', n: k === 'weeks' ? 7 * n : n };
     }
-    if (keys.length === 0 && 'kind' in s && 'definition' in s) {
-      compiledOf(step, 'step');
-      return step as Rule;
-    }
   }
-  throw new KalendsTypeError(`step: expected { months: n }, { weeks: n }, { days: n } or a date rule, got ${describeValue(step)}`, {
+  throw new KalendsTypeError(`step: expected one of { months: n }, { weeks: n }, { days: n }, or a date rule from defineRule, got ${describeValue(step)}`, {
     code: 'invalid-type',
+    received: step,
+  });
+}
+
+/** A date option: anything `toDayNumber` reads, with the option named in the message. */
+function dateOption(name: string, v: unknown): number {
+  if (v === undefined) throw new KalendsTypeError(`${name}: expected a date (an ISO 8601 date such as "2025-01-31" or a day number), got undefined`, { code: 'invalid-type', received: v });
+  try {
+    return toDayNumber(v);
+  } catch (e) {
+    const Ctor = e instanceof TypeError ? KalendsTypeError : KalendsRangeError;
+    throw new Ctor(`${name}: expected a date (an ISO 8601 date such as "2025-01-31" or a day number); ${(e as Error).message.replace(/^[A-Za-z]+: /, '')}`, {
+      code: e instanceof TypeError ? 'invalid-type' : 'out-of-range',
+      received: v,
+    });
+  }
+}
+
+function tooManyPeriods(step: unknown): KalendsRangeError {
+  return new KalendsRangeError(`step: the schedule would have more than ${MAX_SCHEDULE_PERIODS} periods; use a longer step or a shorter span`, {
+    code: 'limit-exceeded',
     received: step,
   });
 }
@@ -117,40 +134,37 @@ function stepOf(step: unknown): { unit: 'months' | 'days'; n: number } | Rule {
  * ```
  */
 export function defineSchedule(options: ScheduleOptions): Schedule {
-  if (typeof options !== 'object' || options === null) {
-    throw new KalendsTypeError(`options: expected { start, end, step, ... }, got ${describeValue(options)}`, { code: 'invalid-type', received: options });
-  }
-  const start = toDayNumber(options.start);
-  const end = toDayNumber(options.end);
+  if (options === undefined) throw new KalendsTypeError('options: expected { start, end, step, ... }, got undefined', { code: 'invalid-type', received: options });
+  const o = readOptions('options', options, ['start', 'end', 'step', 'stub', 'keepMonthEnd', 'calendar', 'convention']);
+  const start = dateOption('options.start', o['start']);
+  const end = dateOption('options.end', o['end']);
   if (end <= start) {
-    throw new KalendsRangeError(`end: expected a date after start (${describeValue(options.start)}), got ${describeValue(options.end)}`, {
+    throw new KalendsRangeError(`options.end: expected a date after start (${describeValue(o['start'])}), got ${describeValue(o['end'])}; a schedule runs forward`, {
       code: 'out-of-range',
-      received: options.end,
+      received: o['end'],
     });
   }
-  const stub = options.stub ?? 'short-front';
-  if (!PLACEMENTS.includes(stub)) {
-    throw new KalendsRangeError(`stub: expected one of ${PLACEMENTS.map((p) => JSON.stringify(p)).join(', ')}, got ${describeValue(stub)}`, {
-      code: 'out-of-range',
-      received: stub,
-    });
-  }
-  const convention = options.convention ?? 'none';
-  const cal = options.calendar !== undefined ? businessOps(options.calendar, 'calendar') : undefined;
+  const stub = requireEnum('options.stub', o['stub'], PLACEMENTS, 'short-front');
+  const convention = requireEnum('options.convention', o['convention'], BUSINESS_DAY_CONVENTIONS, 'none');
+  const keepMonthEnd = requireBoolean('options.keepMonthEnd', o['keepMonthEnd'], false);
+  const cal = o['calendar'] !== undefined ? businessOps(o['calendar'], 'options.calendar') : undefined;
   if (convention !== 'none' && !cal) {
-    throw new KalendsTypeError(`calendar: convention ${JSON.stringify(convention)} adjusts to business days, so a calendar is required`, {
+    throw new KalendsTypeError(`options.calendar: convention ${JSON.stringify(convention)} adjusts to business days, so a calendar is required; add calendar: 'us-federal' (or your own)`, {
       code: 'invalid-type',
       received: undefined,
     });
   }
-  const step = stepOf(options.step);
+  const step = stepOf(o['step']);
   const front = stub === 'short-front' || stub === 'long-front';
   const long = stub === 'long-front' || stub === 'long-back';
   const dates: number[] = [];
   let irregular: boolean;
   if ('unit' in step) {
+    // Fails at once when the span holds more whole steps than a schedule may have periods.
+    const steps = step.unit === 'months' ? (monthIndexOfPacked(packedYmdUnchecked(end)) - monthIndexOfPacked(packedYmdUnchecked(start))) / step.n : (end - start) / step.n;
+    if (steps > MAX_SCHEDULE_PERIODS + 1) throw tooManyPeriods(o['step']);
     const roll = (k: number): number =>
-      step.unit === 'months' ? rollMonths(front ? end : start, (front ? -k : k) * step.n, options.keepMonthEnd === true) : (front ? end - k * step.n : start + k * step.n);
+      step.unit === 'months' ? rollMonths(front ? end : start, (front ? -k : k) * step.n, keepMonthEnd) : (front ? end - k * step.n : start + k * step.n);
     const interior: number[] = [];
     let k = 1;
     for (;;) {
@@ -160,20 +174,26 @@ export function defineSchedule(options: ScheduleOptions): Schedule {
         break;
       }
       interior.push(d);
-      if (interior.length > MAX_PERIODS) {
-        throw new KalendsRangeError(`the schedule would have more than ${MAX_PERIODS} periods; use a longer step`, { code: 'limit-exceeded', received: options.step });
-      }
+      if (interior.length > MAX_SCHEDULE_PERIODS) throw tooManyPeriods(o['step']);
       k++;
     }
     if (front) interior.reverse();
-    dates.push(start, ...interior, end);
+    // No spread: a schedule may have a million dates, more than a call's arguments may hold.
+    dates.push(start);
+    for (const d of interior) dates.push(d);
+    dates.push(end);
   } else {
     const c = compiledOf(step, 'step');
-    if (c.values !== 'dates') throw new KalendsTypeError('step: expected a rule of dates, got a rule of instants', { code: 'invalid-type', received: step });
+    if (c.values !== 'dates') throw new KalendsTypeError(`step: expected a rule of dates, got a rule of instants (kind ${JSON.stringify(step.kind)}); a schedule steps by dates`, { code: 'invalid-type', received: step });
+    if (Number.isFinite(c.engine.maxGap) && c.convention === 'none' && (Math.min(end, c.rawEnd) - Math.max(start, c.rawStart)) / c.engine.maxGap > MAX_SCHEDULE_PERIODS + 1) {
+      throw tooManyPeriods(step);
+    }
     const out = new Sink(64);
     fillOccurrences(c, start + 1, end, out);
-    if (out.length > MAX_PERIODS) throw new KalendsRangeError(`the schedule would have more than ${MAX_PERIODS} periods`, { code: 'limit-exceeded', received: step });
-    dates.push(start, ...Array.from(out.data.subarray(0, out.length)), end);
+    if (out.length > MAX_SCHEDULE_PERIODS) throw tooManyPeriods(step);
+    dates.push(start);
+    for (let i = 0; i < out.length; i++) dates.push(out.data[i]!);
+    dates.push(end);
     const edge = new Sink(4);
     fillOccurrences(c, front ? start : end, (front ? start : end) + 1, edge);
     irregular = edge.length === 0;

@@ -60,7 +60,10 @@ export interface DateRuleCommon {
   readonly start?: DateInput;
   /** Dates the rule produces lie before this date (exclusive), before any adjustment. */
   readonly end?: DateInput;
-  /** At most this many occurrences, counted from `start` (which is then required). */
+  /**
+   * At most this many occurrences, counted from `start` (which is then required), before any adjustment: the
+   * first `count` dates of the rule, each then adjusted (two that adjust to the same day appear once).
+   */
   readonly count?: number;
   /** Business calendar for business-day selectors and for `convention`. */
   readonly calendar?: RuleCalendarInput;
@@ -147,11 +150,13 @@ export interface PeriodsRuleDefinition extends DateRuleCommon {
 /**
  * Every `every` minutes or hours in `zone`, counted from the wall-clock time `anchor`.
  * - `clock: 'wall'`: steps of wall-clock time (09:00, 09:30, ... local). A wall time that a DST gap skips is
- *   moved forward by the length of the gap (`skipped: 'shift-forward'`, as Temporal's `'compatible'`) or
- *   dropped (`'drop'`); a wall time that an overlap repeats happens once, at its earlier instant
- *   (`repeated: 'earlier'`), or twice (`'both'`).
+ *   moved forward by the length of the gap (`skipped: 'later'`, the instant Temporal's `'later'` and
+ *   `'compatible'` disambiguation give in a gap) or dropped (`'drop'`); a wall time that an overlap repeats
+ *   happens once, at its earlier instant (`repeated: 'earlier'`) or its later one (`'later'`), or twice (`'both'`).
  * - `clock: 'elapsed'`: steps of absolute time from the anchor's instant; DST never moves or drops a step, so the
  *   local times shift by the change of offset.
+ *
+ * Renamed in 0.2: `skipped: 'shift-forward'` is `skipped: 'later'`.
  */
 export interface IntradayRuleDefinition {
   readonly kind: 'intraday';
@@ -159,8 +164,8 @@ export interface IntradayRuleDefinition {
   readonly every: { readonly hours?: number; readonly minutes?: number };
   readonly anchor: string;
   readonly clock: 'wall' | 'elapsed';
-  readonly skipped?: 'shift-forward' | 'drop';
-  readonly repeated?: 'earlier' | 'both';
+  readonly skipped?: 'later' | 'drop';
+  readonly repeated?: 'earlier' | 'later' | 'both';
   readonly start?: InstantInput;
   readonly end?: InstantInput;
   readonly count?: number;

@@ -5,13 +5,13 @@
  */
 import { KalendsTypeError, describeValue } from '../errors.js';
 import { firstEpochMsOfDayNumber } from '../zone/index.js';
-import { type Rule, occurrenceBulk } from '../recurrence/index.js';
+import { type Rule, occurrenceDayNumberBulk, occurrenceEpochMsBulk } from '../recurrence/index.js';
 import { type ZoneInput, resolveZone } from './deps.js';
 
 /**
  * The occurrences of a recurrence rule in `[start, end)`. A rule of dates gives the first instant of each
  * local date in `zone`; a rule of instants gives its instants (and `zone` is not used). Occurrences come from
- * the recurrence layer's `occurrenceBulk`.
+ * the recurrence layer's `occurrenceDayNumberBulk` or `occurrenceEpochMsBulk`, as the rule's values are.
  */
 export interface RecurrenceGrid {
   readonly rule: Rule;
@@ -31,8 +31,8 @@ export function gridFromRule(grid: RecurrenceGrid): Float64Array {
       received: rule,
     });
   }
-  const occurrences = occurrenceBulk(rule, grid.start, grid.end);
-  if (occurrences instanceof Float64Array) return occurrences;
+  if (rule.values === 'instants') return occurrenceEpochMsBulk(rule, grid.start, grid.end);
+  const occurrences = occurrenceDayNumberBulk(rule, grid.start, grid.end);
   // A rule of dates: the first instant of each local date.
   const zone = resolveZone(grid.zone, 'options.grid.zone');
   const out = new Float64Array(occurrences.length);

@@ -124,20 +124,20 @@ describe('observance', () => {
   it('previous / next / nearest weekday, per weekend day', () => {
     expect(isoWeekday('2026-07-04')).toBe(6);
     expect(isoWeekday('2027-07-04')).toBe(7);
-    const us = base({ saturday: 'previous-weekday', sunday: 'next-weekday' });
+    const us = base({ saturday: 'previous-non-weekend-day', sunday: 'next-non-weekend-day' });
     expect(year(us, 2026).map((h) => h.date)).toEqual(['2026-07-03']);
     expect(year(us, 2027).map((h) => h.date)).toEqual(['2027-07-05']);
-    const nearest = base({ saturday: 'nearest-weekday', sunday: 'nearest-weekday' });
+    const nearest = base({ saturday: 'nearest-non-weekend-day', sunday: 'nearest-non-weekend-day' });
     expect(year(nearest, 2026).map((h) => h.date)).toEqual(['2026-07-03']);
     expect(year(nearest, 2027).map((h) => h.date)).toEqual(['2027-07-05']);
   });
   it('only the weekend days named trigger a move', () => {
-    const sundayOnly = base({ sunday: 'next-weekday' });
+    const sundayOnly = base({ sunday: 'next-non-weekend-day' });
     expect(year(sundayOnly, 2026)).toMatchObject([{ date: '2026-07-04', moved: false }]);
     expect(year(sundayOnly, 2027)).toMatchObject([{ date: '2027-07-05', actualDate: '2027-07-04', moved: true }]);
   });
   it('nearest weekday with a one-day weekend breaks the tie towards the later day', () => {
-    const cal = base({ sunday: 'nearest-weekday' }, ['sunday']);
+    const cal = base({ sunday: 'nearest-non-weekend-day' }, ['sunday']);
     expect(year(cal, 2027).map((h) => h.date)).toEqual(['2027-07-05']);
   });
   it('substitute days skip holidays already taken, in date order', () => {
@@ -153,10 +153,10 @@ describe('observance', () => {
     expect(year(cal, 2026).map((h) => `${h.date} ${h.name}`)).toEqual(['2026-07-06 Gamma', '2026-07-07 Alpha', '2026-07-08 Beta']);
   });
   it('observance keys must be weekend days; a rule may opt out with {}', () => {
-    const e = definitionError({ weekend: ['sunday'], observance: { saturday: 'next-weekday' } });
+    const e = definitionError({ weekend: ['sunday'], observance: { saturday: 'next-non-weekend-day' } });
     expect(e.issues[0]!.path).toBe('observance.saturday');
     const cal = defineCalendar({
-      observance: { saturday: 'previous-weekday' },
+      observance: { saturday: 'previous-non-weekend-day' },
       holidays: [{ name: 'Stays', kind: 'fixed', month: 7, day: 4, observance: {} }],
     });
     expect(year(cal, 2026).map((h) => h.date)).toEqual(['2026-07-04']);
@@ -374,7 +374,7 @@ describe('bad input', () => {
     expect(() => isBusinessDay({} as never, 0)).toThrow(KalendsTypeError);
     expect(() => isBusinessDay('us-federal', 1.5)).toThrow(KalendsRangeError);
     expect(() => isBusinessDay('us-federal', '2025-01-01' as never)).toThrow(KalendsTypeError);
-    expect(() => adjustDayNumber('us-federal', dn('2025-01-01'), 'modified' as never)).toThrow(/expected one of following/);
+    expect(() => adjustDayNumber('us-federal', dn('2025-01-01'), 'modified' as never)).toThrow(/^convention: expected one of "following", "modified-following"/);
   });
   it('a calendar whose holidays cover every weekday gives a no-business-day error, never a loop', () => {
     // Weekend Monday..Saturday, and the 1st..5th Sunday of every month as holidays: every Sunday is a holiday.
@@ -397,4 +397,78 @@ describe('bad input', () => {
       }
     }
   });
+
+  it('names every object inherits are never taken for a rule kind, an observance, a weekday or a calendar', () => {
+    // Old code: kind "constructor" threw an untyped TypeError; observances "toString" and "valueOf" were accepted
+    // and never moved the holiday.
+    const kind = definitionError({ holidays: [{ name: 'X', kind: 'constructor' }] });
+    expect(kind.issues.map((i) => i.path)).toEqual(['holidays[0].kind']);
+    expect(kind.message).toContain('"constructor"');
+    for (const shift of ['toString', 'valueOf', 'constructor', '__proto__']) {
+      const e = definitionError({ observance: { saturday: shift }, holidays: [{ name: 'X', kind: 'fixed', month: 7, day: 4 }] });
+      expect(e.issues.map((i) => i.path)).toEqual(['observance.saturday']);
+      expect(e.message).toContain(JSON.stringify(shift));
+    }
+    expect(definitionError({ weekend: ['constructor'] }).issues[0]!.path).toBe('weekend[0]');
+    expect(definitionError({ observance: { toString: 'substitute-day' } }).issues[0]!.path).toBe('observance.toString');
+    expect(definitionError({ extends: 'constructor' }).issues[0]!.path).toBe('extends');
+    expect(definitionError({ holidays: [{ name: 'X', kind: 'fixed', month: 7, day: 4, observance: { sunday: 'hasOwnProperty' } }] }).issues[0]!.path).toBe(
+      'holidays[0].observance.sunday',
+    );
+    for (const name of ['constructor', 'toString', '__proto__']) {
+      expect(() => calendarFromName(name)).toThrow(UnknownCalendarError);
+      expect(() => isBusinessDay(name, 0)).toThrow(UnknownCalendarError);
+    }
+  });
+
+  it('the observance spellings of 0.1 are refused with the new spelling suggested (no aliases)', () => {
+    const e = definitionError({ observance: { saturday: 'previous-weekday', sunday: 'next-weekday' } });
+    expect(e.issues.map((i) => i.path)).toEqual(['observance.saturday', 'observance.sunday']);
+    expect(e.message).toContain('observance.saturday: expected one of "previous-non-weekend-day"');
+    expect(e.message).toContain('did you mean "previous-non-weekend-day"?');
+    expect(e.message).toContain('did you mean "next-non-weekend-day"?');
+  });
+
+  it('unknown fields and misspelled values get a suggestion', () => {
+    const e = definitionError({ holidays: [{ name: 'X', kind: 'fixd', month: 7, day: 4 }], weekends: ['sunday'] });
+    expect(e.message).toContain('weekends: unknown field; did you mean "weekend"?');
+    expect(e.message).toContain('holidays[0].kind: expected one of');
+    expect(e.message).toContain('did you mean "fixed"?');
+  });
+
+  it('an unknown calendar has code unknown-name, lists the bundled names and suggests by meaning', () => {
+    try {
+      calendarFromName('target2');
+      expect.unreachable();
+    } catch (e) {
+      expect(e).toBeInstanceOf(UnknownCalendarError);
+      expect((e as UnknownCalendarError).code).toBe('unknown-name');
+      expect((e as Error).message).toMatch(/^name: unknown calendar "target2"; did you mean "euro-t2"\?; bundled calendars are "us-federal", "england-and-wales", "euro-t2"/);
+    }
+    expect(() => calendarFromName(5 as never)).toThrow(KalendsTypeError);
+  });
+
+  it('a day number given as text names the parser to call', () => {
+    expect(() => isBusinessDay('us-federal', '2025-01-01' as never)).toThrow(/^dayNumber: expected a day number \(an integer\), got "2025-01-01"; parse text first with parsePlainDate\(text\)/);
+    expect(() => countBusinessDays('us-federal', dn('2025-01-01'), '2025-02-01' as never)).toThrow(/^end: .*parsePlainDate/);
+    expect(() => shiftBusinessDays('us-federal', dn('2025-01-01'), '5' as never)).toThrow(/^n: expected an integer .*pass the number 5, not a string/);
+    expect(() => shiftBusinessDays('us-federal', dn('2025-01-01'), 1.5)).toThrow(KalendsRangeError);
+  });
+
+  it('a holiday list of the whole range passes its cap: limit-exceeded before anything is built, saying how to page', () => {
+    // Old code built 2.2 million holiday objects (3.4 s) for this call.
+    const start = dn('1971-01-01');
+    const end = dayNumberFromYmd(275760, 12, 31);
+    try {
+      listHolidays('us-federal', start, end);
+      expect.unreachable();
+    } catch (e) {
+      expect(e).toBeInstanceOf(KalendsRangeError);
+      expect((e as KalendsRangeError).code).toBe('limit-exceeded');
+      expect((e as Error).message).toMatch(/^end: the range 1971-01-01\.\.\+275760-12-31 can hold up to \d+ holidays .*more than the 100000 one list may return; list at most about \d+ years at a time/);
+    }
+    // A page of 1,000 years stays under the cap (11 holidays a year, 5 U.S.C. 6103(a)).
+    expect(listHolidays('us-federal', dn('2000-01-01'), dn('3000-01-01')).length).toBeGreaterThan(10_000);
+  });
 });
+

@@ -26,7 +26,7 @@ import { easterDayNumberOfYear, julianEasterDayNumberOfYear } from '../../src/ci
 const SEED = 20260505;
 const DAY_MS = 86_400_000;
 const WEEKDAYS = ['monday', 'tuesday', 'wednesday', 'thursday', 'friday', 'saturday', 'sunday'] as const;
-const SHIFTS = ['previous-weekday', 'next-weekday', 'nearest-weekday', 'substitute-day'] as const;
+const SHIFTS = ['previous-non-weekend-day', 'next-non-weekend-day', 'nearest-non-weekend-day', 'substitute-day'] as const;
 const CONVENTIONS: readonly BusinessDayConvention[] = ['following', 'modified-following', 'preceding', 'modified-preceding', 'none'];
 
 // ---- naive evaluator -----------------------------------------------------------------------------------------
@@ -99,9 +99,9 @@ function naive(def: CalendarDefinition, y0: number, y1: number): NaiveCalendar {
   for (const i of inst) {
     const s = shiftOf(i.rule, i.actual);
     let d = i.actual;
-    if (s === 'previous-weekday') do d--; while (isWeekend(d));
-    else if (s === 'next-weekday') do d++; while (isWeekend(d));
-    else if (s === 'nearest-weekday') {
+    if (s === 'previous-non-weekend-day') do d--; while (isWeekend(d));
+    else if (s === 'next-non-weekend-day') do d++; while (isWeekend(d));
+    else if (s === 'nearest-non-weekend-day') {
       let b = d;
       let a = d;
       do b--; while (isWeekend(b));

@@ -7,7 +7,7 @@
 import { describe, expect, it } from 'vitest';
 import {
   adjustDayNumber, bucketSeries, countBusinessDays, lengthMsOfDayNumber, defineRule, defineUnit, epochMsFromWallMs,
-  formatInstant, formatPeriod, formatPlainDate, formatOrdinalBulk, listHolidays, listOccurrences,
+  formatInstant, formatPeriod, formatPlainDate, formatOrdinalBulk, listHolidays, listOccurrenceDayNumbers,
   ordinalFromEpochMsBulk, parseInstant, parsePlainDate, parsePlainDateTime, periodFromEpochMs, resolveWallMs,
   rollSeries, seriesFromRecords, shiftBusinessDays,
 } from '../../src/index.js';
@@ -46,7 +46,7 @@ describe('README tour', () => {
     const supplierPay = defineRule({
       kind: 'monthly', on: [{ day: 15 }, { businessDay: 'last' }], calendar: 'us-federal', convention: 'modified-following',
     });
-    expect(listOccurrences(supplierPay, '2025-05-01', '2025-07-01').map(formatPlainDate)).toEqual([
+    expect(listOccurrenceDayNumbers(supplierPay, '2025-05-01', '2025-07-01').map(formatPlainDate)).toEqual([
       '2025-05-15', '2025-05-30', '2025-06-16', '2025-06-30',
     ]);
   });

@@ -18,7 +18,7 @@ import {
   defineUnit,
   isBusinessDay,
   listHolidays,
-  listOccurrences,
+  listOccurrenceDayNumbers,
   nthBusinessDayOfRange,
 } from '../../src/index.js';
 import { appendBusinessDaysUnchecked, nthBusinessDayInRangeUnchecked } from '../../src/business/calendar.js';
@@ -26,7 +26,7 @@ import { appendBusinessDaysUnchecked, nthBusinessDayInRangeUnchecked } from '../
 const SEED = 20261208;
 const DAY_MS = 86_400_000;
 const WEEKDAYS = ['monday', 'tuesday', 'wednesday', 'thursday', 'friday', 'saturday', 'sunday'] as const;
-const SHIFTS = ['previous-weekday', 'next-weekday', 'nearest-weekday'] as const;
+const SHIFTS = ['previous-non-weekend-day', 'next-non-weekend-day', 'nearest-non-weekend-day'] as const;
 
 const dayOf = (y: number, m: number, d: number) => Date.UTC(y, m - 1, d) / DAY_MS;
 const weekdayOf = (dn: number) => ((new Date(dn * DAY_MS).getUTCDay() + 6) % 7) + 1;
@@ -181,7 +181,7 @@ describe('business layer fast path (internal, unchecked)', () => {
       id: 'long',
       years: { from: 1, until: 5200 },
       holidays: [{ id: 'new-year', name: 'New Year', kind: 'fixed', month: 1, day: 1 }],
-      observance: { saturday: 'previous-weekday', sunday: 'next-weekday' },
+      observance: { saturday: 'previous-non-weekend-day', sunday: 'next-non-weekend-day' },
     });
     const year1 = new Date(0);
     year1.setUTCFullYear(1, 0, 1); // Date.UTC would read year 1 as 1901
@@ -217,7 +217,7 @@ describe('recurrence rules on the fast path equal the slow path', () => {
           const days = picks.map((p) => scanNth(c, a, b, p === 'last' ? -1 : p)).filter((d) => !Number.isNaN(d));
           want.push(...[...new Set(days)].sort((x, y) => x - y));
         }
-        expect(listOccurrences(rule, c.firstDay, c.endDay)).toEqual(want);
+        expect(listOccurrenceDayNumbers(rule, c.firstDay, c.endDay)).toEqual(want);
       }),
       { seed: SEED, numRuns: 100 },
     );
@@ -232,7 +232,7 @@ describe('recurrence rules on the fast path equal the slow path', () => {
           const zero = c.business.findIndex((d) => d >= anchor);
           const base = zero < 0 ? c.business.length : zero;
           const want = c.business.filter((d, i) => d >= a && d < b && (((i - base) % every) + every) % every === 0);
-          expect(listOccurrences(rule, a, b)).toEqual(want);
+          expect(listOccurrenceDayNumbers(rule, a, b)).toEqual(want);
         },
       ),
       { seed: SEED, numRuns: 120 },
@@ -263,7 +263,7 @@ describe('recurrence rules on the fast path equal the slow path', () => {
             const d = scanNth(c, bounds[i]!, bounds[i + 1]!, n);
             if (!Number.isNaN(d)) want.push(d);
           }
-          expect(listOccurrences(rule, bounds[0]!, bounds[bounds.length - 1]!)).toEqual(want);
+          expect(listOccurrenceDayNumbers(rule, bounds[0]!, bounds[bounds.length - 1]!)).toEqual(want);
         },
       ),
       { seed: SEED, numRuns: 80 },
@@ -275,9 +275,9 @@ describe('recurrence rules on the fast path equal the slow path', () => {
     const quarters = defineUnit({ kind: 'fiscal-quarter', start: { month: 11, day: 1 }, naming: 'end-year' });
     // The quarter 2021-11-01..2022-02-01 reaches past 2021: its last business day is outside the calendar.
     const last = defineRule({ kind: 'periods', unit: quarters, on: { businessDay: 'last' }, calendar: cal });
-    expect(() => listOccurrences(last, '2021-11-01', '2022-01-01')).toThrow(KalendsRangeError);
+    expect(() => listOccurrenceDayNumbers(last, '2021-11-01', '2022-01-01')).toThrow(KalendsRangeError);
     // Its first business day is found inside the calendar before the scan leaves it: 2021-11-01 is a Monday.
     const first = defineRule({ kind: 'periods', unit: quarters, on: { businessDay: 1 }, calendar: cal });
-    expect(listOccurrences(first, '2021-11-01', '2022-01-01')).toEqual([dayOf(2021, 11, 1)]);
+    expect(listOccurrenceDayNumbers(first, '2021-11-01', '2022-01-01')).toEqual([dayOf(2021, 11, 1)]);
   });
 });

@@ -13,7 +13,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { Temporal } from '@js-temporal/polyfill';
-import { KalendsSyntaxError, listFirstOccurrences, parseRecurrenceRule } from '../../src/index.js';
+import { KalendsSyntaxError, iterateOccurrenceEpochMs, parseRecurrenceRule } from '../../src/index.js';
 
 const NY = 'America/New_York';
 
@@ -47,7 +47,7 @@ function check(text: string, expected: readonly string[], bounded: boolean): voi
     hour: Number(dtstart[4]),
     minute: Number(dtstart[5]),
   }).epochMilliseconds;
-  const got = listFirstOccurrences(rule, startMs, bounded ? 10_000 : expected.length).map(local);
+  const got = Array.from(iterateOccurrenceEpochMs(rule, startMs, { limit: bounded ? 10_000 : expected.length }), local);
   expect(got).toEqual(expected);
 }
 

@@ -12,7 +12,7 @@ import {
   defineRule,
   formatPlainDate,
   formatRecurrenceRule,
-  listOccurrences,
+  listOccurrenceDayNumbers,
   parseRecurrenceRule,
 } from '../../src/index.js';
 
@@ -32,14 +32,14 @@ describe('parsing', () => {
   it('a DATE DTSTART gives a rule of dates; a bare rule takes options.start', () => {
     const rule = parseRecurrenceRule('DTSTART;VALUE=DATE:20250131\nRRULE:FREQ=MONTHLY;BYMONTHDAY=-1;COUNT=3');
     expect(rule.values).toBe('dates');
-    expect(listOccurrences(rule, '2025-01-01', '2026-01-01').map(formatPlainDate)).toEqual(['2025-01-31', '2025-02-28', '2025-03-31']);
+    expect(listOccurrenceDayNumbers(rule, '2025-01-01', '2026-01-01').map(formatPlainDate)).toEqual(['2025-01-31', '2025-02-28', '2025-03-31']);
     const bare = parseRecurrenceRule('FREQ=WEEKLY;BYDAY=MO,FR;COUNT=3', { start: '2025-01-06' });
-    expect(listOccurrences(bare, '2025-01-01', '2026-01-01').map(formatPlainDate)).toEqual(['2025-01-06', '2025-01-10', '2025-01-13']);
+    expect(listOccurrenceDayNumbers(bare, '2025-01-01', '2026-01-01').map(formatPlainDate)).toEqual(['2025-01-06', '2025-01-10', '2025-01-13']);
   });
 
   it('rule parts in any order, lower case, folded lines (RFC 5545 sections 3.1 and 3.3.10)', () => {
     const a = parseRecurrenceRule('DTSTART;VALUE=DATE:19970902\r\nRRULE:count=4;freq=weekly;\r\n byday=TU,TH');
-    expect(listOccurrences(a, '1997-01-01', '1998-01-01').map(formatPlainDate)).toEqual(['1997-09-02', '1997-09-04', '1997-09-09', '1997-09-11']);
+    expect(listOccurrenceDayNumbers(a, '1997-01-01', '1998-01-01').map(formatPlainDate)).toEqual(['1997-09-02', '1997-09-04', '1997-09-09', '1997-09-11']);
   });
 
   it('unsupported parts name the part', () => {
@@ -73,13 +73,12 @@ describe('parsing', () => {
     }
   });
 
-  it('combinations RFC 5545 forbids, INTERVAL=0 and rules that never produce a date are definition errors', () => {
+  it('combinations RFC 5545 forbids and rules that never produce a date are definition errors; INTERVAL=0 is out of range in the text', () => {
     const forbidden = [
       ['RRULE:FREQ=MONTHLY;BYWEEKNO=20', 'byWeekNo'],
       ['RRULE:FREQ=WEEKLY;BYMONTHDAY=1', 'byMonthDay'],
       ['RRULE:FREQ=DAILY;BYDAY=1MO', 'byDay'],
       ['RRULE:FREQ=DAILY;BYSETPOS=1', 'bySetPos'],
-      ['RRULE:FREQ=DAILY;INTERVAL=0', 'interval'],
       ['RRULE:FREQ=YEARLY;BYMONTH=2;BYMONTHDAY=30', 'frequency'],
     ] as const;
     for (const [rrule, path] of forbidden) {
@@ -91,6 +90,17 @@ describe('parsing', () => {
       }
       expect(caught, rrule).toBeInstanceOf(DefinitionError);
       expect((caught as DefinitionError).issues.map((i) => i.path)).toContain(path);
+    }
+    // INTERVAL is 1*DIGIT (RFC 5545 section 3.3.10) and a rule of interval 0 would never move: the text's field is
+    // out of range, reported where it stands.
+    const text = 'DTSTART;VALUE=DATE:19970902\nRRULE:FREQ=DAILY;INTERVAL=0';
+    try {
+      parseRecurrenceRule(text);
+      expect.unreachable();
+    } catch (e) {
+      expect(e).toBeInstanceOf(KalendsSyntaxError);
+      expect((e as KalendsSyntaxError).code).toBe('out-of-range');
+      expect((e as KalendsSyntaxError).position).toBe(text.indexOf('INTERVAL=0') + 9);
     }
   });
 });
@@ -144,7 +154,7 @@ describe('formatting', () => {
         const text = formatRecurrenceRule(rule);
         const back = parseRecurrenceRule(text);
         const a = (def as { start: number }).start;
-        expect(listOccurrences(back, a, a + 400 + span), text).toEqual(listOccurrences(rule, a, a + 400 + span));
+        expect(listOccurrenceDayNumbers(back, a, a + 400 + span), text).toEqual(listOccurrenceDayNumbers(rule, a, a + 400 + span));
       }),
       { seed: SEED, numRuns: 200 },
     );

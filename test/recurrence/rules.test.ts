@@ -15,20 +15,21 @@ import {
   defineRule,
   describeRule,
   formatPlainDate,
-  iterateOccurrences,
-  listFirstOccurrences,
-  listOccurrences,
-  matchesRule,
-  nextOccurrence,
-  occurrenceBulk,
+  iterateOccurrenceDayNumbers,
+  listOccurrenceDayNumbers,
+  isOccurrenceDayNumber,
+  nextOccurrenceDayNumber,
+  occurrenceDayNumberBulk,
   parsePlainDate,
-  previousOccurrence,
+  previousOccurrenceDayNumber,
 } from '../../src/index.js';
 
 const SEED = 20261206;
 const iso = (dn: number) => formatPlainDate(dn);
-const dates = (rule: Rule, a: string, b: string) => listOccurrences(rule, a, b).map(iso);
+const dates = (rule: Rule, a: string, b: string) => listOccurrenceDayNumbers(rule, a, b).map(iso);
 const pd = (s: string) => Temporal.PlainDate.from(s);
+/** The first n occurrences on or after `from`. */
+const firstOf = (rule: Rule, from: string, n: number) => Array.from(iterateOccurrenceDayNumbers(rule, from, { limit: n }));
 
 function definitionError(f: () => unknown): DefinitionError {
   try {
@@ -57,7 +58,7 @@ describe('monthly rules', () => {
 
   it('an anchored monthly schedule is anchor + n months, so the 31st does not drift (Temporal add from the anchor)', () => {
     const rule = defineRule({ kind: 'monthly', anchor: '2025-01-31' });
-    const got = listFirstOccurrences(rule, '2025-01-31', 14).map(iso);
+    const got = firstOf(rule, '2025-01-31', 14).map(iso);
     const expected = Array.from({ length: 14 }, (_, k) => pd('2025-01-31').add({ months: k }).toString());
     expect(got).toEqual(expected);
     expect(got.slice(0, 3)).toEqual(['2025-01-31', '2025-02-28', '2025-03-31']);
@@ -66,17 +67,17 @@ describe('monthly rules', () => {
   it('end-of-month rule: an anchor on a month end stays on month ends; without it the day is kept', () => {
     const eom = defineRule({ kind: 'monthly', anchor: '2025-02-28', keepMonthEnd: true });
     const plain = defineRule({ kind: 'monthly', anchor: '2025-02-28' });
-    const eomDates = listFirstOccurrences(eom, '2025-02-01', 6);
+    const eomDates = firstOf(eom, '2025-02-01', 6);
     for (const dn of eomDates) {
       const d = pd(iso(dn));
       expect(d.day).toBe(d.daysInMonth);
     }
-    expect(listFirstOccurrences(plain, '2025-02-01', 3).map(iso)).toEqual(['2025-02-28', '2025-03-28', '2025-04-28']);
+    expect(firstOf(plain, '2025-02-01', 3).map(iso)).toEqual(['2025-02-28', '2025-03-28', '2025-04-28']);
   });
 
   it('every 3 months from an anchor, computed from the anchor month', () => {
     const rule = defineRule({ kind: 'monthly', every: 3, anchor: '2024-11-30', on: { day: 30, whenShort: 'last-day' } });
-    const got = listFirstOccurrences(rule, '2024-01-01', 5).map(iso);
+    const got = firstOf(rule, '2024-01-01', 5).map(iso);
     // The schedule extends backwards from the anchor too.
     const expected = [-9, -6, -3, 0, 3].map((k) => pd('2024-11-30').add({ months: k }).toString());
     expect(got).toEqual(expected);
@@ -95,7 +96,7 @@ describe('monthly rules', () => {
           const matching: string[] = [];
           for (let d = first; d.month === month; d = d.add({ days: 1 })) if (d.dayOfWeek === weekday) matching.push(d.toString());
           const want = nth > 0 ? matching[nth - 1] : matching[matching.length + nth];
-          const got = listOccurrences(rule, first.toString(), first.add({ months: 1 }).toString()).map(iso);
+          const got = listOccurrenceDayNumbers(rule, first.toString(), first.add({ months: 1 }).toString()).map(iso);
           expect(got).toEqual(want === undefined ? [] : [want]);
         },
       ),
@@ -158,8 +159,8 @@ describe('days and weeks', () => {
     const mon = defineRule({ kind: 'weekly', weekdays: ['sunday', 'tuesday'], every: 2, anchor: '1997-08-05' });
     const sun = defineRule({ kind: 'weekly', weekdays: ['sunday', 'tuesday'], every: 2, anchor: '1997-08-05', weekStart: 'sunday' });
     // The two WKST examples of RFC 5545 section 3.8.5.3.
-    expect(listFirstOccurrences(mon, '1997-08-05', 4).map(iso)).toEqual(['1997-08-05', '1997-08-10', '1997-08-19', '1997-08-24']);
-    expect(listFirstOccurrences(sun, '1997-08-05', 4).map(iso)).toEqual(['1997-08-05', '1997-08-17', '1997-08-19', '1997-08-31']);
+    expect(firstOf(mon, '1997-08-05', 4).map(iso)).toEqual(['1997-08-05', '1997-08-10', '1997-08-19', '1997-08-24']);
+    expect(firstOf(sun, '1997-08-05', 4).map(iso)).toEqual(['1997-08-05', '1997-08-17', '1997-08-19', '1997-08-31']);
   });
 });
 
@@ -202,11 +203,11 @@ describe('generation properties (seeded fast-check)', () => {
         const rule = defineRule(def);
         const b = a + d1;
         const c = b + d2;
-        const whole = listOccurrences(rule, a, c);
-        expect([...listOccurrences(rule, a, b), ...listOccurrences(rule, b, c)]).toEqual(whole);
+        const whole = listOccurrenceDayNumbers(rule, a, c);
+        expect([...listOccurrenceDayNumbers(rule, a, b), ...listOccurrenceDayNumbers(rule, b, c)]).toEqual(whole);
         for (let i = 1; i < whole.length; i++) expect(whole[i]!).toBeGreaterThan(whole[i - 1]!);
-        for (const dn of whole) expect(matchesRule(rule, dn)).toBe(true);
-        expect(Array.from(occurrenceBulk(rule, a, c))).toEqual(whole);
+        for (const dn of whole) expect(isOccurrenceDayNumber(rule, dn)).toBe(true);
+        expect(Array.from(occurrenceDayNumberBulk(rule, a, c))).toEqual(whole);
       }),
       { seed: SEED, numRuns: 300 },
     );
@@ -216,16 +217,16 @@ describe('generation properties (seeded fast-check)', () => {
     fc.assert(
       fc.property(civilRule, fc.integer({ min: 0, max: 20000 }), (def, x) => {
         const rule = defineRule(def);
-        const n = nextOccurrence(rule, x)!;
-        const p = previousOccurrence(rule, x)!;
+        const n = nextOccurrenceDayNumber(rule, x)!;
+        const p = previousOccurrenceDayNumber(rule, x)!;
         expect(n).toBeGreaterThan(x);
         expect(p).toBeLessThan(x);
-        const between = listOccurrences(rule, p, n + 1);
+        const between = listOccurrenceDayNumbers(rule, p, n + 1);
         expect(between[0]).toBe(p);
         expect(between[between.length - 1]).toBe(n);
         expect(between.filter((d) => d !== x).length).toBe(2);
-        expect(previousOccurrence(rule, n)).toBe(matchesRule(rule, x) ? x : p);
-        expect(nextOccurrence(rule, x, { inclusive: true })).toBe(matchesRule(rule, x) ? x : n);
+        expect(previousOccurrenceDayNumber(rule, n)).toBe(isOccurrenceDayNumber(rule, x) ? x : p);
+        expect(nextOccurrenceDayNumber(rule, x, { inclusive: true })).toBe(isOccurrenceDayNumber(rule, x) ? x : n);
       }),
       { seed: SEED, numRuns: 300 },
     );
@@ -237,23 +238,23 @@ describe('bounds, counts and iteration', () => {
     const rule = defineRule({ kind: 'monthly', on: { day: 1 }, start: '2025-03-01', count: 3 });
     expect(dates(rule, '2020-01-01', '2030-01-01')).toEqual(['2025-03-01', '2025-04-01', '2025-05-01']);
     const ended = defineRule({ kind: 'monthly', on: { day: 1 }, end: '2025-03-01' });
-    expect(nextOccurrence(ended, '2025-02-01')).toBeNull();
-    expect(listOccurrences(ended, '2025-01-01', '2025-03-01', { endInclusive: true }).map(iso)).toEqual(['2025-01-01', '2025-02-01']);
-    expect([...iterateOccurrences(rule, '2025-01-01')].map(iso)).toEqual(['2025-03-01', '2025-04-01', '2025-05-01']);
+    expect(nextOccurrenceDayNumber(ended, '2025-02-01')).toBeNull();
+    expect(listOccurrenceDayNumbers(ended, '2025-01-01', '2025-03-01', { endInclusive: true }).map(iso)).toEqual(['2025-01-01', '2025-02-01']);
+    expect([...iterateOccurrenceDayNumbers(rule, '2025-01-01')].map(iso)).toEqual(['2025-03-01', '2025-04-01', '2025-05-01']);
   });
 
-  it('listOccurrences is end-exclusive; endInclusive includes the end', () => {
+  it('listOccurrenceDayNumbers is end-exclusive; endInclusive includes the end', () => {
     const rule = defineRule({ kind: 'days' });
-    expect(listOccurrences(rule, '2025-01-01', '2025-01-03').map(iso)).toEqual(['2025-01-01', '2025-01-02']);
-    expect(listOccurrences(rule, '2025-01-01', '2025-01-03', { endInclusive: true }).map(iso)).toEqual(['2025-01-01', '2025-01-02', '2025-01-03']);
+    expect(listOccurrenceDayNumbers(rule, '2025-01-01', '2025-01-03').map(iso)).toEqual(['2025-01-01', '2025-01-02']);
+    expect(listOccurrenceDayNumbers(rule, '2025-01-01', '2025-01-03', { endInclusive: true }).map(iso)).toEqual(['2025-01-01', '2025-01-02', '2025-01-03']);
   });
 
   it('iteration yields at most the limit; the bulk form is a typed array', () => {
     const rule = defineRule({ kind: 'weekly', weekdays: ['friday'] });
-    const got = [...iterateOccurrences(rule, '2025-01-01', { limit: 5 })];
+    const got = [...iterateOccurrenceDayNumbers(rule, '2025-01-01', { limit: 5 })];
     expect(got).toHaveLength(5);
     expect(got.map(iso)[0]).toBe('2025-01-03');
-    const bulk = occurrenceBulk(rule, '2025-01-01', '2026-01-01');
+    const bulk = occurrenceDayNumberBulk(rule, '2025-01-01', '2026-01-01');
     expect(bulk).toBeInstanceOf(Int32Array);
     expect(bulk.length).toBe(52); // 2025 has 52 Fridays (January 3 to December 26), checked with Temporal below
     expect(pd('2025-01-03').add({ weeks: 51 }).toString()).toBe('2025-12-26');
@@ -291,14 +292,14 @@ describe('bad input gives typed errors naming the value; nothing hangs', () => {
     const rule = defineRule({ kind: 'days' });
     let caught: unknown;
     try {
-      iterateOccurrences(rule, '2025-01-01').next();
+      iterateOccurrenceDayNumbers(rule, '2025-01-01').next();
     } catch (e) {
       caught = e;
     }
     expect(caught).toBeInstanceOf(KalendsRangeError);
     expect((caught as KalendsRangeError).code).toBe('limit-exceeded');
     expect((caught as Error).message).toContain('options.limit');
-    expect(() => listOccurrences(rule, '0001-01-01', '9999-01-01', { maxCount: 1000 })).toThrow(/maxCount/);
+    expect(() => listOccurrenceDayNumbers(rule, '0001-01-01', '9999-01-01', { maxCount: 1000 })).toThrow(/maxCount/);
   });
 
   it('collects every fault with its path: missing whenShort, unknown field, count without start, bad weekday', () => {
@@ -312,9 +313,9 @@ describe('bad input gives typed errors naming the value; nothing hangs', () => {
 
   it('unknown kinds and wrong argument types', () => {
     expect(definitionError(() => defineRule({ kind: 'fortnightly' } as unknown as RuleDefinition)).issues[0]!.path).toBe('kind');
-    expect(() => listOccurrences({} as Rule, 0, 1)).toThrow(KalendsTypeError);
-    expect(() => listOccurrences(defineRule({ kind: 'days' }), '2025-13-01', '2026-01-01')).toThrow(/start/);
-    expect(() => listOccurrences(defineRule({ kind: 'days' }), '2025-02-01', '2025-01-01')).toThrow(/end/);
+    expect(() => listOccurrenceDayNumbers({} as Rule, 0, 1)).toThrow(KalendsTypeError);
+    expect(() => listOccurrenceDayNumbers(defineRule({ kind: 'days' }), '2025-13-01', '2026-01-01')).toThrow(/start/);
+    expect(() => listOccurrenceDayNumbers(defineRule({ kind: 'days' }), '2025-02-01', '2025-01-01')).toThrow(/end/);
   });
 });
 

@@ -3,6 +3,7 @@
  *
  * @module
  */
+import { suggestNames } from '../../diagnostics/index.js';
 import type { BundledCalendarName, CalendarDefinition } from '../definition.js';
 import { ENGLAND_AND_WALES_BANK_HOLIDAYS } from './england-and-wales.js';
 import { EURO_T2_CLOSING_DAYS } from './euro-t2.js';
@@ -23,7 +24,7 @@ export const BUNDLED_CALENDAR_NAMES: readonly BundledCalendarName[] = Object.fre
 );
 
 /** Words people may type for a bundled calendar; used only to suggest the right name. */
-const HINTS: Readonly<Record<string, BundledCalendarName>> = {
+const HINTS: Readonly<Record<string, BundledCalendarName>> = Object.freeze({
   us: 'us-federal',
   usa: 'us-federal',
   federal: 'us-federal',
@@ -39,32 +40,9 @@ const HINTS: Readonly<Record<string, BundledCalendarName>> = {
   ecb: 'euro-t2',
   euro: 'euro-t2',
   eur: 'euro-t2',
-};
+});
 
-function distance(a: string, b: string): number {
-  const row = Array.from({ length: b.length + 1 }, (_, j) => j);
-  for (let i = 1; i <= a.length; i++) {
-    let prev = row[0]!;
-    row[0] = i;
-    for (let j = 1; j <= b.length; j++) {
-      const cur = row[j]!;
-      row[j] = Math.min(row[j]! + 1, row[j - 1]! + 1, prev + (a[i - 1] === b[j - 1] ? 0 : 1));
-      prev = cur;
-    }
-  }
-  return row[b.length]!;
-}
-
-/** @internal Bundled names close to `name` (by edit distance, containment or a common synonym). */
-export function suggestCalendarNames(name: string): string[] {
-  if (typeof name !== 'string') return [];
-  const key = name.trim().toLowerCase().replace(/[\s_]+/g, '-');
-  const out = new Set<string>();
-  const hint = Object.prototype.hasOwnProperty.call(HINTS, key) ? HINTS[key] : undefined;
-  if (hint) out.add(hint);
-  for (const candidate of BUNDLED_CALENDAR_NAMES) {
-    if (key.length >= 2 && (candidate.includes(key) || key.includes(candidate))) out.add(candidate);
-    else if (distance(key, candidate) <= Math.max(2, Math.floor(candidate.length / 4))) out.add(candidate);
-  }
-  return [...out];
+/** @internal Bundled names close to `name`: a common synonym first, then the nearest by spelling. */
+export function suggestCalendarNames(name: unknown): string[] {
+  return suggestNames(name, BUNDLED_CALENDAR_NAMES, { synonyms: HINTS });
 }

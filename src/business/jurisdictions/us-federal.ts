@@ -26,7 +26,7 @@ export const US_FEDERAL_HOLIDAYS: CalendarDefinition = deepFreezeDefinition({
     '5 U.S.C. 6103(c)) and closures of federal offices by executive order (for example an extra day at Christmas or a ' +
     'national day of mourning); add them as additions. Banks, exchanges and states keep their own calendars.',
   weekend: ['saturday', 'sunday'],
-  observance: { saturday: 'previous-weekday', sunday: 'next-weekday' },
+  observance: { saturday: 'previous-non-weekend-day', sunday: 'next-non-weekend-day' },
   years: { from: 1971 },
   holidays: [
     { id: 'new-years-day', name: "New Year's Day", kind: 'fixed', month: 1, day: 1 },

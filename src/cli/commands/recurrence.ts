@@ -13,7 +13,8 @@ import {
   formatInstant,
   formatPlainDate,
   formatRecurrenceRule,
-  iterateOccurrences,
+  iterateOccurrenceDayNumbers,
+  iterateOccurrenceEpochMs,
   parseRecurrenceRule,
   toDayNumber,
   toEpochMs,
@@ -121,7 +122,8 @@ ${RULE_TEXT}`,
     const out = new Output(io);
     const writer = new RowWriter(out, optionFlag(args, 'json'), dates ? ['date', 'weekday'] : ['instant']);
     let n = 0;
-    for (const v of iterateOccurrences(rule, from, { limit: count ?? MAX_OCCURRENCES })) {
+    const iterate = dates ? iterateOccurrenceDayNumbers : iterateOccurrenceEpochMs;
+    for (const v of iterate(rule, from, { limit: count ?? MAX_OCCURRENCES })) {
       if (v >= end) break;
       n++;
       await writer.write(dates ? { date: formatPlainDate(v), weekday: weekdayTitle(v) } : { instant: formatInstant(v) });
