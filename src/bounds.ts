@@ -24,3 +24,15 @@ export const MAX_EPOCH_MS = 8.64e15;
 export const MS_PER_DAY = 86_400_000;
 /** Largest absolute UTC offset accepted, in seconds (exclusive of 24 hours, as in RFC 9557 and Temporal). */
 export const MAX_OFFSET_SECONDS = 86_399;
+
+/**
+ * The most periods (rows) one series call may produce, even when asked: a bucket range, an alignment, a grid of
+ * periods. More is almost certainly a mistaken unit or range.
+ */
+export const MAX_BUCKET_PERIODS = 50_000_000;
+/**
+ * The most rows a series call produces beyond its input unless the caller raises it with the call's `maxRows`
+ * option (up to {@link MAX_BUCKET_PERIODS}): a bucket range, an alignment, a fill grid. One million days is
+ * about 2,738 years; past it, page with a narrower range or a coarser unit.
+ */
+export const MAX_SERIES_ROWS = 1_000_000;

@@ -137,7 +137,7 @@ export const section: DemoSection = {
     }
 
     const daily = seriesFromBuckets(bucketSeries(sales, { unit: 'day', zone: BOOKING_ZONE, aggregations: ['sum'] }));
-    const smooth = smoothSeries(daily, { halfLifeMs: 7 * 86_400_000, form: 'adjusted' });
+    const smooth = smoothSeries(daily, { halfLifeMs: 7 * 86_400_000, form: 'normalized' });
     print(`Daily takings smoothed with a 7-day half-life: $${smooth.columns.smoothed![smooth.length - 1]!.toFixed(2)} a day at the end of FY2025.`);
 
     // An invented weekly tea-leaf price list, joined to each day as of that day.
