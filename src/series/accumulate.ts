@@ -9,7 +9,7 @@ import { DefinitionError, KalendsRangeError, KalendsSyntaxError, KalendsTypeErro
 import { Issues, checkKeys, isRecord, joinPath, ownField, readEnum, requireEpochMs } from '../diagnostics/index.js';
 import { type Aggregation, type AggregationName, type CompiledAggregation, compileAggregations } from './aggregate.js';
 import { type BucketTable, type EmptyPolicy, type MissingPolicy, type PeriodRange, assembleBucketTable, readBucketRange } from './bucket.js';
-import { type PeriodUnit, type UnitInput, type Zone, type ZoneInput, edgeError, ordinalAt, requireUnit, resolveZone } from './deps.js';
+import { type PeriodUnit, type UnitInput, type Zone, type ZoneInput, periodEdgeError, ordinalAt, requireUnit, resolveZone } from './deps.js';
 import { optionOf, readMaxRows, readOptions, requireEnum } from './options.js';
 import { quantileOfSorted } from './numeric.js';
 import { makeSeries } from './series.js';
@@ -99,9 +99,12 @@ function collect<T>(issues: Issues, path: string, check: () => T): T | undefined
     return check();
   } catch (e) {
     if (e instanceof DefinitionError) {
-      for (const i of e.issues) issues.add(joinPath(path, i.path), i.message);
+      // A unit definition's own faults, under `unit` (an unknown unit name has no field of its own).
+      for (const i of e.issues) issues.add(i.path === '' || i.path.startsWith('(') ? path : joinPath(path, i.path), i.message);
     } else if (e instanceof KalendsRangeError || e instanceof KalendsTypeError || e instanceof KalendsSyntaxError) {
-      const at = e.path !== undefined && e.path.startsWith(path) ? e.path : path;
+      // The message starts with the path of the field at fault, at or below `path`.
+      const named = /^([^\s:]+): /.exec(e.message)?.[1];
+      const at = named !== undefined && named.startsWith(path) ? named : path;
       issues.add(at, e.message.startsWith(`${at}: `) ? e.message.slice(at.length + 2) : e.message);
     } else throw e;
     return undefined;
@@ -139,7 +142,7 @@ export function defineBucketAccumulator(options: BucketAccumulatorOptions): Buck
     try {
       o = ordinalAt(unit, zone, epochMs);
     } catch (e) {
-      throw edgeError(e, 'epochMs', unit, zone);
+      throw periodEdgeError(e, 'epochMs', unit, zone);
     }
     let a = accs.get(o);
     if (!a) {
@@ -252,7 +255,7 @@ export function defineBucketAccumulator(options: BucketAccumulatorOptions): Buck
         emptyPeriods,
       });
     } catch (e) {
-      throw edgeError(e, optionOf(o, 'range') === undefined ? 'epochMs' : 'options.range', unit, zone);
+      throw periodEdgeError(e, optionOf(o, 'range') === undefined ? 'epochMs' : 'options.range', unit, zone);
     }
   }
 

@@ -17,7 +17,7 @@ import {
   type UnitInput,
   type Zone,
   type ZoneInput,
-  edgeError,
+  periodEdgeError,
   ordinalAt,
   ordinalFromEpochMsBulk,
   periodStartMs,
@@ -182,7 +182,7 @@ export function bucketSeries(series: Series, options: BucketOptions): BucketTabl
     const b = bucketRows(t, unit, zone, aggs, range, empty, missing === 'propagate');
     return assembleBucketTable(unit, zone, b.ordinals, b.rowCounts, aggs, b.columns, b);
   } catch (e) {
-    throw edgeError(e, range === undefined ? 'series.epochMs' : 'options.range', unit, zone);
+    throw periodEdgeError(e, range === undefined ? 'series.epochMs' : 'options.range', unit, zone);
   }
 }
 

@@ -87,15 +87,28 @@ export function periodStartMs(unit: PeriodUnit, zone: Zone, ordinal: number): nu
 }
 
 /**
- * @internal The error to throw for `e`, caught while turning instants into periods or periods into instants: a
- * range error of a lower layer (a day or period past the supported range, met near its ends) becomes one that
- * names the caller's parameter, so that no internal name (`dayNumber`, `ordinal`) reaches the user; anything
- * else is returned as it is. Used as `catch (e) { throw edgeError(e, 'series.epochMs', unit, zone); }`.
+ * @internal The error to throw for `e`, caught while turning instants into periods or business days: a range
+ * error of a lower layer (a day or period past the supported range, or past a calendar's years) becomes one that
+ * names the caller's parameter (`name`), says what reached past (`what`) and how to stay inside (`fix`), so that
+ * no internal name (`dayNumber`, `ordinal`) reaches the user; anything else is returned as it is.
+ * Used as `catch (e) { throw edgeError(e, 'series.epochMs', what, fix); }`.
  */
-export function edgeError(e: unknown, name: string, unit: PeriodUnit, zone: Zone): unknown {
+export function edgeError(e: unknown, name: string, what: string, fix: string): unknown {
   if (!(e instanceof KalendsRangeError) || e.code !== 'out-of-range' || e.message.startsWith(name)) return e;
-  return new KalendsRangeError(
-    `${name}: the periods of unit ${unit.id} in zone ${zone.id} reach past the supported range (${e.message}); leave out the instants within a period of its ends (years ${MIN_YEAR}..${MAX_YEAR})`,
-    { code: 'out-of-range', received: e.received, path: name },
-  );
+  return new KalendsRangeError(`${name}: ${what} reach past the supported range (${e.message}); ${fix}`, {
+    code: 'out-of-range',
+    received: e.received,
+    path: name,
+  });
+}
+
+/** @internal {@link edgeError} for the periods of `unit` in `zone`. */
+export function periodEdgeError(e: unknown, name: string, unit: PeriodUnit, zone: Zone): unknown {
+  return edgeError(e, name, `the periods of unit ${unit.id} in zone ${zone.id}`, `leave out the instants within a period of its ends (years ${MIN_YEAR}..${MAX_YEAR})`);
+}
+
+/** @internal {@link edgeError} for the business days of a calendar. */
+export function calendarEdgeError(e: unknown, name: string, calendar: CalendarInput): unknown {
+  const c = calendar as BusinessCalendar;
+  return edgeError(e, name, `the business days of calendar ${JSON.stringify(c.id)}`, `keep the instants within the years ${c.firstYear}..${c.lastYear} that it supports`);
 }

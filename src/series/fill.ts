@@ -7,7 +7,7 @@
 import { KalendsRangeError } from '../errors.js';
 import type { MAX_BUCKET_PERIODS, MAX_SERIES_ROWS } from '../bounds.js';
 import { type PeriodRange, readBucketRange } from './bucket.js';
-import { type UnitInput, type ZoneInput, edgeError, periodStartMs, requireUnit, resolveZone } from './deps.js';
+import { type UnitInput, type ZoneInput, periodEdgeError, periodStartMs, requireUnit, resolveZone } from './deps.js';
 import { type RecurrenceGrid, gridFromRule } from './grid.js';
 import { optionOf, readMaxRows, readOneOf, readOptions, requireEnum, requireToleranceMs } from './options.js';
 import { type Series, instantsFromArray, makeSeries, readColumnList, requireSeries } from './series.js';
@@ -85,7 +85,7 @@ export function gridInstants(grid: unknown, maxRows: number): Float64Array {
   try {
     for (let o = start; o < end; o++) out[o - start] = periodStartMs(unit, zone, o);
   } catch (e) {
-    throw edgeError(e, 'options.grid.range', unit, zone);
+    throw periodEdgeError(e, 'options.grid.range', unit, zone);
   }
   return out;
 }

@@ -9,7 +9,7 @@ import type { MAX_BUCKET_PERIODS, MAX_SERIES_ROWS } from '../bounds.js';
 import { isRecord } from '../diagnostics/index.js';
 import { type Aggregation, compileAggregations } from './aggregate.js';
 import { type BucketRows, type PeriodRange, bucketRows, periodBounds, readBucketRange } from './bucket.js';
-import { type PeriodUnit, type UnitInput, type Zone, type ZoneInput, edgeError, requireUnit, resolveZone } from './deps.js';
+import { type PeriodUnit, type UnitInput, type Zone, type ZoneInput, periodEdgeError, requireUnit, resolveZone } from './deps.js';
 import { optionOf, readMaxRows, readOptions, requireColumnName, requireRowsWithin, requireToleranceMs } from './options.js';
 import { type Series, columnNamed, instantsFromArray, makeSeries, readColumnList, requireSeries } from './series.js';
 
@@ -186,7 +186,7 @@ export function alignSeries(series: Readonly<Record<string, Series>>, options: A
   try {
     tables = names.map((name, k) => bucketRows(series[name]!.epochMs, unit, zone, compiled[k]!, range, 'nan', false));
   } catch (e) {
-    throw edgeError(e, edge, unit, zone);
+    throw periodEdgeError(e, edge, unit, zone);
   }
   let start: number;
   let end: number;
@@ -221,7 +221,7 @@ export function alignSeries(series: Readonly<Record<string, Series>>, options: A
   try {
     bounds = periodBounds(unit, zone, ordinals);
   } catch (e) {
-    throw edgeError(e, edge, unit, zone);
+    throw periodEdgeError(e, edge, unit, zone);
   }
   const columns: Record<string, Float64Array> = Object.create(null) as Record<string, Float64Array>;
   names.forEach((name, k) => {

@@ -9,12 +9,15 @@ import { hasOwn } from '../diagnostics/index.js';
 import { type BucketTable, findRuns } from './bucket.js';
 import {
   type BusinessCalendar,
+  type CalendarInput,
   type Duration,
   type PeriodUnit,
   type UnitInput,
+  type Zone,
   type ZoneInput,
+  calendarEdgeError,
   dayNumberFromEpochMsBulk,
-  edgeError,
+  periodEdgeError,
   epochMsFromWallMs,
   negateDuration,
   nextBusinessDay,
@@ -106,6 +109,27 @@ export function leadSeries(series: Series, by: LagAmount, options?: LagOptions):
   return shifted(series, by, options, 1);
 }
 
+/** For each row, the same wall-clock time on the k-th business day strictly before (dir -1) or after (1) its day. */
+function businessDayTargets(t: Float64Array, zone: Zone, cal: CalendarInput, k: number, dir: -1 | 1): Float64Array {
+  const n = t.length;
+  const walls = wallMsFromEpochMsBulk(zone, t);
+  const days = dayNumberFromEpochMsBulk(zone, t);
+  const targets = new Float64Array(n);
+  let lastDay = Number.NaN;
+  let target = 0;
+  for (let i = 0; i < n; i++) {
+    const d = days[i]!;
+    if (d !== lastDay) {
+      const first = dir < 0 ? previousBusinessDay(cal, d) : nextBusinessDay(cal, d);
+      target = k === 1 ? first : shiftBusinessDays(cal, first, dir * (k - 1));
+      lastDay = d;
+    }
+    const msOfDay = walls[i]! - d * MS_PER_DAY;
+    targets[i] = epochMsFromWallMs(zone, target * MS_PER_DAY + msOfDay, 'compatible');
+  }
+  return targets;
+}
+
 /** Looks up, for each target instant, the latest valid value at or before it (dir -1) or earliest at or after (dir 1). */
 function lookup(t: Float64Array, v: Float64Array, targets: Float64Array, dir: -1 | 1, tol: number): Float64Array {
   const n = targets.length;
@@ -182,20 +206,11 @@ function shifted(series: Series, by: LagAmount, options: LagOptions | undefined,
     const cal = resolveCalendar(optionOf(f, 'calendar'), 'by.calendar');
     const zone = resolveZone(optionOf(f, 'zone') as ZoneInput, 'by.zone');
     const tol = tolerance();
-    const walls = wallMsFromEpochMsBulk(zone, t);
-    const days = dayNumberFromEpochMsBulk(zone, t);
-    const targets = new Float64Array(n);
-    let lastDay = Number.NaN;
-    let target = 0;
-    for (let i = 0; i < n; i++) {
-      const d = days[i]!;
-      if (d !== lastDay) {
-        const first = dir < 0 ? previousBusinessDay(cal, d) : nextBusinessDay(cal, d);
-        target = k === 1 ? first : shiftBusinessDays(cal, first, dir * (k - 1));
-        lastDay = d;
-      }
-      const msOfDay = walls[i]! - d * MS_PER_DAY;
-      targets[i] = epochMsFromWallMs(zone, target * MS_PER_DAY + msOfDay, 'compatible');
+    let targets: Float64Array;
+    try {
+      targets = businessDayTargets(t, zone, cal, k, dir);
+    } catch (e) {
+      throw calendarEdgeError(e, 'series.epochMs', cal);
     }
     out = lookup(t, v, targets, dir, tol);
   } else {
@@ -206,7 +221,7 @@ function shifted(series: Series, by: LagAmount, options: LagOptions | undefined,
     try {
       runs = findRuns(t, 0, n, unit, zone);
     } catch (e) {
-      throw edgeError(e, 'series.epochMs', unit, zone);
+      throw periodEdgeError(e, 'series.epochMs', unit, zone);
     }
     const closing = new Float64Array(runs.count);
     for (let r = 0; r < runs.count; r++) {

@@ -9,10 +9,12 @@ import { KalendsRangeError, KalendsTypeError, describeValue } from '../errors.js
 import { MS_PER_DAY } from '../bounds.js';
 import {
   type BusinessCalendar,
+  type CalendarInput,
   type Duration,
   type DurationFields,
   type Zone,
   type ZoneInput,
+  calendarEdgeError,
   dayNumberFromEpochMsBulk,
   durationFromFields,
   epochMsFromWallMs,
@@ -186,6 +188,18 @@ export function resolveWindow(t: Float64Array, spec: unknown, startGiven: boolea
       { code: 'unsupported', received: startGiven, path: 'options.startInclusive' },
     );
   }
+  let starts: Float64Array;
+  try {
+    starts = businessDayStarts(t, zone, cal, k);
+  } catch (e) {
+    throw calendarEdgeError(e, 'series.epochMs', cal);
+  }
+  // The start is the first instant of a day: it belongs to the window.
+  return { ...base, kind: 2, starts, startInclusive: true };
+}
+
+/** Window starts for `k` business days: the first instant of the k-th business day back from each row's day. */
+function businessDayStarts(t: Float64Array, zone: Zone, cal: CalendarInput, k: number): Float64Array {
   const n = t.length;
   const days = dayNumberFromEpochMsBulk(zone, t);
   const starts = new Float64Array(n);
@@ -200,8 +214,7 @@ export function resolveWindow(t: Float64Array, spec: unknown, startGiven: boolea
     }
     starts[i] = lastStart;
   }
-  // The start is the first instant of a day: it belongs to the window.
-  return { ...base, kind: 2, starts, startInclusive: true };
+  return starts;
 }
 
 /**
