@@ -30,11 +30,11 @@ export interface BucketAccumulator {
   /** Rows added so far. */
   readonly rows: number;
   /** The table so far (periods ascending). `range`, `empty` and `maxRows` work as in bucketSeries. */
-  finish(options?: FinishOptions): BucketTable;
+  finish(options?: BucketFinishOptions): BucketTable;
 }
 
 /** Options of {@link BucketAccumulator.finish}, as in {@link bucketSeries}. */
-export interface FinishOptions {
+export interface BucketFinishOptions {
   readonly range?: PeriodRange;
   readonly empty?: EmptyPolicy;
   readonly maxRows?: number;
@@ -217,7 +217,7 @@ export function defineBucketAccumulator(options: BucketAccumulatorOptions): Buck
     }
   }
 
-  function finish(options?: FinishOptions): BucketTable {
+  function finish(options?: BucketFinishOptions): BucketTable {
     const o = readOptions('options', options, ['range', 'empty', 'maxRows']);
     const empty = requireEnum('options.empty', optionOf(o, 'empty'), EMPTY_POLICIES, 'nan');
     const maxRows = readMaxRows('options.maxRows', optionOf(o, 'maxRows'));

@@ -27,7 +27,7 @@ export {
   bucketSeries,
   seriesFromBuckets,
 } from './bucket.js';
-export { type BucketAccumulatorOptions, type BucketAccumulator, type FinishOptions, defineBucketAccumulator } from './accumulate.js';
+export { type BucketAccumulatorOptions, type BucketAccumulator, type BucketFinishOptions, defineBucketAccumulator } from './accumulate.js';
 export { type CalendarSpan, type WindowSpec } from './rolling-window.js';
 export { type RollingAggregationName } from './rolling-kernel.js';
 export { type RollingAggregation, type RollOptions, type RollBulkOptions, rollSeries, rollBulk } from './rolling.js';
