@@ -105,3 +105,15 @@ export const MAX_RULE_EVERY = 100_000;
 export const MAX_RULE_EVERY_PERIODS = 10_000;
 /** Farthest, in days, a business-day convention may move a date before a rule reports `no-business-day`. */
 export const MAX_ADJUSTMENT_DAYS = 4096;
+
+/**
+ * The most periods (rows) one series call may produce, even when asked: a bucket range, an alignment, a grid of
+ * periods. More is almost certainly a mistaken unit or range.
+ */
+export const MAX_BUCKET_PERIODS = 50_000_000;
+/**
+ * The most rows a series call produces beyond its input unless the caller raises it with the call's `maxRows`
+ * option (up to {@link MAX_BUCKET_PERIODS}): a bucket range, an alignment, a fill grid. One million days is
+ * about 2,738 years; past it, page with a narrower range or a coarser unit.
+ */
+export const MAX_SERIES_ROWS = 1_000_000;

@@ -126,6 +126,10 @@ export const section: DemoSection = {
       print(`  ${monthly.labels[i]}  ${c.count![i]} sales  total $${c.sum![i]!.toFixed(2)}  median $${c.median![i]!.toFixed(2)}  90th percentile $${c['quantile-0.9']![i]!.toFixed(2)}`);
     }
 
+    // The most common job: counting events per period from their instants alone (no value column).
+    const counted = bucketSeries(seriesFromColumns(sales.epochMs), { unit: 'month', zone: BOOKING_ZONE, aggregations: ['count'] });
+    print(`Counted from the instants alone: ${counted.columns.count![0]} sales in ${counted.labels[0]}, ${counted.columns.count![1]} in ${counted.labels[1]}.`);
+
     const { weekly, rolling } = weeklySales(sales);
     const busiest = weekly.columns.sum!.indexOf(Math.max(...weekly.columns.sum!));
     print(`By fiscal week: ${weekly.length} weeks from ${weekly.labels[0]} to ${weekly.labels[weekly.length - 1]}; the busiest is ${weekly.labels[busiest]} ($${weekly.columns.sum![busiest]!.toFixed(2)}), 4-week mean then $${rolling.columns.mean![busiest]!.toFixed(2)}.`);
@@ -137,8 +141,11 @@ export const section: DemoSection = {
     }
 
     const daily = seriesFromBuckets(bucketSeries(sales, { unit: 'day', zone: BOOKING_ZONE, aggregations: ['sum'] }));
-    const smooth = smoothSeries(daily, { halfLifeMs: 7 * 86_400_000, form: 'adjusted' });
+    const smooth = smoothSeries(daily, { halfLifeMs: 7 * 86_400_000, form: 'normalized' });
     print(`Daily takings smoothed with a 7-day half-life: $${smooth.columns.smoothed![smooth.length - 1]!.toFixed(2)} a day at the end of FY2025.`);
+    const businessWeek = rollSeries(daily, { window: { businessDays: 5, calendar: 'us-federal', zone: BOOKING_ZONE }, aggregations: ['sum'] });
+    print(`Takings over the last 5 US federal business days of FY2025: $${businessWeek.columns.sum![businessWeek.length - 1]!.toFixed(2)}.`);
+    print('  (holiday calendars change by proclamation: verify against the official calendar)');
 
     // An invented weekly tea-leaf price list, joined to each day as of that day.
     const priceDays = Array.from({ length: 104 }, (_, k) => FIRST_DAY + k * 7 * 86_400_000);

@@ -5,11 +5,12 @@
  *
  * @module
  */
-import { KalendsRangeError, KalendsTypeError, describeValue } from '../errors.js';
-import { MAX_EPOCH_MS, MIN_EPOCH_MS } from '../bounds.js';
-import { type Aggregation, type AggregationName, compileAggregations } from './aggregate.js';
-import { type BucketTable, type EmptyPolicy, type MissingPolicy, type PeriodRange, MAX_BUCKET_PERIODS, assembleBucketTable } from './bucket.js';
-import { type UnitInput, type ZoneInput, ordinalAt, requireUnit, resolveZone } from './deps.js';
+import { DefinitionError, KalendsRangeError, KalendsSyntaxError, KalendsTypeError, describeValue } from '../errors.js';
+import { Issues, checkKeys, isRecord, joinPath, ownField, readEnum, requireEpochMs } from '../diagnostics/index.js';
+import { type Aggregation, type AggregationName, type CompiledAggregation, compileAggregations } from './aggregate.js';
+import { type BucketTable, type EmptyPolicy, type MissingPolicy, type PeriodRange, assembleBucketTable, readBucketRange } from './bucket.js';
+import { type PeriodUnit, type UnitInput, type Zone, type ZoneInput, periodEdgeError, ordinalAt, requireUnit, resolveZone } from './deps.js';
+import { optionOf, readMaxRows, readOptions, requireEnum } from './options.js';
 import { quantileOfSorted } from './numeric.js';
 import { makeSeries } from './series.js';
 
@@ -28,9 +29,18 @@ export interface BucketAccumulator {
   add(epochMs: number, value: number): void;
   /** Rows added so far. */
   readonly rows: number;
-  /** The table so far (periods ascending). `range` and `empty` work as in bucketSeries. */
-  finish(options?: { readonly range?: PeriodRange; readonly empty?: EmptyPolicy }): BucketTable;
+  /** The table so far (periods ascending). `range`, `empty` and `maxRows` work as in bucketSeries. */
+  finish(options?: BucketFinishOptions): BucketTable;
 }
+
+/** Options of {@link BucketAccumulator.finish}, as in {@link bucketSeries}. */
+export interface BucketFinishOptions {
+  readonly range?: PeriodRange;
+  readonly empty?: EmptyPolicy;
+  readonly maxRows?: number;
+}
+
+const EMPTY_POLICIES: readonly EmptyPolicy[] = ['nan', 'zero', 'previous'];
 
 interface Acc {
   rows: number;
@@ -48,6 +58,59 @@ interface Acc {
   values: number[] | undefined;
 }
 
+const ACCUMULATOR_KEYS = ['unit', 'zone', 'aggregations', 'missing'];
+const MISSING_POLICIES: readonly MissingPolicy[] = ['skip', 'propagate'];
+
+/**
+ * The series options validator of {@link defineBucketAccumulator}: like every `define…` function it reports
+ * every fault of the definition at once, each with its path, in one DefinitionError (the kit's issue collector).
+ */
+function readAccumulatorDefinition(definition: unknown): { unit: PeriodUnit; zone: Zone; aggs: CompiledAggregation[]; propagate: boolean } {
+  if (!isRecord(definition)) {
+    throw new KalendsTypeError(`options: expected { unit, zone, aggregations, missing? }, got ${describeValue(definition)}`, {
+      code: 'invalid-type',
+      received: definition,
+    });
+  }
+  const issues = new Issues();
+  checkKeys(definition, ACCUMULATOR_KEYS, '', issues);
+  const unit = collect(issues, 'unit', () => requireUnit(ownField(definition, 'unit'), 'unit'));
+  const zone = collect(issues, 'zone', () => resolveZone(ownField(definition, 'zone') as ZoneInput, 'zone'));
+  // A one-column series with no rows: the accumulator's single value column, validated like bucketSeries's.
+  const dummy = makeSeries(new Float64Array(0), ['value'], [new Float64Array(0)]);
+  const list = ownField(definition, 'aggregations');
+  let aggs: CompiledAggregation[] | undefined;
+  if (Array.isArray(list) && list.length > 0) {
+    // Each aggregation on its own, so that every faulty one is reported.
+    const each = list.map((item, i) => collect(issues, `aggregations[${i}]`, () => compileAggregations(dummy, item, `aggregations[${i}]`)[0]!));
+    if (each.every((a) => a !== undefined)) aggs = collect(issues, 'aggregations', () => compileAggregations(dummy, list, 'aggregations'));
+  } else aggs = collect(issues, 'aggregations', () => compileAggregations(dummy, list, 'aggregations'));
+  const missing = readEnum(definition, 'missing', 'missing', MISSING_POLICIES, issues, 'skip');
+  issues.throwIfAny(definition);
+  return { unit: unit!, zone: zone!, aggs: aggs!, propagate: missing === 'propagate' };
+}
+
+/**
+ * Runs one check that throws a kalends error and records the error as an issue instead (a definition error's
+ * issues each under `path`), so that one DefinitionError lists every fault. Returns undefined after a fault.
+ */
+function collect<T>(issues: Issues, path: string, check: () => T): T | undefined {
+  try {
+    return check();
+  } catch (e) {
+    if (e instanceof DefinitionError) {
+      // A unit definition's own faults, under `unit` (an unknown unit name has no field of its own).
+      for (const i of e.issues) issues.add(i.path === '' || i.path.startsWith('(') ? path : joinPath(path, i.path), i.message);
+    } else if (e instanceof KalendsRangeError || e instanceof KalendsTypeError || e instanceof KalendsSyntaxError) {
+      // The message starts with the path of the field at fault, at or below `path`.
+      const named = /^([^\s:]+): /.exec(e.message)?.[1];
+      const at = named !== undefined && named.startsWith(path) ? named : path;
+      issues.add(at, e.message.startsWith(`${at}: `) ? e.message.slice(at.length + 2) : e.message);
+    } else throw e;
+    return undefined;
+  }
+}
+
 /**
  * A streaming bucketer for rows that arrive one at a time and in any order: each period holds a constant-size
  * accumulator (plus its values when a median or quantile is asked for). `first`/`last` are the values at the
@@ -61,42 +124,26 @@ interface Acc {
  * ```
  */
 export function defineBucketAccumulator(options: BucketAccumulatorOptions): BucketAccumulator {
-  if (options === null || typeof options !== 'object') {
-    throw new KalendsTypeError(`options: expected { unit, zone, aggregations }, got ${describeValue(options)}`, {
-      code: 'invalid-type',
-      received: options,
-    });
-  }
-  const unit = requireUnit(options.unit, 'options.unit');
-  const zone = resolveZone(options.zone, 'options.zone');
-  const dummy = makeSeries(new Float64Array(0), ['value'], [new Float64Array(0)]);
-  const aggs = compileAggregations(dummy, options.aggregations, 'options.aggregations');
-  const propagate = (options.missing ?? 'skip') === 'propagate';
-  if (!propagate && options.missing !== undefined && options.missing !== 'skip') {
-    throw new KalendsRangeError(`options.missing: expected "skip" or "propagate", got ${describeValue(options.missing)}`, {
-      code: 'out-of-range',
-      received: options.missing,
-    });
-  }
+  const { unit, zone, aggs, propagate } = readAccumulatorDefinition(options);
   const keepValues = aggs.some((a) => a.kind === 'median' || a.kind === 'quantile');
   const accs = new Map<number, Acc>();
   let rows = 0;
   let skipped = 0;
 
   function add(epochMs: number, value: number): void {
-    if (typeof epochMs !== 'number' || !(epochMs >= MIN_EPOCH_MS && epochMs <= MAX_EPOCH_MS)) {
-      throw new KalendsRangeError(`epochMs: expected an instant in epoch ms, got ${describeValue(epochMs)}`, {
-        code: 'out-of-range',
-        received: epochMs,
-      });
-    }
+    requireEpochMs('epochMs', epochMs);
     if (typeof value !== 'number') {
       throw new KalendsTypeError(`value: expected a number (NaN for missing), got ${describeValue(value)}`, {
         code: 'invalid-type',
         received: value,
       });
     }
-    const o = ordinalAt(unit, zone, epochMs);
+    let o: number;
+    try {
+      o = ordinalAt(unit, zone, epochMs);
+    } catch (e) {
+      throw periodEdgeError(e, 'epochMs', unit, zone);
+    }
     let a = accs.get(o);
     if (!a) {
       a = { rows: 0, count: 0, s: 0, c: 0, min: NaN, max: NaN, firstT: Infinity, first: NaN, lastT: -Infinity, last: NaN, mean: 0, m2: 0, values: keepValues ? [] : undefined };
@@ -170,22 +217,16 @@ export function defineBucketAccumulator(options: BucketAccumulatorOptions): Buck
     }
   }
 
-  function finish(opts: { readonly range?: PeriodRange; readonly empty?: EmptyPolicy } = {}): BucketTable {
-    const empty = opts.empty ?? 'nan';
+  function finish(options?: BucketFinishOptions): BucketTable {
+    const o = readOptions('options', options, ['range', 'empty', 'maxRows']);
+    const empty = requireEnum('options.empty', optionOf(o, 'empty'), EMPTY_POLICIES, 'nan');
+    const maxRows = readMaxRows('options.maxRows', optionOf(o, 'maxRows'));
     let ords = [...accs.keys()].sort((x, y) => x - y);
     let outside = 0;
     let emptyPeriods = 0;
-    if (opts.range !== undefined) {
-      const r = opts.range;
-      const start = typeof r.start === 'string' ? unit.parseOrdinal(r.start) : r.start;
-      const end = typeof r.end === 'string' ? unit.parseOrdinal(r.end) : r.end;
-      if (!Number.isInteger(start) || !Number.isInteger(end) || end < start || end - start > MAX_BUCKET_PERIODS) {
-        throw new KalendsRangeError(`range: expected start <= end within ${MAX_BUCKET_PERIODS} periods, got ${describeValue(r.start)} to ${describeValue(r.end)}`, {
-          code: 'out-of-range',
-          received: r,
-        });
-      }
-      for (const o of ords) if (o < start || o >= end) outside += accs.get(o)!.rows;
+    if (optionOf(o, 'range') !== undefined) {
+      const { start, end } = readBucketRange('options.range', optionOf(o, 'range'), unit, maxRows);
+      for (const k of ords) if (k < start || k >= end) outside += accs.get(k)!.rows;
       ords = Array.from({ length: end - start }, (_, i) => start + i);
     }
     const n = ords.length;
@@ -207,11 +248,15 @@ export function defineBucketAccumulator(options: BucketAccumulatorOptions): Buck
         });
       }
     }
-    return assembleBucketTable(unit, zone, ordinals, rowCounts, aggs, cols, {
-      skippedMissing: propagate ? 0 : skipped,
-      outsideRange: outside,
-      emptyPeriods,
-    });
+    try {
+      return assembleBucketTable(unit, zone, ordinals, rowCounts, aggs, cols, {
+        skippedMissing: propagate ? 0 : skipped,
+        outsideRange: outside,
+        emptyPeriods,
+      });
+    } catch (e) {
+      throw periodEdgeError(e, optionOf(o, 'range') === undefined ? 'epochMs' : 'options.range', unit, zone);
+    }
   }
 
   return {

@@ -5,8 +5,10 @@
  * @module
  */
 import { KalendsRangeError, KalendsTypeError, describeValue } from '../errors.js';
+import { didYouMean, isRecord } from '../diagnostics/index.js';
 import { type QuantileMethod, compensatedSum, quantileOfSorted, sortedValid, twoPassVariance } from './numeric.js';
-import { type Series, columnOfSeries } from './series.js';
+import { type OptionRecord, optionOf, optionalColumnName, readOptions, requireEnum, requireReal } from './options.js';
+import { type Series, columnNamed } from './series.js';
 
 /**
  * The aggregations a group of rows can be reduced to. Missing values (NaN) are skipped unless the caller asks
@@ -75,60 +77,137 @@ export const AGGREGATION_NAMES: readonly AggregationName[] = Object.freeze([
   'quantile',
 ]);
 
+/**
+ * Common alternative words for our aggregation names, by meaning: an unknown name that is one of these gets the
+ * aggregation it means as its first suggestion (`"std"` suggests `"stddev"`, not `"sum"`, which is nearer by
+ * spelling). Keys are lower case with words joined by `-`, as the diagnostics kit normalizes received text.
+ * @internal
+ */
+export const AGGREGATION_SYNONYMS: Readonly<Record<string, AggregationName>> = Object.freeze({
+  std: 'stddev',
+  stdev: 'stddev',
+  stdv: 'stddev',
+  sd: 'stddev',
+  sigma: 'stddev',
+  'standard-deviation': 'stddev',
+  'std-dev': 'stddev',
+  var: 'variance',
+  variation: 'variance',
+  avg: 'mean',
+  average: 'mean',
+  'arithmetic-mean': 'mean',
+  med: 'median',
+  middle: 'median',
+  p50: 'median',
+  total: 'sum',
+  add: 'sum',
+  n: 'count',
+  cnt: 'count',
+  number: 'count',
+  tally: 'count',
+  len: 'rows',
+  length: 'rows',
+  size: 'rows',
+  'row-count': 'rows',
+  minimum: 'min',
+  smallest: 'min',
+  least: 'min',
+  lowest: 'min',
+  maximum: 'max',
+  largest: 'max',
+  biggest: 'max',
+  greatest: 'max',
+  highest: 'max',
+  earliest: 'first',
+  initial: 'first',
+  begin: 'first',
+  start: 'first',
+  opening: 'open',
+  latest: 'last',
+  final: 'last',
+  end: 'last',
+  closing: 'close',
+  percentile: 'quantile',
+  quartile: 'quantile',
+  pct: 'quantile',
+  fractile: 'quantile',
+});
+
+/** Aggregations that read no value: on a series of instants alone they count its rows. */
+const ROW_COUNTING: readonly AggregationName[] = ['count', 'rows'];
+
+/** The keys an aggregation spec allows, by kind. */
+function specKeys(kind: AggregationName): readonly string[] {
+  const base = ['kind', 'column', 'as'];
+  if (kind === 'quantile') return [...base, 'q', 'quantileMethod'];
+  if (kind === 'median') return [...base, 'quantileMethod'];
+  if (kind === 'variance' || kind === 'stddev') return [...base, 'estimator'];
+  return base;
+}
+
+const ESTIMATORS: readonly ('sample' | 'population')[] = ['sample', 'population'];
+const QUANTILE_METHODS: readonly QuantileMethod[] = ['hyndman-fan-7', 'hyndman-fan-6'];
+
 /** A validated aggregation bound to its input column. @internal */
 export interface CompiledAggregation {
   readonly name: string;
   readonly kind: AggregationName;
-  readonly column: string;
+  /** The input column's name; `undefined` for a row count of a series of instants alone. */
+  readonly column: string | undefined;
   readonly values: Float64Array;
   readonly q: number;
   readonly ddof: number;
   readonly method: QuantileMethod;
 }
 
-function editDistance(a: string, b: string): number {
-  const d = Array.from({ length: b.length + 1 }, (_, j) => j);
-  for (let i = 1; i <= a.length; i++) {
-    let prev = d[0]!;
-    d[0] = i;
-    for (let j = 1; j <= b.length; j++) {
-      const tmp = d[j]!;
-      d[j] = Math.min(d[j]! + 1, d[j - 1]! + 1, prev + (a[i - 1] === b[j - 1] ? 0 : 1));
-      prev = tmp;
-    }
+/**
+ * @internal The aggregation name at `path`: one of `allowed`, or a KalendsRangeError with code `unknown-name`
+ * that lists the valid names and suggests the nearest by meaning and by spelling.
+ */
+export function requireAggregationName(path: string, kind: unknown, allowed: readonly AggregationName[]): AggregationName {
+  if (typeof kind === 'string' && (allowed as readonly string[]).includes(kind)) return kind as AggregationName;
+  if (typeof kind !== 'string') {
+    throw new KalendsTypeError(`${path}: expected an aggregation name (${allowed.join(', ')}), got ${describeValue(kind)}`, {
+      code: 'invalid-type',
+      received: kind,
+      path,
+    });
   }
-  return d[b.length]!;
-}
-
-/** @internal Message suffix suggesting the closest valid names. */
-export function suggest(received: string, valid: readonly string[]): string {
-  const ranked = valid
-    .map((v) => ({ v, d: editDistance(received.toLowerCase(), v) }))
-    .filter((x) => x.d <= Math.max(2, Math.floor(received.length / 2)))
-    .sort((x, y) => x.d - y.d)
-    .slice(0, 3)
-    .map((x) => `"${x.v}"`);
-  return ranked.length > 0 ? `; did you mean ${ranked.join(' or ')}?` : '';
+  const suggestion = didYouMean(kind, allowed, { synonyms: AGGREGATION_SYNONYMS });
+  if ((AGGREGATION_NAMES as readonly string[]).includes(kind)) {
+    throw new KalendsRangeError(`${path}: aggregation ${describeValue(kind)} is not offered here; valid names are ${allowed.join(', ')}${suggestion}`, {
+      code: 'unsupported',
+      received: kind,
+      path,
+    });
+  }
+  throw new KalendsRangeError(`${path}: unknown aggregation ${describeValue(kind)}; valid names are ${allowed.join(', ')}${suggestion}`, {
+    code: 'unknown-name',
+    received: kind,
+    path,
+  });
 }
 
 /**
- * Validates aggregations against a series (and an allowed subset), naming the path of the first fault.
+ * Validates aggregations against a series (and an allowed subset), naming the path of the first fault. On a
+ * series of instants alone (no value column), `count` and `rows` count its rows and every other aggregation is
+ * refused with a message that says why.
  * @internal
  */
 export function compileAggregations(
   series: Series,
-  list: readonly Aggregation[] | Aggregation | undefined,
+  list: unknown,
   path: string,
   allowed: readonly AggregationName[] = AGGREGATION_NAMES,
   defaultColumn?: string,
 ): CompiledAggregation[] {
   if (list === undefined) {
-    throw new KalendsTypeError(`${path}: expected a list of aggregations (${allowed.join(', ')}), got undefined`, {
+    throw new KalendsTypeError(`${path}: expected an aggregation name or a list of them (${allowed.join(', ')}), got undefined`, {
       code: 'invalid-type',
       received: list,
     });
   }
-  const items = Array.isArray(list) ? (list as readonly Aggregation[]) : [list as Aggregation];
+  const items: readonly unknown[] = Array.isArray(list) ? list : [list];
   if (items.length === 0) {
     throw new KalendsRangeError(`${path}: expected at least one aggregation (${allowed.join(', ')}), got none`, {
       code: 'out-of-range',
@@ -137,53 +216,43 @@ export function compileAggregations(
   }
   const out: CompiledAggregation[] = [];
   const names = new Set<string>();
+  let rowsOnly: Float64Array | undefined;
   items.forEach((item, i) => {
-    const p = `${path}[${i}]`;
-    const spec: AggregationSpec = typeof item === 'string' ? { kind: item } : item;
-    if (spec === null || typeof spec !== 'object') {
+    const p = Array.isArray(list) ? `${path}[${i}]` : path;
+    let spec: OptionRecord;
+    if (typeof item === 'string') spec = { kind: item };
+    else if (isRecord(item)) spec = item;
+    else {
       throw new KalendsTypeError(`${p}: expected an aggregation name or { kind, ... }, got ${describeValue(item)}`, {
         code: 'invalid-type',
         received: item,
+        path: p,
       });
     }
-    const kind = spec.kind;
-    if (typeof kind !== 'string' || !allowed.includes(kind)) {
-      const shown = typeof kind === 'string' ? kind : '';
-      throw new KalendsRangeError(
-        `${p}: unknown aggregation ${describeValue(kind)}; valid names are ${allowed.join(', ')}${suggest(shown, allowed)}`,
-        { code: 'out-of-range', received: kind, path: p },
-      );
-    }
+    const kind = requireAggregationName(typeof item === 'string' ? p : `${p}.kind`, optionOf(spec, 'kind'), allowed);
+    readOptions(p, spec, specKeys(kind));
     let q = Number.NaN;
-    if (kind === 'quantile') {
-      if (typeof spec.q !== 'number' || !(spec.q >= 0 && spec.q <= 1)) {
-        throw new KalendsRangeError(`${p}.q: expected a probability from 0 to 1, got ${describeValue(spec.q)}`, {
-          code: 'out-of-range',
-          received: spec.q,
-          path: `${p}.q`,
-        });
+    if (kind === 'quantile') q = requireReal(`${p}.q`, optionOf(spec, 'q'), 'a probability from 0 to 1', (x) => x >= 0 && x <= 1);
+    else if (kind === 'median') q = 0.5;
+    const estimator = requireEnum(`${p}.estimator`, optionOf(spec, 'estimator'), ESTIMATORS, 'sample');
+    const method = requireEnum(`${p}.quantileMethod`, optionOf(spec, 'quantileMethod'), QUANTILE_METHODS, 'hyndman-fan-7');
+    const asked = optionalColumnName(`${p}.column`, optionOf(spec, 'column'));
+    const as = optionalColumnName(`${p}.as`, optionOf(spec, 'as'));
+    const column = asked ?? defaultColumn ?? series.columnNames[0];
+    let values: Float64Array;
+    if (column === undefined) {
+      if (!ROW_COUNTING.includes(kind)) {
+        throw new KalendsRangeError(
+          `${p}: ${JSON.stringify(kind)} needs a value column, and the series holds instants alone; use "count" or "rows" to count its rows, or build the series with a value column`,
+          { code: 'unsupported', received: kind, path: p },
+        );
       }
-      q = spec.q;
-    } else if (kind === 'median') q = 0.5;
-    const estimator = spec.estimator ?? 'sample';
-    if (estimator !== 'sample' && estimator !== 'population') {
-      throw new KalendsRangeError(`${p}.estimator: expected "sample" or "population", got ${describeValue(estimator)}`, {
-        code: 'out-of-range',
-        received: estimator,
-        path: `${p}.estimator`,
-      });
-    }
-    const method = spec.quantileMethod ?? 'hyndman-fan-7';
-    if (method !== 'hyndman-fan-7' && method !== 'hyndman-fan-6') {
-      throw new KalendsRangeError(
-        `${p}.quantileMethod: expected "hyndman-fan-7" or "hyndman-fan-6", got ${describeValue(method)}`,
-        { code: 'out-of-range', received: method, path: `${p}.quantileMethod` },
-      );
-    }
-    const column = spec.column ?? defaultColumn ?? series.columnNames[0];
-    const values = columnOfSeries(series, column);
+      // Every row is a value: a row count.
+      rowsOnly ??= new Float64Array(series.length);
+      values = rowsOnly;
+    } else values = columnNamed(series, column, asked !== undefined ? `${p}.column` : defaultColumn !== undefined ? 'options.column' : p);
     const base = kind === 'quantile' ? `quantile-${q}` : kind;
-    const name = spec.as ?? (spec.column !== undefined && series.columnNames.length > 1 ? `${spec.column}-${base}` : base);
+    const name = as ?? (asked !== undefined && series.columnNames.length > 1 ? `${asked}-${base}` : base);
     if (names.has(name)) {
       throw new KalendsRangeError(`${p}: output column ${describeValue(name)} is produced twice; give one an "as" name`, {
         code: 'out-of-range',
@@ -192,7 +261,7 @@ export function compileAggregations(
       });
     }
     names.add(name);
-    out.push({ name, kind, column: column!, values, q, ddof: estimator === 'sample' ? 1 : 0, method });
+    out.push({ name, kind, column, values, q, ddof: estimator === 'sample' ? 1 : 0, method });
   });
   return out;
 }

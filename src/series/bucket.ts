@@ -8,10 +8,23 @@
  *
  * @module
  */
-import { KalendsRangeError, KalendsTypeError, describeValue } from '../errors.js';
-import { ordinalFromEpochMsBulk } from '../period/index.js';
+import { KalendsTypeError, describeValue } from '../errors.js';
+import type { MAX_BUCKET_PERIODS, MAX_SERIES_ROWS } from '../bounds.js';
+import { readPeriodRange } from '../diagnostics/index.js';
 import { type Aggregation, type CompiledAggregation, aggregateRuns, compileAggregations } from './aggregate.js';
-import { type PeriodUnit, type UnitInput, type Zone, type ZoneInput, ordinalAt, periodStartMs, requireUnit, resolveZone } from './deps.js';
+import {
+  type PeriodUnit,
+  type UnitInput,
+  type Zone,
+  type ZoneInput,
+  periodEdgeError,
+  ordinalAt,
+  ordinalFromEpochMsBulk,
+  periodStartMs,
+  requireUnit,
+  resolveZone,
+} from './deps.js';
+import { optionOf, optionalColumnName, readMaxRows, readOptions, requireEnum, requireRowsWithin } from './options.js';
 import { type Series, lowerBound, makeSeries, requireSeries } from './series.js';
 
 /** What an empty period (no rows) inside an explicit range shows: 0, NaN, or the previous period's value. */
@@ -46,6 +59,11 @@ export interface BucketOptions {
   readonly empty?: EmptyPolicy;
   /** Missing values: `'skip'` (default) or `'propagate'`. */
   readonly missing?: MissingPolicy;
+  /**
+   * The most periods `range` may hold: default {@link MAX_SERIES_ROWS} (one million), at most
+   * {@link MAX_BUCKET_PERIODS}. A larger range is refused with `limit-exceeded` before anything is built.
+   */
+  readonly maxRows?: number;
 }
 
 /** One row per period: ordinals, labels, period bounds, and one column per aggregation. */
@@ -74,9 +92,6 @@ export interface BucketTable {
   /** Periods in `range` that held no rows and were filled by the empty policy. */
   readonly emptyPeriods: number;
 }
-
-/** Largest number of periods one call may report; more is almost certainly a mistaken unit or range. */
-export const MAX_BUCKET_PERIODS = 50_000_000;
 
 /** @internal Runs of rows per period. `starts` has `count + 1` entries. */
 export interface Runs {
@@ -138,25 +153,6 @@ export function findRuns(
   return { ordinals, starts, count };
 }
 
-function rangeOrdinal(unit: PeriodUnit, v: unknown, path: string): number {
-  if (typeof v === 'number') {
-    if (!Number.isInteger(v)) {
-      throw new KalendsRangeError(`${path}: expected an integer period ordinal or a label, got ${describeValue(v)}`, {
-        code: 'out-of-range',
-        received: v,
-        path,
-      });
-    }
-    return v;
-  }
-  if (typeof v === 'string') return unit.parseOrdinal(v);
-  throw new KalendsTypeError(`${path}: expected a period ordinal or a label, got ${describeValue(v)}`, {
-    code: 'invalid-type',
-    received: v,
-    path,
-  });
-}
-
 /**
  * Reduces a series to one row per period of `unit` in `zone`, with the chosen aggregations. Rows are assigned
  * by their local day in the zone, so a month in America/New_York starts at local midnight, DST included.
@@ -172,61 +168,69 @@ function rangeOrdinal(unit: PeriodUnit, v: unknown, path: string): number {
  */
 export function bucketSeries(series: Series, options: BucketOptions): BucketTable {
   requireSeries(series, 'series');
-  if (options === null || typeof options !== 'object') {
-    throw new KalendsTypeError(`options: expected { unit, zone, aggregations }, got ${describeValue(options)}`, {
-      code: 'invalid-type',
-      received: options,
-    });
-  }
-  const unit = requireUnit(options.unit, 'options.unit');
-  const zone = resolveZone(options.zone, 'options.zone');
-  const aggs = compileAggregations(series, options.aggregations, 'options.aggregations', undefined, options.column);
-  const empty = options.empty ?? 'nan';
-  if (empty !== 'zero' && empty !== 'nan' && empty !== 'previous') {
-    throw new KalendsRangeError(`options.empty: expected "zero", "nan" or "previous", got ${describeValue(empty)}`, {
-      code: 'out-of-range',
-      received: empty,
-    });
-  }
-  const missing = options.missing ?? 'skip';
-  if (missing !== 'skip' && missing !== 'propagate') {
-    throw new KalendsRangeError(`options.missing: expected "skip" or "propagate", got ${describeValue(missing)}`, {
-      code: 'out-of-range',
-      received: missing,
-    });
-  }
+  const o = readOptions('options', options, BUCKET_KEYS);
+  const unit = requireUnit(optionOf(o, 'unit'), 'options.unit');
+  const zone = resolveZone(optionOf(o, 'zone') as ZoneInput, 'options.zone');
+  const column = optionalColumnName('options.column', optionOf(o, 'column'));
+  const aggs = compileAggregations(series, optionOf(o, 'aggregations'), 'options.aggregations', undefined, column);
+  const empty = requireEnum('options.empty', optionOf(o, 'empty'), EMPTY_POLICIES, 'nan');
+  const missing = requireEnum('options.missing', optionOf(o, 'missing'), MISSING_POLICIES, 'skip');
+  const maxRows = readMaxRows('options.maxRows', optionOf(o, 'maxRows'));
+  const range = optionOf(o, 'range') === undefined ? undefined : readBucketRange('options.range', optionOf(o, 'range'), unit, maxRows);
   const t = series.epochMs;
+  try {
+    const b = bucketRows(t, unit, zone, aggs, range, empty, missing === 'propagate');
+    return assembleBucketTable(unit, zone, b.ordinals, b.rowCounts, aggs, b.columns, b);
+  } catch (e) {
+    throw periodEdgeError(e, range === undefined ? 'series.epochMs' : 'options.range', unit, zone);
+  }
+}
+
+/** The keys of {@link BucketOptions}. */
+const BUCKET_KEYS = ['unit', 'zone', 'aggregations', 'column', 'range', 'empty', 'missing', 'maxRows'];
+const EMPTY_POLICIES: readonly EmptyPolicy[] = ['nan', 'zero', 'previous'];
+const MISSING_POLICIES: readonly MissingPolicy[] = ['skip', 'propagate'];
+
+/**
+ * @internal A period range `{ start, end }` (ordinals or labels, end-exclusive) as `[first, end)` ordinals,
+ * refused with `limit-exceeded` before anything is built when it holds more than `maxRows` periods.
+ */
+export function readBucketRange(name: string, value: unknown, unit: PeriodUnit, maxRows: number): { readonly start: number; readonly end: number } {
+  const { first, last } = readPeriodRange(name, value, unit, false);
+  requireRowsWithin(name, last - first + 1, maxRows, `a range of ${last - first + 1} periods of unit ${unit.id}`, 'options.maxRows');
+  return { start: first, end: last + 1 };
+}
+
+/** @internal The periods of a bucketing, before their bounds and labels are added. */
+export interface BucketRows {
+  readonly ordinals: Int32Array;
+  readonly rowCounts: Int32Array;
+  readonly columns: Float64Array[];
+  readonly skippedMissing: number;
+  readonly outsideRange: number;
+  readonly emptyPeriods: number;
+}
+
+/** @internal {@link bucketSeries} on validated arguments (`range` as `[start, end)` ordinals), without bounds and labels. */
+export function bucketRows(
+  t: Float64Array,
+  unit: PeriodUnit,
+  zone: Zone,
+  aggs: readonly CompiledAggregation[],
+  range: { readonly start: number; readonly end: number } | undefined,
+  empty: EmptyPolicy,
+  propagate: boolean,
+): BucketRows {
   let lo = 0;
   let hi = t.length;
-  let rangeStart = 0;
-  let rangeEnd = 0;
-  if (options.range !== undefined) {
-    const r = options.range;
-    if (r === null || typeof r !== 'object') {
-      throw new KalendsTypeError(`options.range: expected { start, end }, got ${describeValue(r)}`, {
-        code: 'invalid-type',
-        received: r,
-      });
-    }
-    rangeStart = rangeOrdinal(unit, r.start, 'options.range.start');
-    rangeEnd = rangeOrdinal(unit, r.end, 'options.range.end');
-    if (rangeEnd < rangeStart) {
-      throw new KalendsRangeError(
-        `options.range.end: expected a period at or after the start (${unit.formatOrdinal(rangeStart)}), got ${unit.formatOrdinal(rangeEnd)}`,
-        { code: 'out-of-range', received: r.end },
-      );
-    }
-    if (rangeEnd - rangeStart > MAX_BUCKET_PERIODS) {
-      throw new KalendsRangeError(
-        `options.range: expected at most ${MAX_BUCKET_PERIODS} periods, got ${rangeEnd - rangeStart}; use a coarser unit or a shorter range`,
-        { code: 'limit-exceeded', received: r },
-      );
-    }
+  const rangeStart = range?.start ?? 0;
+  const rangeEnd = range?.end ?? 0;
+  if (range !== undefined) {
     lo = lowerBound(t, periodStartMs(unit, zone, rangeStart), 0, t.length);
     hi = Math.max(lo, lowerBound(t, periodStartMs(unit, zone, rangeEnd), lo, t.length));
   }
   const runs = findRuns(t, lo, hi, unit, zone);
-  const { columns: reduced, skipped } = aggregateRuns(aggs, runs.starts, runs.count, missing === 'propagate');
+  const { columns: reduced, skipped } = aggregateRuns(aggs, runs.starts, runs.count, propagate);
   const rowsOfRun = new Int32Array(runs.count);
   for (let k = 0; k < runs.count; k++) rowsOfRun[k] = runs.starts[k + 1]! - runs.starts[k]!;
 
@@ -234,7 +238,7 @@ export function bucketSeries(series: Series, options: BucketOptions): BucketTabl
   let rowCounts: Int32Array;
   let columns: Float64Array[];
   let emptyPeriods = 0;
-  if (options.range === undefined) {
+  if (range === undefined) {
     ordinals = runs.ordinals.slice(0, runs.count);
     rowCounts = rowsOfRun;
     columns = reduced;
@@ -257,11 +261,25 @@ export function bucketSeries(series: Series, options: BucketOptions): BucketTabl
       }
     }
   }
-  return assembleBucketTable(unit, zone, ordinals, rowCounts, aggs, columns, {
-    skippedMissing: skipped,
-    outsideRange: t.length - (hi - lo),
-    emptyPeriods,
-  });
+  return { ordinals, rowCounts, columns, skippedMissing: skipped, outsideRange: t.length - (hi - lo), emptyPeriods };
+}
+
+/**
+ * @internal Each period's first instant in the zone, the first instant of the next period (consecutive periods
+ * share it, computed once) and its label.
+ */
+export function periodBounds(unit: PeriodUnit, zone: Zone, ordinals: Int32Array): { startEpochMs: Float64Array; endEpochMs: Float64Array; labels: string[] } {
+  const n = ordinals.length;
+  const startEpochMs = new Float64Array(n);
+  const endEpochMs = new Float64Array(n);
+  const labels: string[] = new Array<string>(n);
+  for (let j = 0; j < n; j++) {
+    const o = ordinals[j]!;
+    startEpochMs[j] = j > 0 && ordinals[j - 1] === o - 1 ? endEpochMs[j - 1]! : periodStartMs(unit, zone, o);
+    endEpochMs[j] = periodStartMs(unit, zone, o + 1);
+    labels[j] = unit.formatOrdinal(o);
+  }
+  return { startEpochMs, endEpochMs, labels };
 }
 
 /**
@@ -278,16 +296,9 @@ export function assembleBucketTable(
   columns: readonly Float64Array[],
   tallies: { readonly skippedMissing: number; readonly outsideRange: number; readonly emptyPeriods: number },
 ): BucketTable {
+  const { skippedMissing, outsideRange, emptyPeriods } = tallies;
   const n = ordinals.length;
-  const startEpochMs = new Float64Array(n);
-  const endEpochMs = new Float64Array(n);
-  const labels: string[] = new Array<string>(n);
-  for (let j = 0; j < n; j++) {
-    const o = ordinals[j]!;
-    startEpochMs[j] = j > 0 && ordinals[j - 1] === o - 1 ? endEpochMs[j - 1]! : periodStartMs(unit, zone, o);
-    endEpochMs[j] = periodStartMs(unit, zone, o + 1);
-    labels[j] = unit.formatOrdinal(o);
-  }
+  const { startEpochMs, endEpochMs, labels } = periodBounds(unit, zone, ordinals);
   const byName: Record<string, Float64Array> = Object.create(null) as Record<string, Float64Array>;
   aggs.forEach((a, i) => {
     byName[a.name] = columns[i]!;
@@ -303,7 +314,9 @@ export function assembleBucketTable(
     columns: Object.freeze(byName),
     columnNames: Object.freeze(aggs.map((a) => a.name)),
     length: n,
-    ...tallies,
+    skippedMissing,
+    outsideRange,
+    emptyPeriods,
   });
 }
 

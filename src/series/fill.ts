@@ -4,11 +4,13 @@
  *
  * @module
  */
-import { KalendsRangeError, KalendsTypeError, describeValue } from '../errors.js';
-import { type PeriodRange } from './bucket.js';
-import { type UnitInput, type ZoneInput, periodStartMs, requireUnit, resolveZone } from './deps.js';
+import { KalendsRangeError } from '../errors.js';
+import type { MAX_BUCKET_PERIODS, MAX_SERIES_ROWS } from '../bounds.js';
+import { type PeriodRange, readBucketRange } from './bucket.js';
+import { type UnitInput, type ZoneInput, periodEdgeError, periodStartMs, requireUnit, resolveZone } from './deps.js';
 import { type RecurrenceGrid, gridFromRule } from './grid.js';
-import { type Series, makeSeries, requireSeries } from './series.js';
+import { optionOf, readMaxRows, readOneOf, readOptions, requireEnum, requireToleranceMs } from './options.js';
+import { type Series, instantsFromArray, makeSeries, readColumnList, requireSeries } from './series.js';
 
 /**
  * The grid to fill onto:
@@ -30,6 +32,8 @@ export type FillGrid =
  */
 export type FillMethod = 'previous' | 'next' | 'linear';
 
+const FILL_METHODS: readonly FillMethod[] = ['previous', 'next', 'linear'];
+
 /** Options of {@link fillSeries}. */
 export interface FillOptions {
   readonly grid: FillGrid;
@@ -43,65 +47,47 @@ export interface FillOptions {
   readonly maxGapMs?: number;
   /** Columns to fill (default: all). */
   readonly columns?: readonly string[];
+  /**
+   * The most grid instants a grid of periods or of a rule's occurrences may give: default
+   * {@link MAX_SERIES_ROWS} (one million), at most {@link MAX_BUCKET_PERIODS}. More is refused with
+   * `limit-exceeded` before the grid is built.
+   */
+  readonly maxRows?: number;
 }
 
-/** @internal The grid instants of a grid spec, ascending. */
-export function gridInstants(grid: FillGrid): Float64Array {
-  if (grid === null || typeof grid !== 'object') {
-    throw new KalendsTypeError(`options.grid: expected { unit, zone, range }, { rule, zone, start, end } or { epochMs }, got ${describeValue(grid)}`, {
-      code: 'invalid-type',
-      received: grid,
-    });
-  }
-  if ('epochMs' in grid) {
-    const a = grid.epochMs;
-    if (!Array.isArray(a) && !ArrayBuffer.isView(a)) {
-      throw new KalendsTypeError(`options.grid.epochMs: expected an array of instants, got ${describeValue(a)}`, {
-        code: 'invalid-type',
-        received: a,
-      });
-    }
-    const out = Float64Array.from(a as ArrayLike<number>);
-    for (let i = 0; i < out.length; i++) {
-      if (out[i] !== out[i]) {
-        throw new KalendsRangeError(`options.grid.epochMs[${i}]: expected an instant, got NaN`, { code: 'out-of-range', received: a[i] });
-      }
-      if (i > 0 && out[i]! < out[i - 1]!) {
+/** The grid kinds and the keys each allows. */
+const GRID_KINDS = {
+  unit: ['unit', 'zone', 'range'],
+  rule: ['rule', 'zone', 'start', 'end'],
+  epochMs: ['epochMs'],
+} as const;
+
+/** @internal The grid instants of a grid spec, ascending; a grid of more than `maxRows` instants is refused. */
+export function gridInstants(grid: unknown, maxRows: number): Float64Array {
+  const { kind, fields } = readOneOf('options.grid', grid, GRID_KINDS);
+  if (kind === 'epochMs') {
+    const out = instantsFromArray('options.grid.epochMs', optionOf(fields, 'epochMs'));
+    for (let i = 1; i < out.length; i++) {
+      if (out[i]! < out[i - 1]!) {
         throw new KalendsRangeError(
           `options.grid.epochMs: expected ascending instants, but [${i}] (${out[i]}) comes before [${i - 1}] (${out[i - 1]})`,
-          { code: 'unsorted', received: out[i], path: `grid.epochMs[${i}]` },
+          { code: 'unsorted', received: out[i], path: `options.grid.epochMs[${i}]` },
         );
       }
     }
     return out;
   }
-  if ('rule' in grid) return gridFromRule(grid);
-  if ('unit' in grid) {
-    const unit = requireUnit(grid.unit, 'options.grid.unit');
-    const zone = resolveZone(grid.zone, 'options.grid.zone');
-    const r = grid.range;
-    if (r === null || typeof r !== 'object') {
-      throw new KalendsTypeError(`options.grid.range: expected { start, end } (ordinals or labels), got ${describeValue(r)}`, {
-        code: 'invalid-type',
-        received: r,
-      });
-    }
-    const start = typeof r.start === 'string' ? unit.parseOrdinal(r.start) : r.start;
-    const end = typeof r.end === 'string' ? unit.parseOrdinal(r.end) : r.end;
-    if (!Number.isInteger(start) || !Number.isInteger(end) || end < start || end - start > 50_000_000) {
-      throw new KalendsRangeError(
-        `options.grid.range: expected start <= end, at most 50,000,000 periods apart, got ${describeValue(r.start)} to ${describeValue(r.end)}`,
-        { code: end - start > 50_000_000 ? 'limit-exceeded' : 'out-of-range', received: r },
-      );
-    }
-    const out = new Float64Array(end - start);
+  if (kind === 'rule') return gridFromRule(fields, maxRows);
+  const unit = requireUnit(optionOf(fields, 'unit'), 'options.grid.unit');
+  const zone = resolveZone(optionOf(fields, 'zone') as ZoneInput, 'options.grid.zone');
+  const { start, end } = readBucketRange('options.grid.range', optionOf(fields, 'range'), unit, maxRows);
+  const out = new Float64Array(end - start);
+  try {
     for (let o = start; o < end; o++) out[o - start] = periodStartMs(unit, zone, o);
-    return out;
+  } catch (e) {
+    throw periodEdgeError(e, 'options.grid.range', unit, zone);
   }
-  throw new KalendsTypeError(`options.grid: expected { unit, zone, range }, { rule, zone, start, end } or { epochMs }, got keys ${Object.keys(grid).join(', ')}`, {
-    code: 'invalid-type',
-    received: grid,
-  });
+  return out;
 }
 
 /**
@@ -171,36 +157,11 @@ export function fillColumn(t: Float64Array, v: Float64Array, grid: Float64Array,
  */
 export function fillSeries(series: Series, options: FillOptions): Series {
   requireSeries(series, 'series');
-  if (options === null || typeof options !== 'object') {
-    throw new KalendsTypeError(`options: expected { grid, method?, maxGapMs? }, got ${describeValue(options)}`, {
-      code: 'invalid-type',
-      received: options,
-    });
-  }
-  const method = options.method ?? 'previous';
-  if (method !== 'previous' && method !== 'next' && method !== 'linear') {
-    throw new KalendsRangeError(`options.method: expected "previous", "next" or "linear", got ${describeValue(method)}`, {
-      code: 'out-of-range',
-      received: method,
-    });
-  }
-  const maxGap = options.maxGapMs ?? Infinity;
-  if (typeof maxGap !== 'number' || Number.isNaN(maxGap) || maxGap < 0) {
-    throw new KalendsRangeError(`options.maxGapMs: expected a non-negative number of milliseconds, got ${describeValue(maxGap)}`, {
-      code: typeof maxGap === 'number' ? 'out-of-range' : 'invalid-type',
-      received: maxGap,
-    });
-  }
-  const names = options.columns ?? series.columnNames;
-  for (const c of names) {
-    if (series.columns[c] === undefined) {
-      throw new KalendsRangeError(`options.columns: no column ${describeValue(c)}; valid columns are ${series.columnNames.join(', ')}`, {
-        code: 'out-of-range',
-        received: c,
-      });
-    }
-  }
-  const grid = gridInstants(options.grid);
+  const o = readOptions('options', options, ['grid', 'method', 'maxGapMs', 'columns', 'maxRows']);
+  const method = requireEnum('options.method', optionOf(o, 'method'), FILL_METHODS, 'previous');
+  const maxGap = requireToleranceMs('options.maxGapMs', optionOf(o, 'maxGapMs'));
+  const names = readColumnList('options.columns', optionOf(o, 'columns'), series);
+  const grid = gridInstants(optionOf(o, 'grid'), readMaxRows('options.maxRows', optionOf(o, 'maxRows')));
   return makeSeries(
     grid,
     names,

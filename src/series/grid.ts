@@ -3,10 +3,9 @@
  *
  * @module
  */
-import { KalendsTypeError, describeValue } from '../errors.js';
-import { firstEpochMsOfDayNumber } from '../zone/index.js';
-import { type Rule, occurrenceDayNumberBulk, occurrenceEpochMsBulk } from '../recurrence/index.js';
-import { type ZoneInput, resolveZone } from './deps.js';
+import { KalendsRangeError, KalendsTypeError, describeValue } from '../errors.js';
+import { type Rule, type ZoneInput, firstEpochMsOfDayNumber, occurrenceDayNumberBulk, occurrenceEpochMsBulk, resolveZone } from './deps.js';
+import { type OptionRecord, optionOf, rowsLimitError } from './options.js';
 
 /**
  * The occurrences of a recurrence rule in `[start, end)`. A rule of dates gives the first instant of each
@@ -22,19 +21,31 @@ export interface RecurrenceGrid {
   readonly end: number | string;
 }
 
-/** @internal */
-export function gridFromRule(grid: RecurrenceGrid): Float64Array {
-  const rule = grid.rule;
+/** @internal The instants of a `{ rule, zone, start, end }` grid (its fields as read), at most `maxRows`. */
+export function gridFromRule(grid: OptionRecord, maxRows: number): Float64Array {
+  const rule = optionOf(grid, 'rule') as Rule;
   if (rule === null || typeof rule !== 'object') {
     throw new KalendsTypeError(`options.grid.rule: expected a rule from defineRule, got ${describeValue(rule)}`, {
       code: 'invalid-type',
       received: rule,
     });
   }
-  if (rule.values === 'instants') return occurrenceEpochMsBulk(rule, grid.start, grid.end);
-  const occurrences = occurrenceDayNumberBulk(rule, grid.start, grid.end);
+  let occurrences: Int32Array | Float64Array;
+  try {
+    occurrences =
+      rule.values === 'instants'
+        ? occurrenceEpochMsBulk(rule, optionOf(grid, 'start'), optionOf(grid, 'end'), { maxCount: maxRows })
+        : occurrenceDayNumberBulk(rule, optionOf(grid, 'start'), optionOf(grid, 'end'), { maxCount: maxRows });
+  } catch (e) {
+    if (e instanceof KalendsRangeError && e.code === 'limit-exceeded') {
+      const range = `from ${describeValue(optionOf(grid, 'start'))} to ${describeValue(optionOf(grid, 'end'))}`;
+      throw rowsLimitError('options.grid', `the rule's occurrences ${range} are more rows`, maxRows, 'options.maxRows');
+    }
+    throw e;
+  }
+  if (occurrences instanceof Float64Array) return occurrences;
   // A rule of dates: the first instant of each local date.
-  const zone = resolveZone(grid.zone, 'options.grid.zone');
+  const zone = resolveZone(optionOf(grid, 'zone') as ZoneInput, 'options.grid.zone');
   const out = new Float64Array(occurrences.length);
   for (let i = 0; i < out.length; i++) out[i] = firstEpochMsOfDayNumber(zone, occurrences[i]!);
   return out;

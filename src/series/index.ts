@@ -13,7 +13,7 @@ export {
   seriesFromRecords,
   seriesFromPairs,
   columnOfSeries,
-  withColumn,
+  seriesFromSeries,
   sliceSeries,
 } from './series.js';
 export { type QuantileMethod } from './numeric.js';
@@ -24,22 +24,14 @@ export {
   type PeriodRange,
   type BucketOptions,
   type BucketTable,
-  MAX_BUCKET_PERIODS,
   bucketSeries,
   seriesFromBuckets,
 } from './bucket.js';
-export { type BucketAccumulatorOptions, type BucketAccumulator, defineBucketAccumulator } from './accumulate.js';
-export {
-  type CalendarSpan,
-  type WindowSpec,
-  type RollingAggregationName,
-  type RollingAggregation,
-  type RollOptions,
-  type RollBulkOptions,
-  rollSeries,
-  rollBulk,
-} from './rolling.js';
-export { type SmoothOptions, smoothSeries } from './smoothing.js';
+export { type BucketAccumulatorOptions, type BucketAccumulator, type BucketFinishOptions, defineBucketAccumulator } from './accumulate.js';
+export { type CalendarSpan, type WindowSpec } from './rolling-window.js';
+export { type RollingAggregationName } from './rolling-kernel.js';
+export { type RollingAggregation, type RollOptions, type RollBulkOptions, rollSeries, rollBulk } from './rolling.js';
+export { type SmoothOptions, type SmoothingForm, smoothSeries } from './smoothing.js';
 export {
   type LagAmount,
   type LagOptions,

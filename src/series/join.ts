@@ -5,10 +5,13 @@
  * @module
  */
 import { KalendsRangeError, KalendsTypeError, describeValue } from '../errors.js';
-import { type Aggregation } from './aggregate.js';
-import { type BucketTable, type PeriodRange, bucketSeries } from './bucket.js';
-import { type PeriodUnit, type UnitInput, type Zone, type ZoneInput, periodStartMs, requireUnit, resolveZone } from './deps.js';
-import { type Series, makeSeries, requireSeries } from './series.js';
+import type { MAX_BUCKET_PERIODS, MAX_SERIES_ROWS } from '../bounds.js';
+import { isRecord } from '../diagnostics/index.js';
+import { type Aggregation, compileAggregations } from './aggregate.js';
+import { type BucketRows, type PeriodRange, bucketRows, periodBounds, readBucketRange } from './bucket.js';
+import { type PeriodUnit, type UnitInput, type Zone, type ZoneInput, periodEdgeError, requireUnit, resolveZone } from './deps.js';
+import { optionOf, readMaxRows, readOptions, requireColumnName, requireRowsWithin, requireToleranceMs } from './options.js';
+import { type Series, columnNamed, instantsFromArray, makeSeries, readColumnList, requireSeries } from './series.js';
 
 /** Options of {@link matchAsOf} and {@link joinAsOf}. */
 export interface AsOfOptions {
@@ -16,34 +19,19 @@ export interface AsOfOptions {
   readonly toleranceMs?: number;
 }
 
-function readTolerance(v: unknown): number {
-  if (v === undefined) return Infinity;
-  if (typeof v !== 'number' || Number.isNaN(v) || v < 0) {
-    throw new KalendsRangeError(`options.toleranceMs: expected a non-negative number of milliseconds, got ${describeValue(v)}`, {
-      code: typeof v === 'number' ? 'out-of-range' : 'invalid-type',
-      received: v,
-    });
-  }
-  return v;
-}
-
-function requireSortedTimes(a: ArrayLike<number>, name: string): void {
-  for (let i = 0; i < a.length; i++) {
-    const x = a[i]!;
-    if (typeof x !== 'number' || Number.isNaN(x)) {
-      throw new KalendsRangeError(`${name}[${i}]: expected an instant in epoch ms, got ${describeValue(x)}`, {
-        code: 'out-of-range',
-        received: x,
-      });
-    }
-    if (i > 0 && x < a[i - 1]!) {
-      throw new KalendsRangeError(`${name}: expected ascending instants, but [${i}] (${x}) comes before [${i - 1}] (${a[i - 1]})`, {
+/** Ascending instants given as an array of numbers: copied, checked once (a non-number named by its index). */
+function sortedInstants(name: string, value: unknown): Float64Array {
+  const a = instantsFromArray(name, value);
+  for (let i = 1; i < a.length; i++) {
+    if (a[i]! < a[i - 1]!) {
+      throw new KalendsRangeError(`${name}: expected ascending instants, but [${i}] (${a[i]}) comes before [${i - 1}] (${a[i - 1]})`, {
         code: 'unsorted',
-        received: x,
+        received: a[i],
         path: `${name}[${i}]`,
       });
     }
   }
+  return a;
 }
 
 /**
@@ -56,10 +44,11 @@ function requireSortedTimes(a: ArrayLike<number>, name: string): void {
  * matchAsOf([5, 10, 20], [0, 10, 11], { toleranceMs: 4 }); // Int32Array [-1, 1, -1]
  * ```
  */
-export function matchAsOf(leftEpochMs: ArrayLike<number>, rightEpochMs: ArrayLike<number>, options: AsOfOptions = {}): Int32Array {
-  requireSortedTimes(leftEpochMs, 'leftEpochMs');
-  requireSortedTimes(rightEpochMs, 'rightEpochMs');
-  return matchSorted(leftEpochMs, rightEpochMs, readTolerance(options.toleranceMs), undefined);
+export function matchAsOf(leftEpochMs: ArrayLike<number>, rightEpochMs: ArrayLike<number>, options?: AsOfOptions): Int32Array {
+  const left = sortedInstants('leftEpochMs', leftEpochMs);
+  const right = sortedInstants('rightEpochMs', rightEpochMs);
+  const o = readOptions('options', options, ['toleranceMs']);
+  return matchSorted(left, right, requireToleranceMs('options.toleranceMs', optionOf(o, 'toleranceMs')), undefined);
 }
 
 /** @internal As-of merge; with `valid`, only right rows whose value is not NaN qualify. */
@@ -98,27 +87,23 @@ export interface JoinAsOfOptions extends AsOfOptions {
  * const priced = joinAsOf(orders, prices, { toleranceMs: 86_400_000, prefix: 'price.' });
  * ```
  */
-export function joinAsOf(left: Series, right: Series, options: JoinAsOfOptions = {}): Series {
+export function joinAsOf(left: Series, right: Series, options?: JoinAsOfOptions): Series {
   requireSeries(left, 'left');
   requireSeries(right, 'right');
-  const tol = readTolerance(options.toleranceMs);
-  const prefix = options.prefix ?? '';
-  const cols = options.columns ?? right.columnNames;
+  const o = readOptions('options', options, ['toleranceMs', 'columns', 'prefix']);
+  const tol = requireToleranceMs('options.toleranceMs', optionOf(o, 'toleranceMs'));
+  const prefix = optionOf(o, 'prefix') === undefined ? '' : requireColumnName('options.prefix', optionOf(o, 'prefix'));
+  const cols = readColumnList('options.columns', optionOf(o, 'columns'), right);
   const names = [...left.columnNames];
   const values = left.columnNames.map((c) => left.columns[c]!);
-  for (const c of cols) {
-    const rv = right.columns[c];
-    if (rv === undefined) {
-      throw new KalendsRangeError(`options.columns: right has no column ${describeValue(c)}; it has ${right.columnNames.join(', ')}`, {
-        code: 'out-of-range',
-        received: c,
-      });
-    }
+  for (const [i, c] of cols.entries()) {
+    const rv = columnNamed(right, c, `options.columns[${i}]`);
     const name = prefix + c;
     if (names.includes(name)) {
-      throw new KalendsRangeError(`joinAsOf: column ${describeValue(name)} is in both series; pass a prefix such as "right."`, {
+      throw new KalendsRangeError(`options.prefix: column ${describeValue(name)} is in both series; pass a prefix such as "right."`, {
         code: 'out-of-range',
         received: name,
+        path: 'options.prefix',
       });
     }
     const idx = matchSorted(left.epochMs, right.epochMs, tol, rv);
@@ -138,6 +123,11 @@ export interface AlignOptions {
   readonly aggregation?: Aggregation;
   /** Periods to report (end-exclusive). Default: every period from the earliest to the latest holding a row. */
   readonly range?: PeriodRange;
+  /**
+   * The most periods the table may hold: default {@link MAX_SERIES_ROWS} (one million), at most
+   * {@link MAX_BUCKET_PERIODS}. More is refused with `limit-exceeded` before the table is built.
+   */
+  readonly maxRows?: number;
 }
 
 /** Several series on one period index: one column per input series, NaN where a series has no rows. */
@@ -164,72 +154,90 @@ export interface AlignedTable {
  * ```
  */
 export function alignSeries(series: Readonly<Record<string, Series>>, options: AlignOptions): AlignedTable {
-  if (series === null || typeof series !== 'object') {
-    throw new KalendsTypeError(`series: expected an object of named series, got ${describeValue(series)}`, {
+  if (!isRecord(series)) {
+    throw new KalendsTypeError(`series: expected an object of named series such as { tea: teaSales }, got ${describeValue(series)}`, {
       code: 'invalid-type',
       received: series,
     });
   }
-  const unit = requireUnit(options?.unit, 'options.unit');
-  const zone = resolveZone(options.zone, 'options.zone');
+  const o = readOptions('options', options, ['unit', 'zone', 'aggregation', 'range', 'maxRows']);
+  const unit = requireUnit(optionOf(o, 'unit'), 'options.unit');
+  const zone = resolveZone(optionOf(o, 'zone') as ZoneInput, 'options.zone');
   const names = Object.keys(series);
   if (names.length === 0) {
     throw new KalendsRangeError('series: expected at least one named series, got none', { code: 'out-of-range', received: series });
   }
-  const agg = options.aggregation ?? 'last';
-  const tables: BucketTable[] = names.map((name) => {
-    requireSeries(series[name], `series.${name}`);
-    return bucketSeries(series[name]!, {
-      unit,
-      zone,
-      aggregations: [agg],
-      ...(options.range ? { range: options.range } : {}),
+  const agg = optionOf(o, 'aggregation') ?? 'last';
+  if (Array.isArray(agg)) {
+    throw new KalendsTypeError(`options.aggregation: expected one aggregation (a name or { kind, ... }), got ${describeValue(agg)}`, {
+      code: 'invalid-type',
+      received: agg,
     });
+  }
+  const maxRows = readMaxRows('options.maxRows', optionOf(o, 'maxRows'));
+  const range = optionOf(o, 'range') === undefined ? undefined : readBucketRange('options.range', optionOf(o, 'range'), unit, maxRows);
+  const compiled = names.map((name) => {
+    const s = series[name];
+    requireSeries(s, `series.${name}`);
+    return compileAggregations(s, agg, 'options.aggregation');
   });
+  const edge = range === undefined ? 'series' : 'options.range';
+  let tables: BucketRows[];
+  try {
+    tables = names.map((name, k) => bucketRows(series[name]!.epochMs, unit, zone, compiled[k]!, range, 'nan', false));
+  } catch (e) {
+    throw periodEdgeError(e, edge, unit, zone);
+  }
   let start: number;
   let end: number;
-  if (options.range) {
-    start = tables[0]!.ordinals[0] ?? 0;
-    end = start + tables[0]!.length;
+  if (range !== undefined) {
+    start = range.start;
+    end = range.end;
   } else {
     start = Infinity;
     end = -Infinity;
     for (const t of tables) {
-      if (t.length === 0) continue;
+      const k = t.ordinals.length;
+      if (k === 0) continue;
       start = Math.min(start, t.ordinals[0]!);
-      end = Math.max(end, t.ordinals[t.length - 1]! + 1);
+      end = Math.max(end, t.ordinals[k - 1]! + 1);
     }
     if (start === Infinity) {
       start = 0;
       end = 0;
     }
+    requireRowsWithin(
+      'series',
+      end - start,
+      maxRows,
+      `aligning periods ${unit.formatOrdinal(start)} to ${unit.formatOrdinal(end - 1)} of unit ${unit.id}`,
+      'options.maxRows',
+    );
   }
   const m = end - start;
   const ordinals = new Int32Array(m);
-  const startEpochMs = new Float64Array(m);
-  const endEpochMs = new Float64Array(m);
-  const labels: string[] = [];
-  for (let j = 0; j < m; j++) {
-    ordinals[j] = start + j;
-    startEpochMs[j] = j > 0 ? endEpochMs[j - 1]! : periodStartMs(unit, zone, start);
-    endEpochMs[j] = periodStartMs(unit, zone, start + j + 1);
-    labels.push(unit.formatOrdinal(start + j));
+  for (let j = 0; j < m; j++) ordinals[j] = start + j;
+  let bounds: ReturnType<typeof periodBounds>;
+  try {
+    bounds = periodBounds(unit, zone, ordinals);
+  } catch (e) {
+    throw periodEdgeError(e, edge, unit, zone);
   }
   const columns: Record<string, Float64Array> = Object.create(null) as Record<string, Float64Array>;
   names.forEach((name, k) => {
     const t = tables[k]!;
     const col = new Float64Array(m).fill(Number.NaN);
-    const src = t.columns[t.columnNames[0]!]!;
-    for (let i = 0; i < t.length; i++) col[t.ordinals[i]! - start] = src[i]!;
+    const src = t.columns[0]!;
+    for (let i = 0; i < t.ordinals.length; i++) col[t.ordinals[i]! - start] = src[i]!;
     columns[name] = col;
   });
   return Object.freeze({
     unit,
     zone,
     ordinals,
-    labels: Object.freeze(labels),
-    startEpochMs,
-    endEpochMs,
+    labels: Object.freeze(bounds.labels),
+    startEpochMs: bounds.startEpochMs,
+    endEpochMs: bounds.endEpochMs,
     columns: Object.freeze(columns),
     columnNames: Object.freeze(names),
     length: m,

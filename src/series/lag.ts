@@ -5,14 +5,34 @@
  */
 import { KalendsRangeError, KalendsTypeError, describeValue } from '../errors.js';
 import { MS_PER_DAY } from '../bounds.js';
-import { dayNumberFromEpochMsBulk, epochMsFromWallMs, wallMsFromEpochMsBulk } from '../zone/index.js';
-import { type BusinessCalendar, nextBusinessDay, previousBusinessDay, shiftBusinessDays } from '../business/index.js';
-import { type Duration, negateDuration, shiftWallMs } from '../instant/index.js';
-import { shiftPeriodYears } from '../period/index.js';
+import { hasOwn } from '../diagnostics/index.js';
 import { type BucketTable, findRuns } from './bucket.js';
-import { type PeriodUnit, type UnitInput, type ZoneInput, requireUnit, resolveZone } from './deps.js';
-import { type CalendarSpan, readSpan } from './rolling.js';
-import { type Series, columnOfSeries, makeSeries, requireSeries } from './series.js';
+import {
+  type BusinessCalendar,
+  type CalendarInput,
+  type Duration,
+  type PeriodUnit,
+  type UnitInput,
+  type Zone,
+  type ZoneInput,
+  calendarEdgeError,
+  dayNumberFromEpochMsBulk,
+  periodEdgeError,
+  epochMsFromWallMs,
+  negateDuration,
+  nextBusinessDay,
+  shiftPeriodYears,
+  previousBusinessDay,
+  requireUnit,
+  resolveCalendar,
+  resolveZone,
+  shiftBusinessDays,
+  shiftWallMs,
+  wallMsFromEpochMsBulk,
+} from './deps.js';
+import { optionOf, optionalColumnName, readOneOf, readOptions, requireAmount, requireEnum, requirePositiveMs, requireToleranceMs } from './options.js';
+import { type CalendarSpan, readSpan } from './rolling-window.js';
+import { type Series, columnNamed, makeSeries, requireSeries } from './series.js';
 
 /**
  * How far to look back (lag) or ahead (lead), always a positive amount:
@@ -22,7 +42,8 @@ import { type Series, columnOfSeries, makeSeries, requireSeries } from './series
  * - `{ span, zone }`: the same with t's wall-clock time in `zone` moved by a calendar span (31 March minus one
  *   month is 28 or 29 February; a wall time in a DST gap or fold resolves as Temporal's `'compatible'`);
  * - `{ businessDays: n, calendar, zone }`: the same at the same wall-clock time on the n-th business day
- *   strictly before (after) the row's local day;
+ *   strictly before (after) the row's local day (`calendar`: a bundled name such as `'us-federal'`, or a calendar
+ *   from `defineCalendar`);
  * - `{ periods: n, unit, zone }`: the last non-missing value of the period n periods before (after) the row's
  *   period (the period's closing value); NaN when that period has no values.
  */
@@ -30,7 +51,7 @@ export type LagAmount =
   | { readonly rows: number }
   | { readonly durationMs: number; readonly toleranceMs?: number }
   | { readonly span: CalendarSpan; readonly zone: ZoneInput; readonly toleranceMs?: number }
-  | { readonly businessDays: number; readonly calendar: BusinessCalendar; readonly zone: ZoneInput; readonly toleranceMs?: number }
+  | { readonly businessDays: number; readonly calendar: BusinessCalendar | string; readonly zone: ZoneInput; readonly toleranceMs?: number }
   | { readonly periods: number; readonly unit: UnitInput; readonly zone: ZoneInput };
 
 /** Options of {@link lagSeries} and {@link leadSeries}. */
@@ -41,15 +62,24 @@ export interface LagOptions {
   readonly as?: string;
 }
 
-function positiveInteger(v: unknown, path: string): number {
-  if (typeof v !== 'number' || !Number.isInteger(v) || v < 1) {
-    throw new KalendsRangeError(`${path}: expected a positive integer, got ${describeValue(v)}; use leadSeries to look ahead`, {
-      code: typeof v === 'number' ? 'out-of-range' : 'invalid-type',
-      received: v,
-      path,
-    });
+/** The kinds of {@link LagAmount} and the keys each allows. */
+const LAG_KINDS = {
+  rows: ['rows'],
+  durationMs: ['durationMs', 'toleranceMs'],
+  span: ['span', 'zone', 'toleranceMs'],
+  businessDays: ['businessDays', 'calendar', 'zone', 'toleranceMs'],
+  periods: ['periods', 'unit', 'zone'],
+} as const;
+
+/** A positive whole amount; a negative one is pointed to the function that looks the other way. */
+function requireSteps(name: string, value: unknown, dir: -1 | 1): number {
+  if (typeof value === 'number' && Number.isInteger(value) && value < 1) {
+    throw new KalendsRangeError(
+      `${name}: expected a positive integer, got ${value}; amounts are positive, use ${dir < 0 ? 'leadSeries' : 'lagSeries'} to look the other way`,
+      { code: 'out-of-range', received: value, path: name },
+    );
   }
-  return v;
+  return requireAmount(name, value, 1);
 }
 
 /**
@@ -63,7 +93,7 @@ function positiveInteger(v: unknown, path: string): number {
  * lagSeries(sales, { periods: 1, unit: 'month', zone: 'America/Chicago' });       // last month's closing value
  * ```
  */
-export function lagSeries(series: Series, by: LagAmount, options: LagOptions = {}): Series {
+export function lagSeries(series: Series, by: LagAmount, options?: LagOptions): Series {
   return shifted(series, by, options, -1);
 }
 
@@ -75,20 +105,29 @@ export function lagSeries(series: Series, by: LagAmount, options: LagOptions = {
  * leadSeries(daily, { rows: 1 }); // tomorrow's row
  * ```
  */
-export function leadSeries(series: Series, by: LagAmount, options: LagOptions = {}): Series {
+export function leadSeries(series: Series, by: LagAmount, options?: LagOptions): Series {
   return shifted(series, by, options, 1);
 }
 
-function readTolerance(v: unknown, path: string): number {
-  if (v === undefined) return Infinity;
-  if (typeof v !== 'number' || Number.isNaN(v) || v < 0) {
-    throw new KalendsRangeError(`${path}: expected a non-negative number of milliseconds, got ${describeValue(v)}`, {
-      code: typeof v === 'number' ? 'out-of-range' : 'invalid-type',
-      received: v,
-      path,
-    });
+/** For each row, the same wall-clock time on the k-th business day strictly before (dir -1) or after (1) its day. */
+function businessDayTargets(t: Float64Array, zone: Zone, cal: CalendarInput, k: number, dir: -1 | 1): Float64Array {
+  const n = t.length;
+  const walls = wallMsFromEpochMsBulk(zone, t);
+  const days = dayNumberFromEpochMsBulk(zone, t);
+  const targets = new Float64Array(n);
+  let lastDay = Number.NaN;
+  let target = 0;
+  for (let i = 0; i < n; i++) {
+    const d = days[i]!;
+    if (d !== lastDay) {
+      const first = dir < 0 ? previousBusinessDay(cal, d) : nextBusinessDay(cal, d);
+      target = k === 1 ? first : shiftBusinessDays(cal, first, dir * (k - 1));
+      lastDay = d;
+    }
+    const msOfDay = walls[i]! - d * MS_PER_DAY;
+    targets[i] = epochMsFromWallMs(zone, target * MS_PER_DAY + msOfDay, 'compatible');
   }
-  return v;
+  return targets;
 }
 
 /** Looks up, for each target instant, the latest valid value at or before it (dir -1) or earliest at or after (dir 1). */
@@ -129,70 +168,61 @@ function lookup(t: Float64Array, v: Float64Array, targets: Float64Array, dir: -1
   return out;
 }
 
-function shifted(series: Series, by: LagAmount, options: LagOptions, dir: -1 | 1): Series {
+function shifted(series: Series, by: LagAmount, options: LagOptions | undefined, dir: -1 | 1): Series {
   requireSeries(series, 'series');
-  const v = columnOfSeries(series, options.column);
+  const o = readOptions('options', options, ['column', 'as']);
+  const { kind, fields: f } = readOneOf('by', by, LAG_KINDS);
+  const asked = optionalColumnName('options.column', optionOf(o, 'column'));
+  const v = columnNamed(series, asked, 'options.column');
   const t = series.epochMs;
   const n = t.length;
-  const name = options.as ?? (dir < 0 ? 'lag' : 'lead');
-  if (by === null || typeof by !== 'object') {
-    throw new KalendsTypeError(`by: expected { rows }, { durationMs }, { span, zone }, { businessDays, calendar, zone } or { periods, unit, zone }, got ${describeValue(by)}`, {
-      code: 'invalid-type',
-      received: by,
-    });
-  }
+  const name = optionalColumnName('options.as', optionOf(o, 'as')) ?? (dir < 0 ? 'lag' : 'lead');
+  const tolerance = () => requireToleranceMs('by.toleranceMs', optionOf(f, 'toleranceMs'));
   let out: Float64Array;
-  if ('rows' in by) {
-    const k = positiveInteger(by.rows, 'by.rows') * dir;
+  if (kind === 'rows') {
+    const k = requireSteps('by.rows', optionOf(f, 'rows'), dir) * dir;
     out = new Float64Array(n);
     for (let i = 0; i < n; i++) {
       const j = i + k;
       out[i] = j >= 0 && j < n ? v[j]! : Number.NaN;
     }
-  } else if ('durationMs' in by) {
-    const d = by.durationMs;
-    if (typeof d !== 'number' || !Number.isFinite(d) || d <= 0) {
-      throw new KalendsRangeError(`by.durationMs: expected a positive number of milliseconds, got ${describeValue(d)}`, {
-        code: typeof d === 'number' ? 'out-of-range' : 'invalid-type',
-        received: d,
-      });
-    }
+  } else if (kind === 'durationMs') {
+    const d = requirePositiveMs('by.durationMs', optionOf(f, 'durationMs'));
+    const tol = tolerance();
     const targets = new Float64Array(n);
     for (let i = 0; i < n; i++) targets[i] = t[i]! + dir * d;
-    out = lookup(t, v, targets, dir, readTolerance(by.toleranceMs, 'by.toleranceMs'));
-  } else if ('span' in by) {
-    const span = readSpan(by.span, 'by.span');
+    out = lookup(t, v, targets, dir, tol);
+  } else if (kind === 'span') {
+    const span = readSpan(optionOf(f, 'span'), 'by.span');
     const step: Duration = dir < 0 ? negateDuration(span) : span;
-    const zone = resolveZone(by.zone, 'by.zone');
+    const zone = resolveZone(optionOf(f, 'zone') as ZoneInput, 'by.zone');
+    const tol = tolerance();
     const walls = wallMsFromEpochMsBulk(zone, t);
     const targets = new Float64Array(n);
     for (let i = 0; i < n; i++) targets[i] = epochMsFromWallMs(zone, shiftWallMs(walls[i]!, step), 'compatible');
-    out = lookup(t, v, targets, dir, readTolerance(by.toleranceMs, 'by.toleranceMs'));
-  } else if ('businessDays' in by) {
-    const k = positiveInteger(by.businessDays, 'by.businessDays');
-    const zone = resolveZone(by.zone, 'by.zone');
-    const cal = by.calendar;
-    const walls = wallMsFromEpochMsBulk(zone, t);
-    const days = dayNumberFromEpochMsBulk(zone, t);
-    const targets = new Float64Array(n);
-    let lastDay = Number.NaN;
-    let target = 0;
-    for (let i = 0; i < n; i++) {
-      const d = days[i]!;
-      if (d !== lastDay) {
-        const first = dir < 0 ? previousBusinessDay(cal, d) : nextBusinessDay(cal, d);
-        target = k === 1 ? first : shiftBusinessDays(cal, first, dir * (k - 1));
-        lastDay = d;
-      }
-      const msOfDay = walls[i]! - d * MS_PER_DAY;
-      targets[i] = epochMsFromWallMs(zone, target * MS_PER_DAY + msOfDay, 'compatible');
+    out = lookup(t, v, targets, dir, tol);
+  } else if (kind === 'businessDays') {
+    const k = requireSteps('by.businessDays', optionOf(f, 'businessDays'), dir);
+    const cal = resolveCalendar(optionOf(f, 'calendar'), 'by.calendar');
+    const zone = resolveZone(optionOf(f, 'zone') as ZoneInput, 'by.zone');
+    const tol = tolerance();
+    let targets: Float64Array;
+    try {
+      targets = businessDayTargets(t, zone, cal, k, dir);
+    } catch (e) {
+      throw calendarEdgeError(e, 'series.epochMs', cal);
     }
-    out = lookup(t, v, targets, dir, readTolerance(by.toleranceMs, 'by.toleranceMs'));
-  } else if ('periods' in by) {
-    const k = positiveInteger(by.periods, 'by.periods');
-    const unit = requireUnit(by.unit, 'by.unit');
-    const zone = resolveZone(by.zone, 'by.zone');
-    const runs = findRuns(t, 0, n, unit, zone);
+    out = lookup(t, v, targets, dir, tol);
+  } else {
+    const k = requireSteps('by.periods', optionOf(f, 'periods'), dir);
+    const unit = requireUnit(optionOf(f, 'unit'), 'by.unit');
+    const zone = resolveZone(optionOf(f, 'zone') as ZoneInput, 'by.zone');
+    let runs: ReturnType<typeof findRuns>;
+    try {
+      runs = findRuns(t, 0, n, unit, zone);
+    } catch (e) {
+      throw periodEdgeError(e, 'series.epochMs', unit, zone);
+    }
     const closing = new Float64Array(runs.count);
     for (let r = 0; r < runs.count; r++) {
       let c = Number.NaN;
@@ -211,11 +241,6 @@ function shifted(series: Series, by: LagAmount, options: LagOptions, dir: -1 | 1
       const value = byOrdinal.get(runs.ordinals[r]! + dir * k) ?? Number.NaN;
       out.fill(value, runs.starts[r]!, runs.starts[r + 1]!);
     }
-  } else {
-    throw new KalendsTypeError(
-      `by: expected one of { rows }, { durationMs }, { span, zone }, { businessDays, calendar, zone }, { periods, unit, zone }, got keys ${Object.keys(by).join(', ') || '(none)'}`,
-      { code: 'invalid-type', received: by },
-    );
   }
   return makeSeries(t, [name], [out]);
 }
@@ -231,6 +256,8 @@ export interface PeriodChangeOptions {
    */
   readonly against?: 'previous' | 'year-earlier';
 }
+
+const AGAINST: readonly ('previous' | 'year-earlier')[] = ['previous', 'year-earlier'];
 
 /** Each period's value beside its base period's value, with the change and the relative change. */
 export interface PeriodChange {
@@ -260,26 +287,22 @@ export interface PeriodChange {
  * periodChangeFromBuckets(monthly, { against: 'year-earlier' }).relativeChange; // growth over the same month last year
  * ```
  */
-export function periodChangeFromBuckets(table: BucketTable, options: PeriodChangeOptions = {}): PeriodChange {
+export function periodChangeFromBuckets(table: BucketTable, options?: PeriodChangeOptions): PeriodChange {
   if (table === null || typeof table !== 'object' || !(table.ordinals instanceof Int32Array)) {
     throw new KalendsTypeError(`table: expected a BucketTable (from bucketSeries), got ${describeValue(table)}`, {
       code: 'invalid-type',
       received: table,
     });
   }
-  const against = options.against ?? 'previous';
-  if (against !== 'previous' && against !== 'year-earlier') {
-    throw new KalendsRangeError(`options.against: expected "previous" or "year-earlier", got ${describeValue(against)}`, {
-      code: 'out-of-range',
-      received: against,
-    });
-  }
-  const colName = options.column ?? table.columnNames[0];
-  const value = colName === undefined ? undefined : table.columns[colName];
+  const o = readOptions('options', options, ['column', 'against']);
+  const against = requireEnum('options.against', optionOf(o, 'against'), AGAINST, 'previous');
+  const colName = optionalColumnName('options.column', optionOf(o, 'column')) ?? table.columnNames[0];
+  const value = colName !== undefined && hasOwn(table.columns, colName) ? table.columns[colName] : undefined;
   if (value === undefined) {
-    throw new KalendsRangeError(`options.column: no column ${describeValue(colName)}; valid columns are ${table.columnNames.join(', ')}`, {
+    throw new KalendsRangeError(`options.column: no column ${describeValue(colName)}; valid columns are ${table.columnNames.map((c) => JSON.stringify(c)).join(', ') || '(none)'}`, {
       code: 'out-of-range',
       received: colName,
+      path: 'options.column',
     });
   }
   const n = table.length;

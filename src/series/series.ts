@@ -7,7 +7,9 @@
  */
 import { MAX_EPOCH_MS, MIN_EPOCH_MS } from '../bounds.js';
 import { KalendsRangeError, KalendsTypeError, describeValue } from '../errors.js';
-import { toEpochMs } from '../instant/index.js';
+import { didYouMean, hasOwn, isRecord, ownField, requireEpochMs, requireNumberArray } from '../diagnostics/index.js';
+import { toEpochMs } from './deps.js';
+import { type OptionRecord, optionOf, readOptions, requireColumnName, requireEnum } from './options.js';
 
 /**
  * Columnar time-indexed values. `epochMs` is sorted ascending (duplicates allowed, kept in input order); every
@@ -43,7 +45,8 @@ export interface RecordOptions extends SeriesOptions {
   readonly at?: string;
   /**
    * Value columns to read: a list of field names (each becomes a column of the same name), or a map from
-   * column name to field name. Default: the single field `'value'`.
+   * column name to field name. Default: the single field `'value'`. An empty list reads the instants alone (a
+   * series with no value column, for counting events).
    */
   readonly columns?: readonly string[] | Readonly<Record<string, string>>;
 }
@@ -57,34 +60,28 @@ export interface PairOptions extends SeriesOptions {
 /** The instant held by a record or pair: epoch ms, or anything the instant layer's `toEpochMs` accepts. */
 export type InstantLike = number | string | Date | object;
 
+const INPUT_ORDERS: readonly InputOrder[] = ['any', 'sorted'];
+
+/** An instant in a record or pair: a number as it is (fractions allowed), anything else through `toEpochMs`. */
 function coerceInstant(value: unknown, name: string): number {
-  if (typeof value === 'number') {
-    if (Number.isNaN(value)) {
-      throw new KalendsRangeError(`${name}: expected an instant (finite epoch ms), got NaN; remove or fill the row`, {
-        code: 'out-of-range',
-        received: value,
-      });
-    }
-    if (!(value >= MIN_EPOCH_MS && value <= MAX_EPOCH_MS)) {
-      throw new KalendsRangeError(
-        `${name}: expected epoch ms from ${MIN_EPOCH_MS} to ${MAX_EPOCH_MS}, got ${describeValue(value)}`,
-        { code: 'out-of-range', received: value },
-      );
-    }
-    return value;
-  }
-  if (typeof toEpochMs !== 'function') {
-    throw new KalendsTypeError(`${name}: expected epoch ms as a number, got ${describeValue(value)}`, {
-      code: 'invalid-type',
-      received: value,
-    });
-  }
+  if (typeof value === 'number') return requireInstant(name, value);
   try {
     return toEpochMs(value as never);
   } catch (e) {
-    if (e instanceof Error) e.message = `${name}: ${e.message}`;
+    if (e instanceof Error && !e.message.startsWith(name)) e.message = `${name}: ${e.message}`;
     throw e;
   }
+}
+
+/** @internal An instant given as a number: within ±8.64e15 ms, fractions allowed; NaN names the fix. */
+export function requireInstant(name: string, value: number): number {
+  if (value >= MIN_EPOCH_MS && value <= MAX_EPOCH_MS) return value;
+  const fix = value !== value ? '; remove or fill the row' : '';
+  throw new KalendsRangeError(`${name}: expected an instant in epoch ms from ${MIN_EPOCH_MS} to ${MAX_EPOCH_MS}, got ${describeValue(value)}${fix}`, {
+    code: 'out-of-range',
+    received: value,
+    path: name,
+  });
 }
 
 function coerceValue(value: unknown, name: string): number {
@@ -93,81 +90,80 @@ function coerceValue(value: unknown, name: string): number {
   throw new KalendsTypeError(`${name}: expected a number (or null/undefined for missing), got ${describeValue(value)}`, {
     code: 'invalid-type',
     received: value,
+    path: name,
   });
 }
 
-function requireColumnName(name: unknown, where: string): string {
-  if (typeof name !== 'string' || name === '') {
-    throw new KalendsTypeError(`${where}: expected a non-empty column name, got ${describeValue(name)}`, {
-      code: 'invalid-type',
-      received: name,
+/**
+ * @internal Instants given as an array of numbers: a copy in a Float64Array, each within ±8.64e15 ms (fractions
+ * allowed); a non-number is named by its index.
+ */
+export function instantsFromArray(name: string, value: unknown): Float64Array {
+  const a = requireNumberArray(name, value);
+  const n = a.length;
+  const out = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    const t = a[i]!;
+    out[i] = t >= MIN_EPOCH_MS && t <= MAX_EPOCH_MS ? t : requireInstant(`${name}[${i}]`, t);
+  }
+  return out;
+}
+
+/** @internal A value column given as an array of numbers (NaN for missing), copied into a Float64Array of `n`. */
+export function columnFromArray(name: string, value: unknown, n: number): Float64Array {
+  const a = requireNumberArray(name, value);
+  if (a.length !== n) {
+    throw new KalendsRangeError(`${name}: expected ${n} values (one per instant), got ${a.length}; every column must match the instants`, {
+      code: 'length-mismatch',
+      received: a.length,
+      path: name,
     });
   }
-  return name;
+  return Float64Array.from(a);
+}
+
+function requireColumns(name: string, columns: unknown): Readonly<Record<string, unknown>> {
+  if (columns === undefined) return {};
+  if (!isRecord(columns)) {
+    throw new KalendsTypeError(`${name}: expected an object of named arrays such as { amount: [...] }, got ${describeValue(columns)}`, {
+      code: 'invalid-type',
+      received: columns,
+    });
+  }
+  return columns;
 }
 
 /**
- * Builds a series from parallel arrays: instants and named value columns. The inputs are copied. Throws
- * `length-mismatch` when a column's length differs from the instants', `out-of-range` for a NaN instant (naming
- * its index), and `unsorted` when `inputOrder: 'sorted'` was promised but broken.
+ * Builds a series from parallel arrays: instants and named value columns (arrays or typed arrays of numbers,
+ * NaN for missing). The inputs are copied. Without `columns` the series holds the instants alone, for counting
+ * events. Throws `length-mismatch` when a column's length differs from the instants', `invalid-type` for an
+ * element that is not a number (naming its index), `out-of-range` for a NaN instant, and `unsorted` when
+ * `inputOrder: 'sorted'` was promised but broken. Instants may carry fractions of a millisecond.
  *
  * @example
  * ```ts
  * const s = seriesFromColumns([3000, 1000, 2000], { kg: [3, 1, 2] });
  * Array.from(s.columns.kg!); // [1, 2, 3]
+ * seriesFromColumns([5, 1]).columnNames; // [] (instants alone)
  * ```
  */
 export function seriesFromColumns(
   epochMs: ArrayLike<number>,
-  columns: Readonly<Record<string, ArrayLike<number>>>,
-  options: SeriesOptions = {},
+  columns?: Readonly<Record<string, ArrayLike<number>>>,
+  options?: SeriesOptions,
 ): Series {
-  const order = readInputOrder(options);
-  if (!isArrayLike(epochMs)) {
-    throw new KalendsTypeError(`epochMs: expected an array or typed array of numbers, got ${describeValue(epochMs)}`, {
-      code: 'invalid-type',
-      received: epochMs,
-    });
-  }
-  if (columns === null || typeof columns !== 'object') {
-    throw new KalendsTypeError(`columns: expected an object of named arrays, got ${describeValue(columns)}`, {
-      code: 'invalid-type',
-      received: columns,
-    });
-  }
-  const n = epochMs.length;
-  const times = new Float64Array(n);
-  for (let i = 0; i < n; i++) {
-    const t = epochMs[i]!;
-    times[i] = typeof t === 'number' && t >= MIN_EPOCH_MS && t <= MAX_EPOCH_MS ? t : coerceInstant(t, `epochMs[${i}]`);
-  }
-  const names = Object.keys(columns);
-  const cols: Float64Array[] = [];
-  for (const name of names) {
-    const col = columns[name]!;
-    if (!isArrayLike(col)) {
-      throw new KalendsTypeError(`columns.${name}: expected an array or typed array, got ${describeValue(col)}`, {
-        code: 'invalid-type',
-        received: col,
-      });
-    }
-    if (col.length !== n) {
-      throw new KalendsRangeError(
-        `columns.${name}: expected ${n} values (one per instant), got ${col.length}; every column must match epochMs`,
-        { code: 'length-mismatch', received: col.length, path: `columns.${name}` },
-      );
-    }
-    const out = new Float64Array(n);
-    for (let i = 0; i < n; i++) out[i] = coerceValue(col[i], `columns.${name}[${i}]`);
-    cols.push(out);
-  }
+  const order = readInputOrder(readOptions('options', options, ['inputOrder']));
+  const times = instantsFromArray('epochMs', epochMs);
+  const given = requireColumns('columns', columns);
+  const names = Object.keys(given);
+  const cols = names.map((name) => columnFromArray(`columns.${name}`, given[name], times.length));
   return assemble(times, names, cols, order);
 }
 
 /**
- * Builds a series from records such as `{ at, value }`. `at` may be epoch ms or anything the instant layer's
- * `toEpochMs` accepts (an RFC 3339 string, a `Date`, a Temporal instant). A value of `null` or `undefined` is
- * stored as NaN (missing).
+ * Builds a series from records such as `{ at, value }`. `at` may be epoch ms (fractions allowed) or anything the
+ * instant layer's `toEpochMs` accepts (an RFC 3339 string, a `Date`, a Temporal instant). A value of `null` or
+ * `undefined` is stored as NaN (missing). `columns: []` reads the instants alone.
  *
  * @example
  * ```ts
@@ -177,22 +173,23 @@ export function seriesFromColumns(
  * t.columnNames; // ['kg', 'eur']
  * ```
  */
-export function seriesFromRecords(records: readonly object[], options: RecordOptions = {}): Series {
-  const order = readInputOrder(options);
+export function seriesFromRecords(records: readonly object[], options?: RecordOptions): Series {
+  const o = readOptions('options', options, ['at', 'columns', 'inputOrder']);
+  const order = readInputOrder(o);
   if (!Array.isArray(records)) {
     throw new KalendsTypeError(`records: expected an array of objects, got ${describeValue(records)}`, {
       code: 'invalid-type',
       received: records,
     });
   }
-  const atField = options.at === undefined ? 'at' : requireColumnName(options.at, 'options.at');
-  const spec = options.columns ?? ['value'];
-  const pairs: [string, string][] = Array.isArray(spec)
-    ? (spec as readonly string[]).map((f, i) => [requireColumnName(f, `options.columns[${i}]`), f])
-    : Object.entries(spec as Record<string, string>).map(([k, f]) => [k, requireColumnName(f, `options.columns.${k}`)]);
-  if (pairs.length === 0) {
-    throw new KalendsRangeError('options.columns: expected at least one column, got none', {
-      code: 'out-of-range',
+  const atField = optionOf(o, 'at') === undefined ? 'at' : requireColumnName('options.at', optionOf(o, 'at'));
+  const spec = optionOf(o, 'columns') ?? ['value'];
+  let pairs: [string, string][];
+  if (Array.isArray(spec)) pairs = spec.map((f: unknown, i) => [requireColumnName(`options.columns[${i}]`, f), f as string]);
+  else if (isRecord(spec)) pairs = Object.keys(spec).map((k) => [k, requireColumnName(`options.columns.${k}`, spec[k])]);
+  else {
+    throw new KalendsTypeError(`options.columns: expected a list of field names or a map from column name to field name, got ${describeValue(spec)}`, {
+      code: 'invalid-type',
       received: spec,
     });
   }
@@ -200,15 +197,15 @@ export function seriesFromRecords(records: readonly object[], options: RecordOpt
   const times = new Float64Array(n);
   const cols = pairs.map(() => new Float64Array(n));
   for (let i = 0; i < n; i++) {
-    const r = records[i] as Record<string, unknown> | null | undefined;
-    if (r === null || typeof r !== 'object') {
+    const r: unknown = records[i];
+    if (!isRecord(r)) {
       throw new KalendsTypeError(`records[${i}]: expected an object, got ${describeValue(r)}`, {
         code: 'invalid-type',
         received: r,
       });
     }
-    times[i] = coerceInstant(r[atField], `records[${i}].${atField}`);
-    for (let c = 0; c < pairs.length; c++) cols[c]![i] = coerceValue(r[pairs[c]![1]], `records[${i}].${pairs[c]![1]}`);
+    times[i] = coerceInstant(ownField(r, atField), `records[${i}].${atField}`);
+    for (let c = 0; c < pairs.length; c++) cols[c]![i] = coerceValue(ownField(r, pairs[c]![1]), `records[${i}].${pairs[c]![1]}`);
   }
   return assemble(
     times,
@@ -219,7 +216,7 @@ export function seriesFromRecords(records: readonly object[], options: RecordOpt
 }
 
 /**
- * Builds a one-column series from `[at, value]` pairs.
+ * Builds a one-column series from `[at, value]` pairs (`at` as in {@link seriesFromRecords}).
  *
  * @example
  * ```ts
@@ -227,20 +224,21 @@ export function seriesFromRecords(records: readonly object[], options: RecordOpt
  * Array.from(s.columns.boxes!); // [2, 3] (equal times keep input order)
  * ```
  */
-export function seriesFromPairs(pairs: readonly (readonly [InstantLike, number | null])[], options: PairOptions = {}): Series {
-  const order = readInputOrder(options);
+export function seriesFromPairs(pairs: readonly (readonly [InstantLike, number | null])[], options?: PairOptions): Series {
+  const o = readOptions('options', options, ['column', 'inputOrder']);
+  const order = readInputOrder(o);
   if (!Array.isArray(pairs)) {
     throw new KalendsTypeError(`pairs: expected an array of [at, value] pairs, got ${describeValue(pairs)}`, {
       code: 'invalid-type',
       received: pairs,
     });
   }
-  const column = options.column === undefined ? 'value' : requireColumnName(options.column, 'options.column');
+  const column = optionOf(o, 'column') === undefined ? 'value' : requireColumnName('options.column', optionOf(o, 'column'));
   const n = pairs.length;
   const times = new Float64Array(n);
   const values = new Float64Array(n);
   for (let i = 0; i < n; i++) {
-    const p = pairs[i];
+    const p: unknown = pairs[i];
     if (!Array.isArray(p) || p.length !== 2) {
       throw new KalendsTypeError(`pairs[${i}]: expected an [at, value] pair, got ${describeValue(p)}`, {
         code: 'invalid-type',
@@ -253,25 +251,8 @@ export function seriesFromPairs(pairs: readonly (readonly [InstantLike, number |
   return assemble(times, [column], [values], order);
 }
 
-function readInputOrder(options: SeriesOptions): InputOrder {
-  if (options === null || typeof options !== 'object') {
-    throw new KalendsTypeError(`options: expected an object, got ${describeValue(options)}`, {
-      code: 'invalid-type',
-      received: options,
-    });
-  }
-  const o = options.inputOrder ?? 'any';
-  if (o !== 'any' && o !== 'sorted') {
-    throw new KalendsRangeError(`options.inputOrder: expected "any" or "sorted", got ${describeValue(o)}`, {
-      code: 'out-of-range',
-      received: o,
-    });
-  }
-  return o;
-}
-
-function isArrayLike(v: unknown): v is ArrayLike<unknown> {
-  return Array.isArray(v) || ArrayBuffer.isView(v);
+function readInputOrder(o: OptionRecord): InputOrder {
+  return requireEnum('options.inputOrder', optionOf(o, 'inputOrder'), INPUT_ORDERS, 'any');
 }
 
 /** Index of the first row out of order, or -1. */
@@ -339,7 +320,8 @@ export function makeSeries(times: Float64Array, names: readonly string[], cols: 
 }
 
 /**
- * The values of one column. Without `name`, the first column. An unknown name throws, listing the valid ones.
+ * The values of one column. Without `name`, the first column. An unknown name throws, listing the valid ones; a
+ * series of instants alone (no value column) says so.
  *
  * @example
  * ```ts
@@ -348,13 +330,29 @@ export function makeSeries(times: Float64Array, names: readonly string[], cols: 
  */
 export function columnOfSeries(series: Series, name?: string): Float64Array {
   requireSeries(series, 'series');
+  if (name !== undefined) requireColumnName('column', name);
+  return columnNamed(series, name, 'column');
+}
+
+/**
+ * @internal Column `name` of `series` (the first when `name` is undefined); `parameter` names the option that
+ * chose it in messages.
+ */
+export function columnNamed(series: Series, name: string | undefined, parameter: string): Float64Array {
   const key = name ?? series.columnNames[0];
-  const col = key === undefined ? undefined : series.columns[key];
+  if (key === undefined) {
+    throw new KalendsRangeError(
+      `${parameter}: the series holds instants alone (no value column); count its rows with the "count" or "rows" aggregation, or build it with a value column`,
+      { code: 'unsupported', received: name, path: parameter },
+    );
+  }
+  const col = hasOwn(series.columns, key) ? series.columns[key] : undefined;
   if (col === undefined) {
     const valid = series.columnNames.map((c) => JSON.stringify(c)).join(', ') || '(none)';
-    throw new KalendsRangeError(`column: no column named ${describeValue(key)}; valid columns are ${valid}`, {
+    throw new KalendsRangeError(`${parameter}: no column named ${describeValue(key)}; valid columns are ${valid}${didYouMean(key, series.columnNames)}`, {
       code: 'out-of-range',
       received: key,
+      path: parameter,
     });
   }
   return col;
@@ -363,7 +361,7 @@ export function columnOfSeries(series: Series, name?: string): Float64Array {
 /** @internal Throws unless `series` looks like a Series. */
 export function requireSeries(series: unknown, name: string): asserts series is Series {
   const s = series as Series | null;
-  if (s === null || typeof s !== 'object' || !(s.epochMs instanceof Float64Array) || typeof s.columns !== 'object') {
+  if (s === null || typeof s !== 'object' || !(s.epochMs instanceof Float64Array) || typeof s.columns !== 'object' || !Array.isArray(s.columnNames)) {
     throw new KalendsTypeError(`${name}: expected a Series (see seriesFromColumns), got ${describeValue(series)}`, {
       code: 'invalid-type',
       received: series,
@@ -372,29 +370,47 @@ export function requireSeries(series: unknown, name: string): asserts series is 
 }
 
 /**
- * A new series with one more column (or a column replaced). `values` must have one entry per row.
+ * @internal A list of column names of `series` (default: all of them), each checked: an unknown name lists the
+ * valid ones.
+ */
+export function readColumnList(name: string, value: unknown, series: Series): readonly string[] {
+  if (value === undefined) return series.columnNames;
+  if (!Array.isArray(value)) {
+    throw new KalendsTypeError(`${name}: expected a list of column names, got ${describeValue(value)}`, { code: 'invalid-type', received: value });
+  }
+  return value.map((c: unknown, i) => {
+    columnNamed(series, requireColumnName(`${name}[${i}]`, c), `${name}[${i}]`);
+    return c as string;
+  });
+}
+
+/**
+ * A new series sharing the instants of `series`, with the given columns added (or, for a name it already has,
+ * replaced). Each column is an array or typed array of numbers with one entry per row (NaN for missing); the
+ * other columns are shared, not copied.
  *
  * @example
  * ```ts
- * const s = withColumn(seriesFromPairs([[0, 1], [1, 2]]), 'double', [2, 4]);
+ * const s = seriesFromSeries(seriesFromPairs([[0, 1], [1, 2]]), { double: [2, 4] });
  * s.columnNames; // ['value', 'double']
  * ```
  */
-export function withColumn(series: Series, name: string, values: ArrayLike<number>): Series {
+export function seriesFromSeries(series: Series, columns: Readonly<Record<string, ArrayLike<number>>>): Series {
   requireSeries(series, 'series');
-  requireColumnName(name, 'name');
-  if (!isArrayLike(values) || values.length !== series.length) {
-    throw new KalendsRangeError(
-      `values: expected ${series.length} values (one per row), got ${isArrayLike(values) ? values.length : describeValue(values)}`,
-      { code: 'length-mismatch', received: values },
-    );
+  if (!isRecord(columns)) {
+    throw new KalendsTypeError(`columns: expected an object of named arrays such as { double: [...] }, got ${describeValue(columns)}`, {
+      code: 'invalid-type',
+      received: columns,
+    });
   }
-  const col = Float64Array.from(values, (v, i) => coerceValue(v, `values[${i}]`));
-  const names = series.columnNames.includes(name) ? series.columnNames : [...series.columnNames, name];
+  const added = Object.keys(columns);
+  const values = new Map<string, Float64Array>();
+  for (const name of added) values.set(name, columnFromArray(`columns.${name}`, columns[name], series.length));
+  const names = [...series.columnNames, ...added.filter((n) => !series.columnNames.includes(n))];
   return makeSeries(
     series.epochMs,
     names,
-    names.map((n) => (n === name ? col : series.columns[n]!)),
+    names.map((n) => values.get(n) ?? series.columns[n]!),
   );
 }
 
@@ -408,8 +424,8 @@ export function withColumn(series: Series, name: string, values: ArrayLike<numbe
  */
 export function sliceSeries(series: Series, startEpochMs: number, endEpochMs: number): Series {
   requireSeries(series, 'series');
-  requireFiniteNumber(startEpochMs, 'startEpochMs');
-  requireFiniteNumber(endEpochMs, 'endEpochMs');
+  requireEpochMs('startEpochMs', startEpochMs);
+  requireEpochMs('endEpochMs', endEpochMs);
   const lo = lowerBound(series.epochMs, startEpochMs, 0, series.length);
   const hi = Math.max(lo, lowerBound(series.epochMs, endEpochMs, lo, series.length));
   return makeSeries(
@@ -429,28 +445,4 @@ export function lowerBound(a: Float64Array, x: number, from: number, to: number)
     else hi = mid;
   }
   return lo;
-}
-
-/** @internal First index in [from, to) with `a[i] > x` (or `to`). */
-export function upperBound(a: Float64Array, x: number, from: number, to: number): number {
-  let lo = from;
-  let hi = to;
-  while (lo < hi) {
-    const mid = (lo + hi) >>> 1;
-    if (a[mid]! <= x) lo = mid + 1;
-    else hi = mid;
-  }
-  return lo;
-}
-
-/** @internal Throws unless `v` is a finite number. */
-export function requireFiniteNumber(v: unknown, name: string): number {
-  if (typeof v !== 'number' || !Number.isFinite(v)) {
-    const Err = typeof v === 'number' ? KalendsRangeError : KalendsTypeError;
-    throw new Err(`${name}: expected a finite number, got ${describeValue(v)}`, {
-      code: typeof v === 'number' ? 'out-of-range' : 'invalid-type',
-      received: v,
-    });
-  }
-  return v;
 }

@@ -7,15 +7,26 @@
  *
  * @module
  */
-import { KalendsRangeError, KalendsTypeError, describeValue } from '../errors.js';
-import { type Series, columnOfSeries, makeSeries, requireSeries } from './series.js';
+import { KalendsTypeError } from '../errors.js';
+import { optionOf, optionalColumnName, readOptions, requireAmount, requireEnum, requireReal } from './options.js';
+import { type Series, columnNamed, makeSeries, requireSeries } from './series.js';
 
-/** Options of {@link smoothSeries}. Give exactly one of `alpha`, `span`, `halfLife` or `halfLifeMs`. */
+/** How the weights of {@link smoothSeries} are applied. */
+export type SmoothingForm = 'recursive' | 'normalized';
+
+/**
+ * Options of {@link smoothSeries}. Give exactly one of `alpha`, `equivalentWindowRows`, `halfLife` or
+ * `halfLifeMs`.
+ */
 export interface SmoothOptions {
   /** Smoothing constant, 0 < alpha <= 1: the weight of the newest value. */
   readonly alpha?: number;
-  /** Span in rows (>= 1): alpha = 2 / (span + 1). */
-  readonly span?: number;
+  /**
+   * The length n (>= 1 rows) of the rolling mean whose weights have the same mean age as the smoothing's:
+   * alpha = 2 / (n + 1). (The mean age of the weights α(1 − α)^k is (1 − α) / α rows; that of a rolling mean
+   * over n rows is (n − 1) / 2.) Renamed in 0.2 (was `span`).
+   */
+  readonly equivalentWindowRows?: number;
   /** Half-life in rows (> 0): alpha = 1 - 2^(-1 / halfLife); a value's weight halves every `halfLife` rows. */
   readonly halfLife?: number;
   /**
@@ -24,11 +35,12 @@ export interface SmoothOptions {
    */
   readonly halfLifeMs?: number;
   /**
-   * `'recursive'` (default): s₁ = y₁, sᵢ = α yᵢ + (1 − α) sᵢ₋₁, the handbook's form. `'adjusted'`: the
-   * weighted mean Σ wᵢⱼ yⱼ / Σ wᵢⱼ over all values so far with wᵢⱼ = (1 − α)^(i − j) (or 2^(−(tᵢ − tⱼ)/h)), which
-   * does not over-weight the first value.
+   * `'recursive'` (default): s₁ = y₁, sᵢ = α yᵢ + (1 − α) sᵢ₋₁, the handbook's form. `'normalized'`: the
+   * weighted mean Σ wᵢⱼ yⱼ / Σ wᵢⱼ over all values so far, the weights divided by their sum, with
+   * wᵢⱼ = (1 − α)^(i − j) (or 2^(−(tᵢ − tⱼ)/h)), which does not over-weight the first value. Renamed in 0.2 (was
+   * `'adjusted'`).
    */
-  readonly form?: 'recursive' | 'adjusted';
+  readonly form?: SmoothingForm;
   /** Input column (default: the first). */
   readonly column?: string;
   /** Output column name (default `'smoothed'`). */
@@ -37,16 +49,9 @@ export interface SmoothOptions {
   readonly minObservations?: number;
 }
 
-function positive(v: unknown, path: string, extra: string, ok: (x: number) => boolean): number {
-  if (typeof v !== 'number' || !Number.isFinite(v) || !ok(v)) {
-    throw new KalendsRangeError(`${path}: expected ${extra}, got ${describeValue(v)}`, {
-      code: typeof v === 'number' ? 'out-of-range' : 'invalid-type',
-      received: v,
-      path,
-    });
-  }
-  return v;
-}
+/** The four ways to give the smoothing constant; exactly one is given. */
+const RATES = ['alpha', 'equivalentWindowRows', 'halfLife', 'halfLifeMs'] as const;
+const FORMS: readonly SmoothingForm[] = ['recursive', 'normalized'];
 
 /**
  * Exponentially weighted mean of one column. Missing values (NaN) are skipped: they neither update the mean
@@ -57,52 +62,38 @@ function positive(v: unknown, path: string, extra: string, ok: (x: number) => bo
  * ```ts
  * const s = seriesFromPairs([[0, 71], [1, 70], [2, 69]]);
  * smoothSeries(s, { alpha: 0.1 }).columns.smoothed; // [71, 70.9, 70.71]
- * smoothSeries(s, { span: 19 });                    // alpha = 0.1
+ * smoothSeries(s, { equivalentWindowRows: 19 });    // alpha = 0.1
  * smoothSeries(s, { halfLifeMs: 7 * 86_400_000 });  // weights halve every 7 days
  * ```
  */
 export function smoothSeries(series: Series, options: SmoothOptions): Series {
   requireSeries(series, 'series');
-  if (options === null || typeof options !== 'object') {
-    throw new KalendsTypeError(`options: expected { alpha | span | halfLife | halfLifeMs }, got ${describeValue(options)}`, {
-      code: 'invalid-type',
-      received: options,
-    });
-  }
-  const given = (['alpha', 'span', 'halfLife', 'halfLifeMs'] as const).filter((k) => options[k] !== undefined);
+  const o = readOptions('options', options, [...RATES, 'form', 'column', 'as', 'minObservations']);
+  const given = RATES.filter((k) => optionOf(o, k) !== undefined);
   if (given.length !== 1) {
-    throw new KalendsRangeError(
-      `options: expected exactly one of alpha, span, halfLife, halfLifeMs, got ${given.length === 0 ? 'none' : given.join(' and ')}`,
-      { code: 'out-of-range', received: options },
+    throw new KalendsTypeError(
+      `options: expected exactly one of ${RATES.join(', ')}, got ${given.length === 0 ? 'none' : given.join(' and ')}; ${given.length === 0 ? 'give one, such as { alpha: 0.1 }' : 'keep one of them'}`,
+      { code: 'invalid-type', received: options },
     );
   }
   let alpha = Number.NaN;
   let halfLifeMs = Number.NaN;
-  if (options.alpha !== undefined) alpha = positive(options.alpha, 'options.alpha', 'a number with 0 < alpha <= 1', (x) => x > 0 && x <= 1);
-  else if (options.span !== undefined) alpha = 2 / (positive(options.span, 'options.span', 'a number >= 1', (x) => x >= 1) + 1);
-  else if (options.halfLife !== undefined) alpha = 1 - 2 ** (-1 / positive(options.halfLife, 'options.halfLife', 'a positive number of rows', (x) => x > 0));
-  else halfLifeMs = positive(options.halfLifeMs, 'options.halfLifeMs', 'a positive number of milliseconds', (x) => x > 0);
-  const form = options.form ?? 'recursive';
-  if (form !== 'recursive' && form !== 'adjusted') {
-    throw new KalendsRangeError(`options.form: expected "recursive" or "adjusted", got ${describeValue(form)}`, {
-      code: 'out-of-range',
-      received: form,
-    });
-  }
-  const minObs = options.minObservations ?? 1;
-  if (typeof minObs !== 'number' || !Number.isInteger(minObs) || minObs < 0) {
-    throw new KalendsRangeError(`options.minObservations: expected a non-negative integer, got ${describeValue(minObs)}`, {
-      code: 'out-of-range',
-      received: minObs,
-    });
-  }
-  const v = columnOfSeries(series, options.column);
+  const rate = given[0]!;
+  const value = optionOf(o, rate);
+  if (rate === 'alpha') alpha = requireReal('options.alpha', value, 'a number with 0 < alpha <= 1', (x) => x > 0 && x <= 1);
+  else if (rate === 'equivalentWindowRows') alpha = 2 / (requireReal('options.equivalentWindowRows', value, 'a number of rows of at least 1', (x) => x >= 1 && x < Infinity) + 1);
+  else if (rate === 'halfLife') alpha = 1 - 2 ** (-1 / requireReal('options.halfLife', value, 'a positive number of rows', (x) => x > 0 && x < Infinity));
+  else halfLifeMs = requireReal('options.halfLifeMs', value, 'a positive number of milliseconds', (x) => x > 0 && x < Infinity);
+  const form = requireEnum('options.form', optionOf(o, 'form'), FORMS, 'recursive');
+  const minObs = requireAmount('options.minObservations', optionOf(o, 'minObservations'), 0, 1);
+  const as = optionalColumnName('options.as', optionOf(o, 'as')) ?? 'smoothed';
+  const v = columnNamed(series, optionalColumnName('options.column', optionOf(o, 'column')), 'options.column');
   const t = series.epochMs;
   const n = v.length;
   const out = new Float64Array(n);
   const timed = alpha !== alpha;
-  let num = 0; // recursive: the mean; adjusted: Σ w y
-  let den = 0; // adjusted: Σ w
+  let num = 0; // recursive: the mean; normalized: Σ w y
+  let den = 0; // normalized: Σ w
   let seen = 0;
   let lastT = 0;
   for (let i = 0; i < n; i++) {
@@ -126,5 +117,5 @@ export function smoothSeries(series: Series, options: SmoothOptions): Series {
     }
     out[i] = seen >= minObs && seen > 0 ? (form === 'recursive' ? num : num / den) : Number.NaN;
   }
-  return makeSeries(t, [options.as ?? 'smoothed'], [out]);
+  return makeSeries(t, [as], [out]);
 }

@@ -183,7 +183,7 @@ describe('bucketSeries: zones, ranges and empty periods', () => {
     expect(b({ aggregations: ['avg'] })).toThrow(/options.aggregations\[0\]: unknown aggregation "avg"; valid names are count, rows, sum, mean/);
     expect(b({ aggregations: ['summ'] })).toThrow(/did you mean "sum"/);
     expect(b({ aggregations: [{ kind: 'quantile', q: 1.5 }] })).toThrow(/options.aggregations\[0\].q: expected a probability from 0 to 1, got 1.5/);
-    expect(b({ empty: 'skip' })).toThrow(/options.empty: expected "zero", "nan" or "previous", got "skip"/);
+    expect(b({ empty: 'skip' })).toThrow(/options.empty: expected one of "nan", "zero", "previous", got "skip"/);
     expect(b({ range: { start: '2025-05', end: '2025-01' } })).toThrow(KalendsRangeError);
     expect(b({ aggregations: ['sum', 'sum'] })).toThrow(/produced twice/);
     expect(b({ unit: 'fortnight' })).toThrow(/unit/);

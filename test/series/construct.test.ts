@@ -8,7 +8,7 @@ import {
   seriesFromPairs,
   seriesFromRecords,
   sliceSeries,
-  withColumn,
+  seriesFromSeries,
 } from '../../src/index.js';
 
 describe('series constructors', () => {
@@ -68,7 +68,7 @@ describe('series constructors', () => {
       expect((e as KalendsRangeError).code).toBe('length-mismatch');
       expect((e as Error).message).toContain('columns.b: expected 3 values');
     }
-    expect(() => withColumn(seriesFromPairs([[0, 1]]), 'x', [1, 2])).toThrow(/expected 1 values/);
+    expect(() => seriesFromSeries(seriesFromPairs([[0, 1]]), { x: [1, 2] })).toThrow(/columns.x: expected 1 values/);
   });
 
   it('reads records with a column map, null as missing, and instants through the instant layer (RFC 3339 strings)', () => {

@@ -92,7 +92,7 @@ describe('filling onto a grid against brute force (fast-check, seeded)', () => {
 
   it('rejects a bad method, an unsorted grid and a negative gap', () => {
     const s = seriesFromColumns([0], { v: [1] });
-    expect(() => fillSeries(s, { grid: { epochMs: [0] }, method: 'nearest' as never })).toThrow(/options.method: expected "previous", "next" or "linear", got "nearest"/);
+    expect(() => fillSeries(s, { grid: { epochMs: [0] }, method: 'nearest' as never })).toThrow(/options.method: expected one of "previous", "next", "linear", got "nearest"/);
     expect(() => fillSeries(s, { grid: { epochMs: [5, 1] } })).toThrow(/ascending/);
     expect(() => fillSeries(s, { grid: { epochMs: [0] }, maxGapMs: -1 })).toThrow(/maxGapMs/);
   });

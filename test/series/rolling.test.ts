@@ -8,7 +8,8 @@ type Row = [number, number];
 /** Brute force: the rows of row i's window, by the stated edge rules, scanning every row. */
 function windowRows(rows: Row[], i: number, spec: { rows: number } | { lengthMs: number }, startInc: boolean, endInc: boolean): number[] {
   const t = rows[i]![0];
-  if ('rows' in spec) return rows.slice(Math.max(0, i - spec.rows + 1), i + 1).map((r) => r[1]);
+  // A window of n rows: the n rows through this one, or (end open) the n rows before it; no start instant.
+  if ('rows' in spec) return (endInc ? rows.slice(Math.max(0, i - spec.rows + 1), i + 1) : rows.slice(Math.max(0, i - spec.rows), i)).map((r) => r[1]);
   const s = t - spec.lengthMs;
   return rows.filter(([u]) => (startInc ? u >= s : u > s) && (endInc ? u <= t : u < t)).map((r) => r[1]);
 }
@@ -27,7 +28,7 @@ describe('rolling windows against brute force (fast-check, seeded)', () => {
           window: spec,
           aggregations: ['count', 'sum', 'mean', 'min', 'max', 'variance', { kind: 'stddev', estimator: 'population' }],
           minObservations: minObs,
-          startInclusive: startInc,
+          ...('rows' in spec ? {} : { startInclusive: startInc }),
           endInclusive: endInc,
         });
         rows.forEach((_, i) => {
@@ -208,12 +209,12 @@ describe('rolling windows against brute force (fast-check, seeded)', () => {
 
   it('rejects zero and negative windows and unknown aggregations, naming the value', () => {
     const s = seriesFromColumns([0, 1], { v: [1, 2] });
-    expect(() => rollSeries(s, { window: { rows: 0 }, aggregations: ['sum'] })).toThrow(/options.window.rows: expected a positive integer.*got 0/);
+    expect(() => rollSeries(s, { window: { rows: 0 }, aggregations: ['sum'] })).toThrow(/options.window.rows: expected an integer from 1 to .*got 0/);
     expect(() => rollSeries(s, { window: { lengthMs: -5 }, aggregations: ['sum'] })).toThrow(/lengthMs.*got -5/);
     expect(() => rollSeries(s, { window: { lengthMs: 0 }, aggregations: ['sum'] })).toThrow(KalendsRangeError);
-    expect(() => rollSeries(s, { window: { rows: 2 }, aggregations: ['median' as never] })).toThrow(/unknown aggregation "median"; valid names are count, sum, mean, min, max, variance, stddev/);
-    expect(() => rollSeries(s, { window: { rows: 2 }, aggregations: ['maen' as never] })).toThrow(/did you mean "mean"/);
-    expect(() => rollSeries(s, { window: { weeks: 2 } as never, aggregations: ['sum'] })).toThrow(/options.window: expected one of/);
+    expect(() => rollSeries(s, { window: { rows: 2 }, aggregations: ['median' as never] })).toThrow(/aggregation "median" is not offered here; valid names are count, sum, mean, min, max, variance, stddev/);
+    expect(() => rollSeries(s, { window: { rows: 2 }, aggregations: ['maen' as never] })).toThrow(/did you mean (".*" or )?"mean"/);
+    expect(() => rollSeries(s, { window: { weeks: 2 } as never, aggregations: ['sum'] })).toThrow(/^options.window.weeks: unknown option; valid options are "rows", "lengthMs"/);
   });
 });
 
@@ -227,7 +228,8 @@ describe('rollBulk (bare typed arrays, one aggregation)', () => {
         const t = Float64Array.from(rows, (r) => r[0]);
         const v = Float64Array.from(rows, (r) => r[1]);
         const given = giveOut ? new Float64Array(rows.length + 1).fill(-7) : undefined;
-        const out = rollBulk(t, v, { window: spec, aggregation: name, minObservations: minObs, startInclusive: startInc, endInclusive: endInc }, given);
+        const edges = { ...('rows' in spec ? {} : { startInclusive: startInc }), endInclusive: endInc };
+        const out = rollBulk(t, v, { window: spec, aggregation: name, minObservations: minObs, ...edges }, given);
         if (given) {
           expect(out).toBe(given);
           expect(given[rows.length]).toBe(-7);
@@ -251,15 +253,21 @@ describe('rollBulk (bare typed arrays, one aggregation)', () => {
     const t = Float64Array.from([0, 10, 20]);
     const v = Float64Array.from([1, 2, 3]);
     const opts = { window: { lengthMs: 15 }, aggregation: 'mean' } as const;
-    expect(() => rollBulk([0, 10, 20] as never, v, opts)).toThrow(KalendsTypeError);
-    expect(() => rollBulk([0, 10, 20] as never, v, opts)).toThrow(/expected two Float64Arrays, got/);
+    // Plain arrays and other typed arrays are read once, each element checked (docs/design.md, "Input rules").
+    expect(Array.from(rollBulk([0, 10, 20], Int32Array.from([1, 2, 3]), opts))).toEqual(Array.from(rollBulk(t, v, opts)));
+    expect(() => rollBulk([0, '10', 20] as never, v, opts)).toThrow(KalendsTypeError);
+    expect(() => rollBulk([0, '10', 20] as never, v, opts)).toThrow(/^epochMs\[1\]: expected a number, got "10"/);
+    expect(() => rollBulk(t, [1, null, 3] as never, opts)).toThrow(/^values\[1\]: expected a number, got null/);
+    expect(() => rollBulk(t, [1, , 3] as never, opts)).toThrow(/^values\[1\]: expected a number, got a hole/);
+    expect(() => rollBulk(t, v, opts, [0, 0, 0] as never)).toThrow(/^out: expected a Float64Array or undefined, got an array/);
+    expect(() => rollBulk(Float64Array.from([0, 1, 9e15]), v, opts)).toThrow(/^epochMs\[2\]: expected epoch milliseconds from/);
     expect(() => rollBulk(t, Float64Array.from([1, 2]), opts)).toThrow(/values: expected 3 values \(one per instant\), got 2/);
     expect(() => rollBulk(t, v, opts, new Float64Array(2))).toThrow(/out: expected a Float64Array of at least 3 elements/);
     expect(() => rollBulk(Float64Array.from([0, 20, 10]), v, opts)).toThrow(/epochMs: expected ascending instants, but \[2\] \(10\) comes before \[1\] \(20\)/);
     expect(() => rollBulk(Float64Array.from([0, NaN, 10]), v, opts)).toThrow(/epochMs\[1\]: expected an instant, got NaN/);
     expect(() => rollBulk(t, v, { window: { lengthMs: 0 }, aggregation: 'mean' })).toThrow(KalendsRangeError);
     expect(() => rollBulk(t, v, { window: { rows: -1 }, aggregation: 'sum' })).toThrow(/got -1/);
-    expect(() => rollBulk(t, v, { window: { rows: 2 }, aggregation: 'median' as never })).toThrow(/unknown aggregation "median"/);
+    expect(() => rollBulk(t, v, { window: { rows: 2 }, aggregation: 'median' as never })).toThrow(/aggregation "median" is not offered here/);
     let caught: unknown;
     try {
       rollBulk(Float64Array.from([0, 20, 10]), v, opts);

@@ -38,8 +38,8 @@ describe('exponentially weighted mean (NIST/SEMATECH e-Handbook 6.4.3.1 and 6.4.
       NIST_DATA.forEach((_, i) => expect(out[i]).toBeCloseTo(S[i + 2]!, 12));
     }
   });
-  it('span and half-life give α = 2/(span+1) and 1 - 2^(-1/h)', () => {
-    const bySpan = smoothSeries(s, { span: 19 }).columns.smoothed!;
+  it('equivalent window rows and half-life give α = 2/(n+1) and 1 - 2^(-1/h)', () => {
+    const bySpan = smoothSeries(s, { equivalentWindowRows: 19 }).columns.smoothed!;
     const byAlpha = smoothSeries(s, { alpha: 0.1 }).columns.smoothed!;
     bySpan.forEach((v, i) => expect(v).toBeCloseTo(byAlpha[i]!, 12));
     const h = smoothSeries(s, { halfLife: 1 }).columns.smoothed!; // α = 1/2
@@ -52,11 +52,11 @@ describe('exponentially weighted mean (NIST/SEMATECH e-Handbook 6.4.3.1 and 6.4.
     timed.forEach((v, i) => expect(v).toBeCloseTo(rows[i]!, 12));
   });
 
-  it('property: the adjusted form equals Σ wⱼ yⱼ / Σ wⱼ with wⱼ = 2^(-(tᵢ - tⱼ)/h) over the values so far', () => {
+  it('property: the normalized form equals Σ wⱼ yⱼ / Σ wⱼ with wⱼ = 2^(-(tᵢ - tⱼ)/h) over the values so far', () => {
     fc.assert(
       fc.property(rowsArb(60, 5000), fc.integer({ min: 1, max: 4000 }), (rows, h) => {
         const series = seriesFromColumns(rows.map((r) => r[0]), { v: rows.map((r) => r[1]) });
-        const out = smoothSeries(series, { halfLifeMs: h, form: 'adjusted' }).columns.smoothed!;
+        const out = smoothSeries(series, { halfLifeMs: h, form: 'normalized' }).columns.smoothed!;
         rows.forEach(([ti], i) => {
           let num = 0;
           let den = 0;
@@ -86,9 +86,9 @@ describe('exponentially weighted mean (NIST/SEMATECH e-Handbook 6.4.3.1 and 6.4.
   it('rejects bad parameters, naming them', () => {
     expect(() => smoothSeries(s, { alpha: 0 })).toThrow(/options.alpha: expected a number with 0 < alpha <= 1, got 0/);
     expect(() => smoothSeries(s, { alpha: 1.5 })).toThrow(KalendsRangeError);
-    expect(() => smoothSeries(s, { span: 0.5 })).toThrow(/options.span/);
+    expect(() => smoothSeries(s, { equivalentWindowRows: 0.5 })).toThrow(/options.equivalentWindowRows/);
     expect(() => smoothSeries(s, { halfLifeMs: -1 })).toThrow(/options.halfLifeMs/);
-    expect(() => smoothSeries(s, { alpha: 0.1, span: 3 })).toThrow(/exactly one of .* got alpha and span/);
+    expect(() => smoothSeries(s, { alpha: 0.1, equivalentWindowRows: 3 })).toThrow(/exactly one of .* got alpha and equivalentWindowRows/);
     expect(() => smoothSeries(s, {})).toThrow(/got none/);
   });
 });

@@ -13,6 +13,7 @@ import {
   type UnitDefinition,
   AGGREGATION_NAMES,
   MAX_BUCKET_PERIODS,
+  MAX_SERIES_ROWS,
   defineBucketAccumulator,
   epochMsFromWallMs,
   formatInstant,
@@ -295,7 +296,7 @@ async function runBucket(args: ParsedArgs, io: CliIo): Promise<number> {
   }
   progress(acc.rows, true);
   if (progressShown) io.stderr('\n');
-  const table = acc.finish(range ? { range, empty } : { empty });
+  const table = acc.finish(range ? { range, empty, ...(maxRows !== undefined && maxRows > MAX_SERIES_ROWS ? { maxRows } : {}) } : { empty });
   await writeTable(table, names, json, new Output(io));
   if (table.outsideRange > 0) io.stderr(`kalends bucket: ${table.outsideRange} rows fell outside --range and were left out\n`);
   if (skipped > 0) io.stderr(`kalends bucket: skipped ${skipped} malformed row${skipped === 1 ? '' : 's'} (first: ${firstSkipped})\n`);
