@@ -168,16 +168,16 @@ function sessionAt(T: Table, i: number): Session {
   return Object.freeze({ startEpochMs: s, endEpochMs: e, lengthMs: e - s, dayNumber: T.days[i]! });
 }
 
-function noSession(e: HoursEngine, name: string, t: number, forward: boolean): Error {
+function noSession(e: HoursEngine, name: string, t: number, forward: boolean, what: string): Error {
   const edge = forward ? e.endEpochMs : e.startEpochMs;
   if (forward ? edge - t <= SEARCH_MS : t - edge <= SEARCH_MS) {
     return new KalendsRangeError(
-      `${name}: no session ${forward ? 'after' : 'before'} ${showInstant(t)} within ${describeYears(e)}; set "years" in the definition to search further`,
+      `${name}: no ${what} ${forward ? 'after' : 'before'} ${showInstant(t)} within ${describeYears(e)}; set "years" in the definition to search further`,
       { code: 'out-of-range', received: t },
     );
   }
   return new NoSessionError(
-    `${name}: no session within ${HOURS_SEARCH_LIMIT_DAYS} days ${forward ? 'after' : 'before'} ${showInstant(t)} (the search limit, HOURS_SEARCH_LIMIT_DAYS); check that the definition opens at all in these years`,
+    `${name}: no ${what} within ${HOURS_SEARCH_LIMIT_DAYS} days ${forward ? 'after' : 'before'} ${showInstant(t)} (the search limit, HOURS_SEARCH_LIMIT_DAYS); check that the definition opens (and closes) at all in these years`,
     t,
     HOURS_SEARCH_LIMIT_DAYS,
   );
@@ -199,7 +199,7 @@ export function searchForward(e: HoursEngine, t: number, ends: boolean, inclusiv
     if (T.validTo === Infinity) break;
     T = tableAcross(e, t, Math.min(t + SEARCH_MS, e.endEpochMs - 1), name);
   }
-  throw noSession(e, name, t, true);
+  throw noSession(e, name, t, true, ends ? 'closing' : 'opening');
 }
 
 /** @internal The last start or end strictly before `t` (or at `t` when inclusive), within the search limit. */
@@ -215,7 +215,7 @@ export function searchBackward(e: HoursEngine, t: number, ends: boolean, inclusi
     if (T.validFrom === -Infinity) break;
     T = tableAcross(e, Math.max(t - SEARCH_MS, e.startEpochMs), t, name);
   }
-  throw noSession(e, name, t, false);
+  throw noSession(e, name, t, false, ends ? 'closing' : 'opening');
 }
 
 /**
@@ -232,9 +232,14 @@ export function shiftOnEngine(e: HoursEngine, t: number, ms: number, name: strin
       { code: 'out-of-range', received: ms },
     );
   }
-  // A shift into a stretch with no session at all fails like the searches.
-  if (forward) searchForward(e, t, true, false, name);
-  else searchBackward(e, t, false, false, name);
+  // A shift into a stretch with no session at all fails like the searches: forward from a closed instant, the
+  // next opening must come within the search limit; backward to one, the previous closing.
+  const T0 = tableAround(e, t, name);
+  if (forward && sessionIndexAt(T0, t) < 0) searchForward(e, t, false, false, name);
+  if (!forward) {
+    const i = countBelow(T0.starts, t) - 1;
+    if (!(i >= 0 && T0.ends[i]! >= t)) searchBackward(e, t, true, true, name);
+  }
   const y = localYear(e.norm.zone, t);
   let lo = y - 1;
   let hi = y + 1;
@@ -293,7 +298,7 @@ export function valueDayOnEngine(e: HoursEngine, t: number, c: number, name: str
     if (next !== NO_DAY || T.validTo === Infinity) break;
     T = tableAcross(e, t, Math.min(t + SEARCH_MS, e.endEpochMs - 1), name);
   }
-  throw noSession(e, name, t, true);
+  throw noSession(e, name, t, true, 'business day');
 }
 
 // ---- public functions ----------------------------------------------------------------------------------------
