@@ -13,6 +13,7 @@ import { commands as periodCommands } from './commands/period.js';
 import { commands as businessCommands } from './commands/business.js';
 import { commands as recurrenceCommands } from './commands/recurrence.js';
 import { commands as seriesCommands } from './commands/series.js';
+import { commands as hoursCommands } from './commands/hours.js';
 
 /** Every command, in the order help lists them. */
 export const allCommands: readonly Command[] = [
@@ -22,6 +23,7 @@ export const allCommands: readonly Command[] = [
   ...businessCommands,
   ...recurrenceCommands,
   ...seriesCommands,
+  ...hoursCommands,
 ];
 
 function overview(): string {
