@@ -51,7 +51,8 @@ interface Internal extends BusinessHours {
  *
  * @example
  * ```ts
- * try { nextOpeningEpochMs(seasonal, Date.UTC(2025, 0, 1)); } catch (e) { if (e instanceof NoSessionError) e.searchedDays; }
+ * const rare = defineHours({ zone: 'UTC', week: {}, special: [{ date: '2045-06-05', hours: [{ open: '09:00', close: '10:00' }] }] });
+ * try { nextOpeningEpochMs(rare, Date.UTC(2025, 0, 1)); } catch (e) { if (e instanceof NoSessionError) e.searchedDays; } // 3660
  * ```
  */
 export class NoSessionError extends KalendsRangeError {

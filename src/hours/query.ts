@@ -327,7 +327,7 @@ export function isOpen(hours: BusinessHours, epochMs: number): boolean {
  * @example
  * ```ts
  * const hours = defineHours({ zone: 'UTC', week: { friday: [{ open: '22:00', close: '06:00' }] } });
- * sessionOfEpochMs(hours, Date.UTC(2025, 0, 4, 2))?.dayNumber; // 20090, Friday 2025-01-03: the night belongs to the day it opens
+ * sessionOfEpochMs(hours, Date.UTC(2025, 0, 4, 2))?.dayNumber; // 20091, Friday 2025-01-03: the night belongs to the day it opens
  * ```
  */
 export function sessionOfEpochMs(hours: BusinessHours, epochMs: number): Session | null {
