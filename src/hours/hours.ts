@@ -74,10 +74,11 @@ function deepFreeze<T>(value: T): T {
 }
 
 /** The definition as JSON data: a compiled calendar is kept as its definition. */
-function plainCopy(def: Record<string, unknown>): HoursDefinition {
+function plainCopy(def: Record<string, unknown>, zoneId: string): HoursDefinition {
   const cal = def['calendar'];
   const copy = { ...def };
   if (isRecord(cal) && 'definition' in cal && Object.isFrozen(cal)) copy['calendar'] = cal['definition'];
+  if (typeof copy['zone'] !== 'string') copy['zone'] = zoneId;
   return deepFreeze(JSON.parse(JSON.stringify(copy)) as HoursDefinition);
 }
 
@@ -105,7 +106,7 @@ export function defineHours(definition: HoursDefinition): BusinessHours {
   const norm = normalizeHours(definition, issues);
   issues.throwIfAny(definition);
   const def = definition as unknown as Record<string, unknown>;
-  const frozen = plainCopy(def);
+  const frozen = plainCopy(def, norm!.zone.id);
   const engine = new HoursEngine(norm!);
   const hours: Internal = {
     id: typeof def['id'] === 'string' ? def['id'] : 'custom',

@@ -11,11 +11,13 @@ import {
   NoSessionError,
   countBusinessMs,
   countBusinessMsBulk,
+  defineCalendar,
   defineHours,
   isOpen,
   nextClosingEpochMs,
   nextOpeningEpochMs,
   shiftBusinessTime,
+  zoneFromId,
 } from '../../src/index.js';
 import { engineOfHours } from '../../src/hours/hours.js';
 import { HoursModel } from './reference.js';
@@ -106,5 +108,20 @@ describe('the compiled table', () => {
     expect(engine.current!.firstYear).toBeLessThanOrEqual(1719);
     // Monday 1720-06-03 09:00-17:00 in Dublin's local mean time (-00:25:21): the answers stay right after rebuilding.
     expect(countBusinessMs(hours, Date.UTC(1720, 5, 3), Date.UTC(1720, 5, 4))).toBe(8 * 3_600_000);
+  });
+});
+
+describe('definitions are data', () => {
+  it('compiled hours keep a frozen JSON definition (a compiled calendar kept as its definition) that defines the same hours', () => {
+    const calendar = defineCalendar({ id: 'shop', weekend: ['sunday'], holidays: [{ name: 'Christmas Day', kind: 'fixed', month: 12, day: 25 }] });
+    const hours = defineHours({ zone: zoneFromId('Europe/Dublin') as never, calendar, week: { saturday: [{ open: '10:00', close: '16:00' }] } });
+    expect(Object.isFrozen(hours.definition)).toBe(true);
+    const again = defineHours(JSON.parse(JSON.stringify(hours.definition)));
+    expect(again.definition).toEqual(hours.definition);
+    expect(again.definition.zone).toBe('Europe/Dublin');
+    const a = Date.UTC(2025, 11, 1);
+    const b = Date.UTC(2026, 0, 1);
+    expect(countBusinessMs(again, a, b)).toBe(countBusinessMs(hours, a, b));
+    expect(countBusinessMs(hours, a, b)).toBe(4 * 6 * 3_600_000); // four Saturdays of December 2025, none of them the 25th
   });
 });
