@@ -18,8 +18,9 @@ import { benchmarks as business } from './business.js';
 import { benchmarks as daycount } from './daycount.js';
 import { benchmarks as recurrence } from './recurrence.js';
 import { benchmarks as series } from './series.js';
+import { benchmarks as hours } from './hours.js';
 
-const all: readonly (() => Benchmark)[] = [...civil, ...instant, ...zone, ...period, ...business, ...daycount, ...recurrence, ...series];
+const all: readonly (() => Benchmark)[] = [...civil, ...instant, ...zone, ...period, ...business, ...daycount, ...recurrence, ...series, ...hours];
 const args = process.argv.slice(2);
 const at = args.indexOf('--only-index');
 const only = at >= 0 ? Number(args[at + 1]) : undefined;

@@ -117,3 +117,30 @@ export const MAX_BUCKET_PERIODS = 50_000_000;
  * about 2,738 years; past it, page with a narrower range or a coarser unit.
  */
 export const MAX_SERIES_ROWS = 1_000_000;
+
+/** Default first year of opening hours defined without a business calendar (see docs/business-time.md). */
+export const HOURS_DEFAULT_FIRST_YEAR = 1900;
+/** Default last year of opening hours defined without a business calendar. */
+export const HOURS_DEFAULT_LAST_YEAR = 2199;
+/** Most opening intervals on one day of a definition of hours (week pattern or special day). */
+export const MAX_HOURS_INTERVALS_PER_DAY = 16;
+/** Most special days in one definition of hours. */
+export const MAX_HOURS_SPECIAL_DAYS = 10_000;
+/** Most named cut-off times in one definition of hours. */
+export const MAX_HOURS_CUTOFFS = 32;
+/** Largest `offset`, in business days, of a special day from the holiday it is relative to. */
+export const MAX_HOURS_HOLIDAY_OFFSET = 10;
+/**
+ * Days a search for the next or previous session (an opening, a closing, the next business day, the end of a
+ * business duration) walks without finding one before it throws a `no-business-day` error: about ten years.
+ */
+export const HOURS_SEARCH_LIMIT_DAYS = 3_660;
+/**
+ * Most years of sessions one compiled table of hours holds: one call may span at most this many years (a pair of
+ * instants, or the instants of one bulk call); the table is rebuilt around each call's years as needed.
+ */
+export const HOURS_TABLE_MAX_YEARS = 400;
+/** Default cap on the sessions `listSessions` returns before it throws `limit-exceeded`. */
+export const HOURS_LIST_LIMIT = 10_000;
+/** Largest `limit` `listSessions` accepts. */
+export const MAX_HOURS_LIST_LIMIT = 1_000_000;

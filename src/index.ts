@@ -21,4 +21,5 @@ export * from './period/index.js';
 export * from './business/index.js';
 export * from './daycount/index.js';
 export * from './recurrence/index.js';
+export * from './hours/index.js';
 export * from './series/index.js';

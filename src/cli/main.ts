@@ -29,6 +29,7 @@ import { commands as periodCommands } from './commands/period.js';
 import { commands as businessCommands } from './commands/business.js';
 import { commands as recurrenceCommands } from './commands/recurrence.js';
 import { commands as seriesCommands } from './commands/series.js';
+import { commands as hoursCommands } from './commands/hours.js';
 
 /** Every command, in the order help lists them. */
 export const allCommands: readonly Command[] = [
@@ -38,6 +39,7 @@ export const allCommands: readonly Command[] = [
   ...businessCommands,
   ...recurrenceCommands,
   ...seriesCommands,
+  ...hoursCommands,
 ];
 
 /** The overview `kalends help` prints: commands, the forms every command shares, and the exit codes. */
