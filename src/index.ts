@@ -22,3 +22,4 @@ export * from './business/index.js';
 export * from './daycount/index.js';
 export * from './recurrence/index.js';
 export * from './series/index.js';
+export * from './profile/index.js';
