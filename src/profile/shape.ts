@@ -107,6 +107,13 @@ export function schemaOfShape(shape: Shape): JsonSchema {
   }
 }
 
+function codePointCount(text: string, max: number): number {
+  if (text.length <= max) return text.length; // never more code points than UTF-16 units
+  let n = 0;
+  for (const _ of text) if (++n > max) break;
+  return n;
+}
+
 function listOf(values: readonly string[]): string {
   return values.map((v) => JSON.stringify(v)).join(', ');
 }
@@ -120,7 +127,8 @@ export function checkShape(value: unknown, shape: Shape, path: string, issues: I
   switch (shape.type) {
     case 'string': {
       const max = shape.maxLength ?? 1000;
-      if (typeof value !== 'string' || value.length === 0 || value.length > max) {
+      // Lengths count code points, as JSON Schema's minLength and maxLength do.
+      if (typeof value !== 'string' || value.length === 0 || codePointCount(value, max) > max) {
         issues.add(at, `expected a non-empty string of at most ${max} characters, got ${describeValue(value)}`);
         return false;
       }
