@@ -4,7 +4,7 @@
  *
  * @module
  */
-export { type WeekdayName, WEEKDAY_NAMES, dayNumberFromYmd, ymdFromDayNumber, weekdayOfDayNumber } from '../civil/index.js';
+export { type WeekdayName, WEEKDAY_NAMES, dayNumberFromYmd, isoWeekDateFromDayNumber, ymdFromDayNumber, weekdayOfDayNumber } from '../civil/index.js';
 export { parsePlainDate, formatPlainDate } from '../instant/index.js';
 export { type Zone, UnknownZoneError, toZone } from '../zone/index.js';
 export {

@@ -12,3 +12,4 @@ export {
   LABEL_FIELD_NAMES,
 } from './document.js';
 export { type Profile, type ProfileWarehouseRange, defineProfile, unitOfProfile, calendarOfProfile, ruleOfProfile } from './profile.js';
+export { type PeriodPlace, formatLabelForPeople, formatDayForPeople } from './labels.js';

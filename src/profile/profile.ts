@@ -350,11 +350,11 @@ function compileWarehouse(ctx: Context, zone: Zone | undefined): ProfileWarehous
     ctx.issues.add('warehouse.calendar', unknownName('calendar', calendar, Object.keys(isRecord(ctx.doc['calendars']) ? ctx.doc['calendars'] : {})));
   }
   const cal = calName !== undefined ? ctx.calendars[calName] : undefined;
-  if (cal && s !== undefined && e !== undefined && e > s) {
+  if (cal) {
     const firstYear = cal.firstYear;
     const lastYear = cal.lastYear;
-    if (ymdFromDayNumber(s).year < firstYear) ctx.issues.add('warehouse.start', `${start} is before the years ${firstYear}..${lastYear} that calendar ${JSON.stringify(calName)} supports; start in ${firstYear} or later`);
-    if (e > dayNumberFromYmd(lastYear, 12, 31) + 1) {
+    if (s !== undefined && ymdFromDayNumber(s).year < firstYear) ctx.issues.add('warehouse.start', `${start} is before the years ${firstYear}..${lastYear} that calendar ${JSON.stringify(calName)} supports; start in ${firstYear} or later`);
+    if (e !== undefined && e > dayNumberFromYmd(lastYear, 12, 31) + 1) {
       ctx.issues.add('warehouse.end', `${end} is beyond the years ${firstYear}..${lastYear} that calendar ${JSON.stringify(calName)} supports; end on ${lastYear + 1}-01-01 at the latest`);
     }
   }
