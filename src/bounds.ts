@@ -24,3 +24,5 @@ export const MAX_EPOCH_MS = 8.64e15;
 export const MS_PER_DAY = 86_400_000;
 /** Largest absolute UTC offset accepted, in seconds (exclusive of 24 hours, as in RFC 9557 and Temporal). */
 export const MAX_OFFSET_SECONDS = 86_399;
+/** Most local days in one warehouse export (a calendar dimension): about 2,700 years. */
+export const MAX_DIMENSION_DAYS = 1_000_000;
