@@ -202,6 +202,14 @@ export function writeWarehouseExport(profile: Profile, directory: string, option
   const duckFormat = formats.includes('parquet') ? 'parquet' : 'csv';
   if (formats.includes('csv') || formats.includes('parquet')) files.push({ name: 'load.duckdb.sql', content: () => formatLoadSql(tables, { dialect: 'duckdb', format: duckFormat }) });
   if (formats.includes('csv')) files.push({ name: 'load.postgresql.sql', content: () => formatLoadSql(tables, { dialect: 'postgresql', format: 'csv' }) });
-  files.push({ name: 'queries.sql', content: () => formatExampleQueriesSql(dimension) });
+  // The totals query groups by the profile's first fiscal quarter (else its first unit).
+  const units = Object.entries(profile.units);
+  const grouped = units.find(([, u]) => u.kind === 'fiscal-quarter') ?? units[0];
+  const labelColumns = units.map(([name]) => `${name.replace(/-/g, '_')}_label`);
+  const groupBy = grouped ? `${grouped[0].replace(/-/g, '_')}_label` : undefined;
+  files.push({
+    name: 'queries.sql',
+    content: () => formatExampleQueriesSql(dimension, { labelColumns, ...(groupBy !== undefined ? { groupBy } : {}) }),
+  });
   return writeFilesAtomically(directory, files);
 }
