@@ -79,8 +79,8 @@ export function optionFlag(args: ParsedArgs, name: string): boolean {
 /** Rejects options the command does not know, naming them and the ones it does. */
 export function rejectUnknownOptions(args: ParsedArgs, known: readonly string[]): void {
   for (const name of args.options.keys()) {
-    if (!known.includes(name) && name !== 'json' && name !== 'help') {
-      const valid = [...known, 'json', 'help'].map((k) => `--${k}`).join(', ');
+    if (!known.includes(name) && name !== 'json' && name !== 'help' && name !== 'profile') {
+      const valid = [...known, 'json', 'help', 'profile'].map((k) => `--${k}`).join(', ');
       throw new UsageError(`unknown option --${name}; valid options are ${valid}`);
     }
   }

@@ -13,6 +13,8 @@ import { commands as periodCommands } from './commands/period.js';
 import { commands as businessCommands } from './commands/business.js';
 import { commands as recurrenceCommands } from './commands/recurrence.js';
 import { commands as seriesCommands } from './commands/series.js';
+import { commands as warehouseCommands } from './commands/warehouse.js';
+import { applyProfileOption } from './profile.js';
 
 /** Every command, in the order help lists them. */
 export const allCommands: readonly Command[] = [
@@ -22,6 +24,7 @@ export const allCommands: readonly Command[] = [
   ...businessCommands,
   ...recurrenceCommands,
   ...seriesCommands,
+  ...warehouseCommands,
 ];
 
 function overview(): string {
@@ -38,6 +41,7 @@ function overview(): string {
     '',
     'With no value arguments, a command reads one value per line from standard input.',
     '--json writes one JSON object per line (JSON Lines) instead of a table.',
+    '--profile <file> (every command) reads a calendar profile: its zone, units, calendars and rules by name.',
     '',
   ].join('\n');
 }
@@ -61,7 +65,7 @@ export async function runCli(argv: readonly string[], io: CliIo): Promise<number
     return 2;
   }
   try {
-    const args = parseArgs(rest, command.valueOptions ?? []);
+    const args = applyProfileOption(parseArgs(rest, [...(command.valueOptions ?? []), 'profile']), command);
     if (args.options.has('help')) {
       io.stdout(`${command.help.trimEnd()}\n`);
       return 0;

@@ -38,6 +38,7 @@ import {
   optionString,
   rejectUnknownOptions,
 } from '../kit.js';
+import { calendarFromProfileOption } from '../profile.js';
 
 const WEEKDAYS = ['Monday', 'Tuesday', 'Wednesday', 'Thursday', 'Friday', 'Saturday', 'Sunday'] as const;
 
@@ -49,6 +50,8 @@ const CAUTION_NOTE =
 
 /** The calendar named by --calendar: a bundled name, or a JSON definition file. */
 function calendarOption(args: ParsedArgs): BusinessCalendar {
+  const fromProfile = calendarFromProfileOption(args);
+  if (fromProfile) return fromProfile;
   const value = optionString(args, 'calendar');
   if (value === undefined) {
     throw new UsageError(

@@ -20,6 +20,7 @@ import {
   weekdayOfDayNumber,
 } from '../../index.js';
 import { type CliIo, type Command, type ParsedArgs, RowWriter, UsageError, optionFlag, optionString, rejectUnknownOptions } from '../kit.js';
+import { ruleFromProfileOption } from '../profile.js';
 
 const WEEKDAYS = ['Monday', 'Tuesday', 'Wednesday', 'Thursday', 'Friday', 'Saturday', 'Sunday'] as const;
 
@@ -38,6 +39,8 @@ async function readAll(io: CliIo): Promise<string> {
 
 /** The rule named by the first positional argument. */
 async function ruleArgument(args: ParsedArgs, io: CliIo): Promise<Rule> {
+  const fromProfile = ruleFromProfileOption(args);
+  if (fromProfile) return fromProfile;
   const given = args.positionals[0];
   if (given === undefined) throw new UsageError('a rule is required: JSON, RFC 5545 text, or a file holding either (see --help)');
   if (args.positionals.length > 1) throw new UsageError(`expected one rule argument, got ${args.positionals.length}; quote the rule`);
