@@ -47,13 +47,13 @@ export default defineConfig([
   },
   // Demo and benchmarks: built for running here, never shipped (outside dist/).
   {
-    entry: { 'examples/demo': 'examples/demo.ts', 'bench/run': 'bench/run.ts' },
+    entry: { 'examples/demo': 'examples/demo.ts', 'bench/run': 'bench/run.ts', 'bench/warehouse': 'bench/warehouse.ts' },
     format: ['esm'],
     dts: false,
     clean: true,
     target: 'node20',
     platform: 'node',
     outDir: '.build',
-    external: ['vega', 'vega-lite', 'temporal-polyfill', '@js-temporal/polyfill'],
+    external: ['vega', 'vega-lite', 'temporal-polyfill', '@js-temporal/polyfill', '@duckdb/node-api'],
   },
 ]);
