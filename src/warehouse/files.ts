@@ -158,12 +158,14 @@ export interface WarehouseExportOptions {
   readonly zones?: readonly ZoneInput[];
 }
 
+const EXPORT_OPTIONS = ['formats', 'start', 'end', 'calendar', 'zones'];
+
 /**
  * Exports a profile for SQL engines into `directory`: `calendar_day`, `zone_offset_period` and
  * `schedule_occurrence` in each format, `load.duckdb.sql` (from Parquet when written, else CSV),
  * `load.postgresql.sql` (from CSV, with psql's `\copy`) and `queries.sql` (standard SQL for both). The transition
- * table covers the instants from the first local day's start in the earliest zone to the range end's in the
- * latest, with a day's margin each side. All files appear together or not at all (see {@link writeFilesAtomically}).
+ * table covers the instants from two days before the first local day (as a UTC date) to two days after the range's
+ * end, so that every instant of the range's local days, in any zone, falls in one of its rows. All files appear together or not at all (see {@link writeFilesAtomically}).
  *
  * @example
  * ```ts
@@ -172,7 +174,22 @@ export interface WarehouseExportOptions {
  * ```
  */
 export function writeWarehouseExport(profile: Profile, directory: string, options: WarehouseExportOptions = {}): string[] {
+  if (typeof options !== 'object' || options === null || Array.isArray(options)) {
+    throw new KalendsTypeError(`options: expected an options object or undefined, got ${String(options)}`, { code: 'invalid-type', received: options });
+  }
+  for (const key of Object.keys(options)) {
+    if (!EXPORT_OPTIONS.includes(key)) {
+      throw new KalendsTypeError(`options.${key}: unknown option; valid options are ${EXPORT_OPTIONS.map((k) => JSON.stringify(k)).join(', ')}`, {
+        code: 'unknown-name',
+        received: key,
+        path: `options.${key}`,
+      });
+    }
+  }
   const formats = options.formats ?? ['csv', 'parquet'];
+  if (!Array.isArray(formats) || formats.length === 0) {
+    throw new KalendsTypeError(`options.formats: expected a non-empty array of formats (${FORMATS.join(', ')}), got ${String(formats)}`, { code: 'invalid-type', received: formats });
+  }
   for (const f of formats) {
     if (!FORMATS.includes(f)) {
       throw new KalendsRangeError(`options.formats: expected formats among ${FORMATS.join(', ')}, got ${JSON.stringify(f)}`, { code: 'unknown-name', received: f });
@@ -185,7 +202,7 @@ export function writeWarehouseExport(profile: Profile, directory: string, option
   const first = days[0]!;
   const end = days[days.length - 1]! + 1;
   const zones = options.zones ?? profile.warehouse?.zones ?? [profile.zone];
-  // A day's margin: local days start up to 26 hours from UTC midnight in the zones of the tz database.
+  // Two days' margin: local days start up to 26 hours from UTC midnight in the zones of the tz database.
   const startMs = firstEpochMsOfDayNumber('UTC', first) - 86_400_000 * 2;
   const endMs = firstEpochMsOfDayNumber('UTC', end) + 86_400_000 * 2;
   const transitions = transitionTableFromZones(zones, startMs, endMs);
