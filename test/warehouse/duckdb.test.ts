@@ -15,76 +15,27 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { DuckDBInstance, type DuckDBConnection } from '@duckdb/node-api';
 import {
-  DAY_UNIT,
   bucketSeries,
-  calendarOfProfile,
   dayNumberFromYmd,
   defineProfile,
   dimensionTableFromProfile,
   firstEpochMsOfDayNumber,
   formatLoadSql,
-  formatOrdinalBulk,
-  isBusinessDay,
-  listTransitions,
-  ordinalFromEpochMsBulk,
   scheduleTableFromProfile,
   seriesFromColumns,
   transitionTableFromZones,
   unitOfProfile,
 } from '../../src/index.js';
 import { parquetFromTable, writeWarehouseExport } from '../../src/warehouse/files.js';
-import { seededRandom } from '../../bench/harness.js';
+import { DIMENSION_RANGE, type Events, ZONES, libraryAnswers, makeEvents } from './events.js';
 
 const RANDOM_EVENTS = Number(process.env['KALENDS_WAREHOUSE_EVENTS'] ?? 1_000_000);
-const ZONES = ['America/Chicago', 'Europe/Dublin', 'Pacific/Auckland'] as const;
-const FIRST_MS = Date.UTC(1990, 0, 1);
-const END_MS = Date.UTC(2041, 0, 1);
 
 const doc = JSON.parse(readFileSync(new URL('../../examples/otterbrook.profile.json', import.meta.url), 'utf8')) as Record<string, unknown>;
 const profile = defineProfile(doc as never);
 const dir = mkdtempSync(join(tmpdir(), 'kalends-warehouse-'));
 let connection: DuckDBConnection;
 let instance: DuckDBInstance;
-
-interface Events {
-  readonly ids: Int32Array;
-  readonly epochMs: Float64Array;
-  readonly zone: Uint8Array;
-  readonly amount: Float64Array;
-}
-
-/** Random instants in [FIRST_MS, END_MS), then every transition ±1 s and every local midnight ±1 ms of each zone. */
-function makeEvents(): Events {
-  const rnd = seededRandom(20261204);
-  const times: number[] = [];
-  const zones: number[] = [];
-  for (let i = 0; i < RANDOM_EVENTS; i++) {
-    times.push(FIRST_MS + Math.floor(rnd() * (END_MS - FIRST_MS)));
-    zones.push(Math.floor(rnd() * ZONES.length));
-  }
-  ZONES.forEach((zone, z) => {
-    for (const t of listTransitions(zone, FIRST_MS, END_MS)) {
-      for (const dt of [-1000, 0, 1000]) {
-        times.push(t.epochMs + dt);
-        zones.push(z);
-      }
-    }
-    for (let d = dayNumberFromYmd(1990, 1, 2); d < dayNumberFromYmd(2041, 1, 1); d++) {
-      const midnight = firstEpochMsOfDayNumber(zone, d);
-      for (const dt of [-1, 0, 1]) {
-        times.push(midnight + dt);
-        zones.push(z);
-      }
-    }
-  });
-  const n = times.length;
-  return {
-    ids: Int32Array.from({ length: n }, (_, i) => i),
-    epochMs: Float64Array.from(times),
-    zone: Uint8Array.from(zones),
-    amount: Float64Array.from({ length: n }, () => 1 + Math.floor(rnd() * 1000)),
-  };
-}
 
 let events: Events;
 
@@ -102,14 +53,14 @@ async function runScript(sql: string): Promise<void> {
 
 beforeAll(async () => {
   // Local days from the day before the first instant to the day after the last, in every zone.
-  writeWarehouseExport(profile, dir, { formats: ['parquet', 'csv'], start: '1989-12-30', end: '2041-01-03', zones: [...ZONES] });
-  events = makeEvents();
+  writeWarehouseExport(profile, dir, { formats: ['parquet', 'csv'], ...DIMENSION_RANGE, zones: [...ZONES] });
+  events = makeEvents(RANDOM_EVENTS);
   const table = {
     name: 'events',
-    rowCount: events.ids.length,
+    rowCount: events.epochMs.length,
     description: 'test events',
     columns: [
-      { name: 'event_id', type: 'int32' as const, values: events.ids, description: '' },
+      { name: 'event_id', type: 'int32' as const, values: Int32Array.from({ length: events.epochMs.length }, (_, i) => i), description: '' },
       { name: 'epoch_ms', type: 'int64' as const, values: events.epochMs, description: '' },
       { name: 'zone', type: 'string' as const, values: Array.from(events.zone, (z) => ZONES[z]!), description: '' },
       { name: 'amount', type: 'int64' as const, values: events.amount, description: '' },
@@ -133,11 +84,11 @@ afterAll(() => {
 describe('the warehouse export in DuckDB', () => {
   it('loads the Parquet files with every row, and the CSV files load to the same tables', async () => {
     const counts = await rows('SELECT (SELECT COUNT(*) FROM calendar_day), (SELECT COUNT(*) FROM zone_offset_period), (SELECT COUNT(*) FROM schedule_occurrence)');
-    const dimension = dimensionTableFromProfile(profile, { start: '1989-12-30', end: '2041-01-03' });
+    const dimension = dimensionTableFromProfile(profile, DIMENSION_RANGE);
     const startMs = firstEpochMsOfDayNumber('UTC', dayNumberFromYmd(1989, 12, 30)) - 2 * 86_400_000;
     const endMs = firstEpochMsOfDayNumber('UTC', dayNumberFromYmd(2041, 1, 3)) + 2 * 86_400_000;
     const transitions = transitionTableFromZones([...ZONES], startMs, endMs);
-    const schedules = scheduleTableFromProfile(profile, { start: '1989-12-30', end: '2041-01-03' });
+    const schedules = scheduleTableFromProfile(profile, DIMENSION_RANGE);
     expect(counts[0]!.map(Number)).toEqual([dimension.rowCount, transitions.rowCount, schedules.rowCount]);
     await connection.run('CREATE SCHEMA from_csv');
     await connection.run('SET schema = \'from_csv\'');
@@ -152,34 +103,23 @@ describe('the warehouse export in DuckDB', () => {
   });
 
   it('every event gets the library\'s local day, fiscal quarter, retail week and business-day flag: 0 mismatches', async () => {
-    const n = events.ids.length;
+    const n = events.epochMs.length;
     expect(n).toBeGreaterThan(RANDOM_EVENTS + 150_000);
     const reader = await connection.runAndReadAll(
       'SELECT l.event_id, l.day_number, c.fiscal_quarter_label, c.retail_week_label, c.is_business_day FROM event_local_day AS l JOIN event_calendar AS c ON c.event_id = l.event_id ORDER BY l.event_id',
     );
     const [ids, days, quarters, weeks, business] = reader.getColumns() as [number[], number[], string[], string[], boolean[]];
     expect(ids.length).toBe(n);
-    const fq = unitOfProfile(profile, 'fiscal-quarter');
-    const rw = unitOfProfile(profile, 'retail-week');
-    const calendar = calendarOfProfile(profile);
+    const lib = libraryAnswers(profile, events);
     let mismatches = 0;
     const examples: string[] = [];
-    ZONES.forEach((zone, z) => {
-      const idx: number[] = [];
-      for (let i = 0; i < n; i++) if (events.zone[i] === z) idx.push(i);
-      const times = Float64Array.from(idx, (i) => events.epochMs[i]!);
-      const day = ordinalFromEpochMsBulk(DAY_UNIT, zone, times);
-      const q = formatOrdinalBulk(fq, ordinalFromEpochMsBulk(fq, zone, times));
-      const w = formatOrdinalBulk(rw, ordinalFromEpochMsBulk(rw, zone, times));
-      idx.forEach((i, k) => {
-        const id = ids[i]!;
-        const ok = id === i && days[i] === day[k] && quarters[i] === q[k] && weeks[i] === w[k] && business[i] === isBusinessDay(calendar, day[k]!);
-        if (!ok) {
-          mismatches++;
-          if (examples.length < 5) examples.push(`${zone} ${events.epochMs[i]}: engine ${days[i]} ${quarters[i]} ${weeks[i]} ${business[i]}, library ${day[k]} ${q[k]} ${w[k]}`);
-        }
-      });
-    });
+    for (let i = 0; i < n; i++) {
+      const ok = ids[i] === i && days[i] === lib.day[i] && quarters[i] === lib.quarter[i] && weeks[i] === lib.week[i] && business[i] === lib.business[i];
+      if (!ok) {
+        mismatches++;
+        if (examples.length < 5) examples.push(`${ZONES[events.zone[i]!]} ${events.epochMs[i]}: engine ${days[i]} ${quarters[i]} ${weeks[i]} ${business[i]}, library ${lib.day[i]} ${lib.quarter[i]} ${lib.week[i]} ${lib.business[i]}`);
+      }
+    }
     expect(examples).toEqual([]);
     expect(mismatches).toBe(0);
   });
@@ -193,7 +133,7 @@ describe('the warehouse export in DuckDB', () => {
     const fq = unitOfProfile(profile, 'fiscal-quarter');
     ZONES.forEach((zone, z) => {
       const idx: number[] = [];
-      for (let i = 0; i < events.ids.length; i++) if (events.zone[i] === z) idx.push(i);
+      for (let i = 0; i < events.epochMs.length; i++) if (events.zone[i] === z) idx.push(i);
       const series = seriesFromColumns(Float64Array.from(idx, (i) => events.epochMs[i]!), { amount: Float64Array.from(idx, (i) => events.amount[i]!) });
       const table = bucketSeries(series, { unit: fq, zone, aggregations: ['sum'] });
       table.labels.forEach((label, k) => library.set(label, (library.get(label) ?? 0) + table.columns['sum']![k]!));
