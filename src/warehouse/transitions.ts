@@ -41,7 +41,12 @@ function shortName(f: Intl.DateTimeFormat, epochMs: number): string | null {
 function formattersOf(zone: Zone): Intl.DateTimeFormat[] {
   let list = formatters.get(zone.canonicalId);
   if (!list) {
-    const all = ABBREVIATION_LOCALES.map((l) => new Intl.DateTimeFormat(l, { timeZone: zone.canonicalId, timeZoneName: 'short' }));
+    let all: Intl.DateTimeFormat[];
+    try {
+      all = ABBREVIATION_LOCALES.map((l) => new Intl.DateTimeFormat(l, { timeZone: zone.canonicalId, timeZoneName: 'short' }));
+    } catch {
+      all = []; // a zone from pinned data or TZif that the runtime's Intl does not know: no names to ask for
+    }
     list = all.filter((f) => PROBES.some((t) => shortName(f, t) !== null));
     if (formatters.size >= 1024) formatters.clear();
     formatters.set(zone.canonicalId, list);

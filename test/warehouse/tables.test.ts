@@ -26,6 +26,7 @@ import {
   ruleOfProfile,
   scheduleTableFromProfile,
   transitionTableFromZones,
+  zoneFromRules,
   zoneFromTzif,
   type WarehouseTable,
 } from '../../src/index.js';
@@ -100,6 +101,10 @@ describe('zone_offset_period against the tz database (TZif, tz 2025b)', () => {
       for (let k = 1; k < rows.length; k++) expect(from[rows[k]!]).toBe(to[rows[k - 1]!]);
     }
     expect(zone.filter((z) => z === '+05:30').length).toBe(1);
+    // A zone the runtime's Intl does not know (rules given as data) has no abbreviation, and no error.
+    const invented = zoneFromRules({ id: 'Test/Nowhere', initialOffsetSeconds: 3600, transitionsSeconds: [1e9], offsetsSeconds: [7200] });
+    const own = transitionTableFromZones([invented], 0, 2e12);
+    expect([column(own, 'offset_seconds'), column(own, 'abbreviation')].map((c) => Array.from(c))).toEqual([[3600, 7200], [null, null]]);
     expect(() => transitionTableFromZones([], start, end)).toThrow(TypeError);
     expect(() => transitionTableFromZones(['America/Chicgo'], start, end)).toThrow(/did you mean "America\/Chicago"/);
   });
