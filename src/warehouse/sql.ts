@@ -5,7 +5,7 @@
  *
  * @module
  */
-import { KalendsRangeError } from '../errors.js';
+import { KalendsRangeError, KalendsTypeError, describeValue } from '../errors.js';
 import { readOptions, requireEnum } from '../diagnostics/index.js';
 import type { WarehouseColumnType, WarehouseTable } from './table.js';
 import { requireTable } from './text.js';
@@ -63,6 +63,12 @@ export function formatLoadSql(tables: readonly WarehouseTable[], options: LoadSq
       received: format,
     });
   }
+  if (!Array.isArray(tables)) {
+    throw new KalendsTypeError(`tables: expected an array of warehouse tables, got ${describeValue(tables)}`, { code: 'invalid-type', received: tables });
+  }
+  if (directory !== undefined && typeof directory !== 'string') {
+    throw new KalendsTypeError(`options.directory: expected a directory path or undefined, got ${describeValue(directory)}`, { code: 'invalid-type', received: directory });
+  }
   const types = SQL_TYPES[dialect];
   const out: string[] = [
     `-- Creates and loads the kalends warehouse tables in ${dialect === 'duckdb' ? 'DuckDB' : 'PostgreSQL'} from ${format === 'csv' ? 'CSV' : 'Parquet'} files.`,
@@ -113,7 +119,11 @@ export function formatExampleQueriesSql(dimension: WarehouseTable, options?: Exa
   const d = requireTable(dimension, 'dimension');
   const o = readOptions('options', options, ['labelColumns', 'groupBy']);
   const names = d.columns.map((c) => c.name);
-  const labels = (o['labelColumns'] as readonly string[] | undefined) ?? names.filter((n) => n.endsWith('_label'));
+  const given = o['labelColumns'];
+  if (given !== undefined && (!Array.isArray(given) || given.some((l) => typeof l !== 'string'))) {
+    throw new KalendsTypeError(`options.labelColumns: expected an array of column names, got ${describeValue(given)}`, { code: 'invalid-type', received: given });
+  }
+  const labels = (given as readonly string[] | undefined) ?? names.filter((n) => n.endsWith('_label'));
   for (const l of labels) {
     if (!names.includes(l)) throw new KalendsRangeError(`options.labelColumns: the dimension has no column ${JSON.stringify(l)}`, { code: 'unknown-name', received: l });
   }

@@ -16,6 +16,7 @@ import {
   dayNumberFromYmd,
   defineProfile,
   dimensionTableFromProfile,
+  formatExampleQueriesSql,
   formatLoadSql,
   formatPlainDate,
   formatTableCsv,
@@ -210,6 +211,10 @@ describe('text formats and SQL', () => {
     expect(() => formatLoadSql([table], { dialect: 'postgresql', format: 'parquet' })).toThrow(/CSV/);
     expect(() => formatLoadSql([table], { dialect: 'postgres' as never, format: 'csv' })).toThrow(/did you mean "postgresql"/);
     expect(formatLoadSql([table], { dialect: 'postgresql', format: 'csv', directory: '/data/' })).toContain("\\copy t FROM '/data/t.csv' WITH (FORMAT csv, HEADER true)");
+    expect(() => formatLoadSql(null as never, { dialect: 'duckdb', format: 'csv' })).toThrow(TypeError);
+    expect(() => formatLoadSql([table], undefined as never)).toThrow(TypeError);
+    expect(() => formatExampleQueriesSql(table, { labelColumns: 'fiscal_quarter_label' as never })).toThrow(TypeError);
+    expect(() => formatExampleQueriesSql(table, { labelColumns: ['nope'] })).toThrow(/no column "nope"/);
   });
 });
 
