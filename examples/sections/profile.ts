@@ -9,6 +9,7 @@ import {
   formatLabelForPeople,
   formatPeriod,
   formatPlainDate,
+  listOccurrences,
   periodFromEpochMs,
   ruleOfProfile,
   scheduleTableFromProfile,
@@ -48,7 +49,8 @@ export const section: DemoSection = {
       }
     }
     print(`  supplier payments moved in 2026: ${moved.join('; ')}`);
-    print(`  ${ruleOfProfile(profile, 'supplier-payments').definition.label}: the rule is the profile's; the SQL engine gets its dates from schedule_occurrence.`);
+    const close = ruleOfProfile(profile, 'month-end-close');
+    print(`  ${close.definition.label}, first quarter of 2026, from the profile's rule: ${listOccurrences(close, '2026-01-01', '2026-04-01').map(formatPlainDate).join(', ')}`);
     const query = formatExampleQueriesSql(dim, { labelColumns: ['fiscal_quarter_label', 'retail_week_label'] });
     print('  events to local days and fiscal quarters in any SQL engine (from queries.sql):');
     for (const line of query.split('\n').slice(6, 12)) print(`    ${line}`);
