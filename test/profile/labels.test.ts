@@ -117,6 +117,23 @@ describe('labels for people', () => {
     );
   });
 
+  it('weeks from a chosen weekday count from the first such week that starts in the calendar year (brute force by day walking)', () => {
+    const p = defineProfile({ id: 'sunday', name: 'Sunday weeks', zone: 'UTC', week: { firstWeekday: 'sunday' }, labels: { locale: 'en-US', units: { week: '{year}/{index}' } } });
+    const week = unitOfProfile(p, 'week');
+    fc.assert(
+      fc.property(fc.integer({ min: dayNumberFromYmd(1900, 1, 1), max: dayNumberFromYmd(2200, 1, 1) }), (d) => {
+        const o = week.ordinalFromDayNumber(d);
+        const first = week.firstDayNumberFromOrdinal(o);
+        const year = ymdFromDayNumber(first).year;
+        // Walk from 1 January to the first Sunday on or after it, then count weeks to `first`.
+        let sunday = dayNumberFromYmd(year, 1, 1);
+        while (new Date(sunday * 86_400_000).getUTCDay() !== 0) sunday++;
+        expect(formatLabelForPeople(p, 'week', o)).toBe(`${year}/${(first - sunday) / 7 + 1}`);
+      }),
+      { seed: 42, numRuns: 300 },
+    );
+  });
+
   it('without a template the machine label is returned; without a labels section it is an error', () => {
     const p = profileIn('en-US', '{day}', {});
     const m = unitOfProfile(p, 'month');
