@@ -10,6 +10,7 @@ import { section as business } from './sections/business.js';
 import { section as recurrence } from './sections/recurrence.js';
 import { section as series } from './sections/series.js';
 import { section as hours } from './sections/hours.js';
+import { section as profile } from './sections/profile.js';
 
 /** One part of the demo. `print` writes a line. */
 export interface DemoSection {
@@ -17,7 +18,7 @@ export interface DemoSection {
   run(print: (line: string) => void): void | Promise<void>;
 }
 
-const sections: readonly DemoSection[] = [civil, instant, zone, period, business, recurrence, series, hours];
+const sections: readonly DemoSection[] = [civil, instant, zone, period, business, recurrence, series, hours, profile];
 
 async function main(): Promise<void> {
   console.log(`kalends demo: ${COMPANY}`);

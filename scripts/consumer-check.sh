@@ -21,7 +21,23 @@ const k = require('kalends');
 if (k.dayNumberFromYmd(1970, 1, 2) !== 1) throw new Error('CJS require gave a wrong day number');
 console.log('CJS require ok');
 JS
+cat > subpaths.mjs <<'JS'
+import { readFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import { defineProfile, dimensionTableFromProfile } from 'kalends';
+import { parquetFromTable } from 'kalends/warehouse';
+const require = createRequire(import.meta.url);
+const schema = JSON.parse(readFileSync(require.resolve('kalends/profile.schema.json'), 'utf8'));
+if (schema.$schema !== 'https://json-schema.org/draft/2020-12/schema') throw new Error('kalends/profile.schema.json is not the profile schema');
+const profile = defineProfile({ id: 'check', name: 'Check', zone: 'UTC', week: 'iso', calendars: { c: 'us-federal' } });
+const bytes = parquetFromTable(dimensionTableFromProfile(profile, { start: '2025-01-01', end: '2025-01-08' }));
+if (new TextDecoder().decode(bytes.subarray(0, 4)) !== 'PAR1') throw new Error('kalends/warehouse wrote no Parquet file');
+const { parquetFromTable: fromCjs } = require('kalends/warehouse');
+if (typeof fromCjs !== 'function') throw new Error('kalends/warehouse has no CJS entry');
+console.log('subpaths ok (kalends/warehouse, kalends/profile.schema.json)');
+JS
 node esm.mjs
 node cjs.cjs
+node subpaths.mjs
 npx --no-install kalends help >/dev/null && echo 'CLI ok'
 if [ -f "$root/scripts/consumer-extra.mjs" ]; then cp "$root/scripts/consumer-extra.mjs" . && node consumer-extra.mjs; fi

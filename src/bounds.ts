@@ -144,3 +144,6 @@ export const HOURS_TABLE_MAX_YEARS = 400;
 export const HOURS_LIST_LIMIT = 10_000;
 /** Largest `limit` `listSessions` accepts. */
 export const MAX_HOURS_LIST_LIMIT = 1_000_000;
+
+/** Most local days in one warehouse export (a calendar dimension): about 2,700 years. */
+export const MAX_DIMENSION_DAYS = 1_000_000;

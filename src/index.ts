@@ -23,3 +23,5 @@ export * from './daycount/index.js';
 export * from './recurrence/index.js';
 export * from './hours/index.js';
 export * from './series/index.js';
+export * from './profile/index.js';
+export * from './warehouse/index.js';

@@ -107,6 +107,8 @@ export interface OptionSpec {
 
 /** `--json`, which every command takes. */
 export const JSON_OPTION: OptionSpec = { name: 'json', text: 'one JSON object per line (JSON Lines) instead of a table' };
+/** `--profile`, which every command takes (src/cli/profile.ts fills in the profile's zone, units, calendars and rules). */
+export const PROFILE_OPTION: OptionSpec = { name: 'profile', value: '<file>', text: 'a calendar profile (JSON): its zone, units, calendars and rules by name' };
 const HELP_OPTION: OptionSpec = { name: 'help', text: 'show this help' };
 
 /** One CLI command. Its help page is built by {@link helpOf}, in the same shape for every command. */

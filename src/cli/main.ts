@@ -18,6 +18,7 @@ import {
   UsageError,
   VERSION,
   helpOf,
+  PROFILE_OPTION,
   parseArgs,
   quote,
   shellMessage,
@@ -30,6 +31,8 @@ import { commands as businessCommands } from './commands/business.js';
 import { commands as recurrenceCommands } from './commands/recurrence.js';
 import { commands as seriesCommands } from './commands/series.js';
 import { commands as hoursCommands } from './commands/hours.js';
+import { commands as warehouseCommands } from './commands/warehouse.js';
+import { applyProfileOption } from './profile.js';
 
 /** Every command, in the order help lists them. */
 export const allCommands: readonly Command[] = [
@@ -40,6 +43,7 @@ export const allCommands: readonly Command[] = [
   ...recurrenceCommands,
   ...seriesCommands,
   ...hoursCommands,
+  ...warehouseCommands,
 ];
 
 /** The overview `kalends help` prints: commands, the forms every command shares, and the exit codes. */
@@ -65,6 +69,8 @@ export function overview(): string {
     '  Periods     Columns name a period the same way everywhere: period (its label), first and last (its',
     '              first and last days, both included), start and end (instants: [start, end), end is',
     "              the first instant of the next period), days (its length).",
+    '  Profiles    --profile <file> (every command) reads a calendar profile: its zone, units, calendars',
+    '              and rules by name (docs/profiles.md).',
     '  Options     --name value or --name=value; flags take no value; each option may be given once.',
     '',
     EXIT_CODES_TEXT,
@@ -97,7 +103,7 @@ export async function runCli(argv: readonly string[], io: CliIo): Promise<number
     const command = allCommands.find((c) => c.name === name);
     if (!command) return unknown(name);
     try {
-      const args = parseArgs(rest, command.options);
+      const args = await applyProfileOption(parseArgs(rest, [...command.options, PROFILE_OPTION]), command, io);
       if (args.options.has('help')) {
         io.stdout(helpOf(command));
         return EXIT_DONE;

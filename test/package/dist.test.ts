@@ -25,7 +25,7 @@ describe.skipIf(!built && !process.env.CI)('built package', () => {
   });
 
   it('ships declarations for both formats and a CLI with a shebang', () => {
-    for (const f of ['index.d.ts', 'index.d.cts', 'tzdata.d.ts', 'cli.js']) expect(existsSync(dist(f))).toBe(true);
+    for (const f of ['index.d.ts', 'index.d.cts', 'tzdata.d.ts', 'warehouse.d.ts', 'warehouse.d.cts', 'cli.js']) expect(existsSync(dist(f))).toBe(true);
     expect(readFileSync(dist('cli.js'), 'utf8').startsWith('#!/usr/bin/env node')).toBe(true);
   });
 
@@ -34,7 +34,28 @@ describe.skipIf(!built && !process.env.CI)('built package', () => {
     expect(pkg.dependencies ?? {}).toEqual({});
     expect(pkg.sideEffects).toBe(false);
     expect((pkg.engines as Record<string, string>).node).toBe('>=20');
-    expect(Object.keys(pkg.exports as object)).toEqual(expect.arrayContaining(['.', './tzdata']));
+    expect(Object.keys(pkg.exports as object)).toEqual(expect.arrayContaining(['.', './tzdata', './warehouse', './profile.schema.json']));
+  });
+
+  it('kalends/warehouse (ESM and CJS) takes profiles made by the core entry: it imports the core by the package name, and bundles its Parquet writer', async () => {
+    const esm = readFileSync(dist('warehouse.js'), 'utf8');
+    expect(esm).toMatch(/from ['"]kalends['"]/);
+    expect(esm).not.toMatch(/from ['"]hyparquet/);
+    expect(readFileSync(dist('warehouse.cjs'), 'utf8')).toMatch(/require\(['"]kalends['"]\)/);
+    const core = (await import(pathToFileURL(dist('index.js')).href)) as typeof source;
+    const w = (await import(pathToFileURL(dist('warehouse.js')).href)) as { parquetFromTable(t: unknown): Uint8Array };
+    const profile = core.defineProfile({ id: 'p', name: 'P', zone: 'UTC', week: 'iso', calendars: { c: 'us-federal' } });
+    const bytes = w.parquetFromTable(core.dimensionTableFromProfile(profile, { start: '2025-01-01', end: '2025-02-01' }));
+    // A Parquet file starts and ends with the magic "PAR1" (Apache Parquet format, "File Format").
+    expect(new TextDecoder().decode(bytes.subarray(0, 4))).toBe('PAR1');
+    expect(new TextDecoder().decode(bytes.subarray(bytes.length - 4))).toBe('PAR1');
+  });
+
+  it('the core bundle does not contain the Parquet writer, and the schema file ships at its subpath', () => {
+    expect(readFileSync(dist('index.js'), 'utf8')).not.toMatch(/hyparquet|PAR1/);
+    const pkg = JSON.parse(readFileSync(`${root}package.json`, 'utf8')) as { exports: Record<string, unknown>; files: string[] };
+    expect(pkg.exports['./profile.schema.json']).toBe('./schema/profile.schema.json');
+    expect(pkg.files).toContain('schema');
   });
 
   it('the core bundle does not contain the pinned tz data module', () => {

@@ -46,6 +46,7 @@ import {
   shellMessage,
   weekdayTitle,
 } from '../kit.js';
+import { calendarFromProfileOption } from '../profile.js';
 
 const CALENDAR_OPTION: OptionSpec = {
   name: 'calendar',
@@ -58,6 +59,8 @@ const CAUTION_NOTE =
 
 /** The calendar of --calendar, in the kit's one form: a bundled name, JSON text, "-" or a JSON file. */
 async function calendarOption(args: ParsedArgs, io: CliIo): Promise<BusinessCalendar> {
+  const fromProfile = calendarFromProfileOption(args);
+  if (fromProfile) return fromProfile;
   const value = optionString(args, 'calendar');
   if (value === undefined) {
     throw new UsageError(`--calendar is required: a bundled calendar (${BUNDLED_CALENDAR_NAMES.join(', ')}), a definition as JSON text, or a JSON file`);

@@ -37,6 +37,7 @@ import {
   shellMessage,
   weekdayTitle,
 } from '../kit.js';
+import { ruleFromProfileOption } from '../profile.js';
 
 const RULE_TEXT = `<rule> is a JSON rule definition ('{"kind":"monthly","on":{"day":15}}'), RFC 5545 text
 ('DTSTART;VALUE=DATE:20250101\\nRRULE:FREQ=WEEKLY;BYDAY=FR', or a bare 'FREQ=...' with --start),
@@ -49,6 +50,8 @@ const isRfc5545 = (text: string) => /FREQ=/i.test(text);
 
 /** The rule named by the first positional argument: JSON, RFC 5545 text, a file holding either, or "-". */
 async function ruleArgument(args: ParsedArgs, io: CliIo): Promise<Rule> {
+  const fromProfile = ruleFromProfileOption(args);
+  if (fromProfile) return fromProfile;
   const given = args.positionals[0];
   if (given === undefined) throw new UsageError('a rule is required: JSON, RFC 5545 text, a file holding either, or "-" (see --help)');
   if (args.positionals.length > 1) throw new UsageError(`expected one rule argument, got ${args.positionals.length}; quote the rule`);
