@@ -333,7 +333,9 @@ el.fiscalYear.addEventListener('change', () =>
     const p = state.profile!;
     const view = state.view;
     state.fiscalYear = el.fiscalYear.value;
-    const anchor = state.focusDay ?? (view ? view.first : todayOf(p));
+    // Keep the day the reader was at: the focused cell, else today when it is in view, else the year's first day.
+    const today = todayOf(p);
+    const anchor = state.focusDay ?? (!view || (today >= view.first && today < view.end) ? today : view.first);
     state.ordinal = clampOrdinal(p, p.fiscalYears[state.fiscalYear]!.ordinalFromDayNumber(anchor));
   }),
 );
