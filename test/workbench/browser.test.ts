@@ -185,6 +185,12 @@ describe.skipIf(!HAVE)('the workbench page in headless Chromium', () => {
 
   it('loads the demo company\'s profile', async () => {
     expect(await page.textContent('#profile-status')).toContain('No profile yet');
+    // A file opened from disk is read in the page (a small profile: one fiscal year of months, one bundled calendar).
+    const small = { id: 'small', name: 'A small invented profile', zone: 'Europe/Dublin', week: 'iso', fiscalYears: { main: { start: { month: 4, day: 6 }, naming: 'start-year' } }, calendars: { bank: 'england-and-wales' } };
+    await redraw(() => page.setInputFiles('#open-file', { name: 'small.profile.json', mimeType: 'application/json', buffer: Buffer.from(JSON.stringify(small, null, 2)) }));
+    expect(await page.textContent('#profile-status')).toContain('A small invented profile');
+    expect(await page.inputValue('#fiscal-year')).toBe('main');
+    expect((await readRows()).length).toBe(12); // a row per fiscal month
     await redraw(() => page.click('#use-demo'));
     expect(await page.inputValue('#profile-text')).toBe(DEMO_TEXT);
     expect(await page.textContent('#profile-status')).toContain('Valid profile');

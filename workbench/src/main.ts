@@ -103,15 +103,15 @@ function describeProfile(p: Profile): string {
   return `${p.name}: ${count(p.fiscalYears, 'fiscal year', 'fiscal years')}, ${count(p.units, 'unit', 'units')}, ${count(p.calendars, 'calendar', 'calendars')}, ${count(p.rules, 'rule', 'rules')}, ${count(p.hours, 'set of opening hours', 'sets of opening hours')}; zone ${p.zone.id}.`;
 }
 
-/** Reads the text, keeps a valid profile, shows the faults of an invalid one, and draws. */
-function applyText(reason: string): void {
+/** Reads the text, keeps a valid profile, shows the faults of an invalid one, and draws. `source` names a file read. */
+function applyText(reason: string, source?: string): void {
   const t0 = performance.now();
   const reading = readProfileText(el.text.value);
   if (reading.ok) {
     const before = state.profile;
     state.profile = reading.profile;
     state.faults = [];
-    el.status.textContent = `Valid profile. ${describeProfile(reading.profile)}`;
+    el.status.textContent = `Valid profile${source ? ` (from ${source})` : ''}. ${describeProfile(reading.profile)}`;
     el.status.className = 'status ok';
     adoptChoices(reading.profile, before);
   } else {
@@ -127,13 +127,14 @@ function applyText(reason: string): void {
 /** Keeps the choices that still make sense for a new profile, and picks defaults for the rest. */
 function adoptChoices(p: Profile, before: Profile | undefined): void {
   const fiscalYears = Object.keys(p.fiscalYears);
-  if (!fiscalYears.includes(state.fiscalYear)) state.fiscalYear = fiscalYears.find((n) => 'yearEnd' in (p.definition.fiscalYears?.[n] ?? {})) ?? fiscalYears[0] ?? '';
+  // A new fiscal year (the first profile, or the one drawn is gone): a 52/53-week year first, at today.
+  const newYear = !before || !fiscalYears.includes(state.fiscalYear);
+  if (newYear) state.fiscalYear = fiscalYears.find((n) => 'yearEnd' in (p.definition.fiscalYears?.[n] ?? {})) ?? fiscalYears[0] ?? '';
   const calendars = calendarNamesOf(p);
   if (!calendars.includes(state.calendar)) state.calendar = calendars[0] ?? '';
-  if (state.rule !== '' && !(state.rule in p.rules && isRuleOfDates(p, state.rule))) state.rule = '';
-  if (!before || !state.fiscalYear) {
-    if (state.fiscalYear) state.ordinal = clampOrdinal(p, p.fiscalYears[state.fiscalYear]!.ordinalFromDayNumber(todayOf(p)));
-  } else if (state.fiscalYear) state.ordinal = clampOrdinal(p, state.ordinal);
+  if (state.rule !== '' && !(Object.prototype.hasOwnProperty.call(p.rules, state.rule) && isRuleOfDates(p, state.rule))) state.rule = '';
+  if (!state.fiscalYear) return;
+  state.ordinal = clampOrdinal(p, newYear ? p.fiscalYears[state.fiscalYear]!.ordinalFromDayNumber(todayOf(p)) : state.ordinal);
 }
 
 // ---- choices ----------------------------------------------------------------------------------------------
@@ -310,7 +311,8 @@ el.openFile.addEventListener('change', async () => {
   const file = el.openFile.files?.[0];
   if (!file) return;
   el.text.value = await file.text();
-  applyText(`file ${file.name} opened`);
+  el.openFile.value = ''; // the text box holds it now; the same file can be opened again
+  applyText('file opened', file.name);
 });
 el.faults.addEventListener('click', (event) => {
   const button = (event.target as HTMLElement).closest<HTMLButtonElement>('button.fault-path');
@@ -342,7 +344,12 @@ el.fiscalYear.addEventListener('change', () =>
 el.year.addEventListener('change', () => redraw('year chosen', () => (state.ordinal = Number(el.year.value))));
 el.previous.addEventListener('click', () => redraw('previous year', () => (state.ordinal -= 1)));
 el.next.addEventListener('click', () => redraw('next year', () => (state.ordinal += 1)));
-el.calendar.addEventListener('change', () => redraw('calendar chosen', () => (state.calendar = el.calendar.value)));
+el.calendar.addEventListener('change', () =>
+  redraw('calendar chosen', () => {
+    state.calendar = el.calendar.value;
+    state.ordinal = clampOrdinal(state.profile!, state.ordinal); // within the years the calendar covers
+  }),
+);
 el.rule.addEventListener('change', () => redraw('schedule chosen', () => (state.rule = el.rule.value)));
 for (const r of radios('rows')) r.addEventListener('change', () => redraw('rows chosen', () => (state.rows = r.value as RowLevel)));
 for (const r of radios('cells')) r.addEventListener('change', () => redraw('cells chosen', () => (state.cells = r.value as CellLevel)));
