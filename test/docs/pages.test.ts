@@ -123,7 +123,8 @@ describe('the README', () => {
     expect(setUp).toBe('## Set up');
     const first = blocksOf('README.md', readme)[0]!;
     expect(first.lang).toBe('sh');
-    expect(first.text.split('\n').map((l) => l.replace(/\s+#.*$/, ''))).toEqual(['npm ci && npm run demo', 'npm test']);
+    // The two set-up commands come first, in order; the workbench command follows them (issue 18).
+    expect(first.text.split('\n').map((l) => l.replace(/\s+#.*$/, ''))).toEqual(['npm ci && npm run demo', 'npm test', 'npm run workbench']);
   });
 
   it('says what the install-scripts warning of newer npm means and what .ci/run installs', () => {
