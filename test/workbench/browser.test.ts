@@ -21,6 +21,7 @@ import { extname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { gzipSync } from 'node:zlib';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { note } from '../note.js';
 import type { BrowserContext, Page } from 'playwright-core';
 import {
   type Profile,
@@ -47,7 +48,7 @@ const CHROMIUM = '/usr/bin/chromium';
 const HAVE = existsSync(CHROMIUM);
 const ROOT = fileURLToPath(new URL('../../', import.meta.url));
 if (!HAVE && process.env.CI) throw new Error(`test/workbench/browser.test.ts: ${CHROMIUM} is missing; .ci/run installs it with apt-get install chromium`);
-if (!HAVE) console.log(`[workbench] browser test skipped: ${CHROMIUM} is missing (apt-get install chromium)`);
+if (!HAVE) note(`[workbench] browser test skipped: ${CHROMIUM} is missing (apt-get install chromium)`);
 
 /** The day the page marks as today (`?today=`), so that the picture and the screenshot do not depend on the run's date. */
 const TODAY = '2025-11-26';
@@ -144,7 +145,7 @@ describe.skipIf(!HAVE)('the workbench page in headless Chromium', () => {
     const { publicEntry, workbenchConfig } = await import('../../workbench/vite.config.js');
     const dist = publicEntry();
     const fresh = existsSync(dist) && statSync(dist).mtimeMs >= newest(join(ROOT, 'src'));
-    if (!fresh) console.log(`[workbench] ${dist} is missing or older than src/: the page is built from the sources`);
+    if (!fresh) note(`[workbench] ${dist} is missing or older than src/: the page is built from the sources`);
     await build({ ...workbenchConfig(fresh ? dist : join(ROOT, 'src/index.ts'), out), configFile: false, logLevel: 'error' });
     for (const f of readdirSync(join(out, 'assets'))) {
       if (!f.endsWith('.js')) continue;
@@ -241,7 +242,7 @@ describe.skipIf(!HAVE)('the workbench page in headless Chromium', () => {
         checked++;
       });
     }
-    console.log(`[workbench] ${checked} day cells of FY2022-FY2024 (retail) compared with the library in Node: ${mismatches.length} mismatches`);
+    note(`[workbench] ${checked} day cells of FY2022-FY2024 (retail) compared with the library in Node: ${mismatches.length} mismatches`);
     expect(mismatches).toEqual([]);
     expect(weeksOf).toEqual({ FY2022: 52, FY2023: 53, FY2024: 52 });
     expect(await page.locator('#year-summary').textContent()).toContain('52 weeks');
@@ -415,7 +416,7 @@ describe.skipIf(!HAVE)('the workbench page in headless Chromium', () => {
       passes: string[];
       incomplete: string[];
     };
-    console.log(`[workbench] axe-core ${result.version}: ${result.violations.length} violations, ${result.passes.length} rules passed (color-contrast ${result.passes.includes('color-contrast') ? 'passed' : 'not passed'}), incomplete: ${result.incomplete.join(', ') || 'none'}`);
+    note(`[workbench] axe-core ${result.version}: ${result.violations.length} violations, ${result.passes.length} rules passed (color-contrast ${result.passes.includes('color-contrast') ? 'passed' : 'not passed'}), incomplete: ${result.incomplete.join(', ') || 'none'}`);
     expect(result.violations).toEqual([]);
     expect(result.passes).toContain('color-contrast');
   });
@@ -461,7 +462,7 @@ describe.skipIf(!HAVE)('the workbench page in headless Chromium', () => {
       times.push(Number(await page.$eval('body', (b) => (b as HTMLElement).dataset['renderMs'])));
     }
     const sorted = [...times].sort((a, b) => a - b);
-    console.log(
+    note(
       `[workbench] a profile edit to the painted year (day level, 365 cells, schedule on): median ${sorted[sorted.length >> 1]} ms, fastest ${sorted[0]} ms, slowest ${sorted.at(-1)} ms over ${times.length} edits (${times.join(', ')}); page JavaScript with the library ${(jsBytes / 1024).toFixed(1)} KiB minified, ${(jsGzipBytes / 1024).toFixed(1)} KiB min+gz`,
     );
     expect(times.every((t) => t > 0)).toBe(true);
