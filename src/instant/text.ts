@@ -34,9 +34,12 @@ export type { ExtendedDateTime, LeapSecondHandling, ParseDateTimeOptions, Parsed
 const LEAP_SECOND_HANDLING: readonly LeapSecondHandling[] = ['constrain', 'reject'];
 const PLAIN_OFFSET_HANDLING: readonly ('reject' | 'ignore')[] = ['reject', 'ignore'];
 const PARSE_KEYS = ['leapSecond', 'understoodKeys'] as const;
+const NO_PARSE_OPTIONS = /* @__PURE__ */ Object.freeze({ record: Object.freeze({}), leapSecond: 'constrain' as LeapSecondHandling, understood: Object.freeze([]) as readonly string[] });
 
 /** The options of a date-time parser, read once: unknown keys, foreign enum values and a bare string refused. */
 function readParseOptions(options: unknown, extra: readonly string[] = []): { record: Readonly<Record<string, unknown>>; leapSecond: LeapSecondHandling; understood: readonly string[] } {
+  // The common call passes no options: answer it without building the key list or a result object.
+  if (options === undefined) return NO_PARSE_OPTIONS;
   const record = readOptions('options', options, [...PARSE_KEYS, ...extra]);
   const leapSecond = requireEnum('options.leapSecond', optionOf(record, 'leapSecond'), LEAP_SECOND_HANDLING, 'constrain');
   return { record, leapSecond, understood: readUnderstoodKeys(optionOf(record, 'understoodKeys')) };
