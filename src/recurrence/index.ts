@@ -50,6 +50,9 @@ export {
   type ScheduleOptions,
   type SchedulePeriod,
   type Schedule,
+  type SchedulePaymentOptions,
+  type ScheduleFixingOptions,
+  type ScheduleDayCountOptions,
   defineSchedule,
 } from './schedule.js';
 export { describeRule } from './describe.js';
