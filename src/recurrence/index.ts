@@ -56,3 +56,4 @@ export {
   defineSchedule,
 } from './schedule.js';
 export { describeRule } from './describe.js';
+export { IMM_DATES, CREDIT_ROLL_DATES, MONTH_END_DATES } from './rolls.js';
