@@ -29,6 +29,7 @@ import {
   countBusinessDays,
   defineCalendar,
   isBusinessDay,
+  listHolidays,
   nthBusinessDayOfRange,
   shiftBusinessDays,
   UnknownCalendarError,
@@ -40,6 +41,7 @@ export { yearFractionFromParts } from '../daycount/fraction.js';
 export { ISDA_DENOMINATOR, actual365LeapDenominator, actualActualIsdaNumerator, greatestCommonDivisor, thirtyDays, thirtyE360IsdaDays } from '../daycount/formulas.js';
 import type { BusinessOps, PeriodOps, ZoneOps } from './engine.js';
 
+export { listHolidays };
 export { formatInstant, formatPlainDate, formatPlainDateTime, parseInstant, parsePlainDate, parsePlainDateTime, toDayNumber, toEpochMs };
 export type { BusinessCalendar, PeriodUnit, Zone };
 
