@@ -205,16 +205,35 @@ export function readDayCount(value: unknown, scheduleCalendar: BusinessOps | und
   return { convention, adjusted, couponsPerYear, termination, business };
 }
 
-/** @internal The payment or fixing date of a period whose adjusted ends are `start` and `end`. */
+/** @internal Whether `d` is a business day of `cal` that lies within its years (false outside them). */
+export function isOpenDay(cal: BusinessOps, d: number): boolean {
+  return d >= cal.firstDay && d < cal.endDay && cal.nthInRangeUnchecked(d, d + 1, 1) === d;
+}
+
+/**
+ * @internal The payment or fixing date of a period whose adjusted ends are `start` and `end`. The fast path looks
+ * in a window of days around the date (read a word of the calendar's bitsets at a time); a date the window does
+ * not hold (a long run of closed days, the calendar's edge) takes the checked path.
+ */
 export function lagDate(plan: LagPlan, start: number, end: number, fixing: boolean, index: number): number {
   const base = plan.fromEnd ? end : start;
+  const cal = plan.cal;
+  const n = plan.n;
+  const width = 2 * n + 16;
+  // Payment: the nth business day after base (n = 0: base or the next); fixing: the nth before (n = 0: base or the previous).
+  const lo = fixing ? base + (n === 0 ? 1 : 0) - width : n === 0 ? base : base + 1;
+  const hi = fixing ? base + (n === 0 ? 1 : 0) : lo + width;
+  if (lo >= cal.firstDay && hi <= cal.endDay) {
+    const d = cal.nthInRangeUnchecked(lo, hi, fixing ? -Math.max(n, 1) : Math.max(n, 1));
+    if (d === d) return d;
+  }
   let d: number;
-  if (!fixing) d = plan.cal.shiftOrNaN(base, plan.n);
-  else if (plan.n === 0) d = base < plan.cal.firstDay || base >= plan.cal.endDay ? Number.NaN : plan.cal.isBusinessDay(base) ? base : plan.cal.shiftOrNaN(base, -1);
-  else d = plan.cal.shiftOrNaN(base, -plan.n);
+  if (!fixing) d = cal.shiftOrNaN(base, n);
+  else if (n === 0) d = base < cal.firstDay || base >= cal.endDay ? Number.NaN : cal.isBusinessDay(base) ? base : cal.shiftOrNaN(base, -1);
+  else d = cal.shiftOrNaN(base, -n);
   if (d !== d) {
     throw new KalendsRangeError(
-      `${plan.path}: the ${fixing ? 'fixing' : 'payment'} date of period ${index}, ${plan.n} business day${plan.n === 1 ? '' : 's'} ${fixing ? 'before' : 'after'} ${formatPlainDate(base)}, lies outside the years calendar ${JSON.stringify(plan.cal.id)} covers, got ${showDay(base)}; use a calendar that covers the schedule`,
+      `${plan.path}: the ${fixing ? 'fixing' : 'payment'} date of period ${index}, ${n} business day${n === 1 ? '' : 's'} ${fixing ? 'before' : 'after'} ${formatPlainDate(base)}, lies outside the years calendar ${JSON.stringify(cal.id)} covers, got ${showDay(base)}; use a calendar that covers the schedule`,
       { code: 'out-of-range', received: base, path: plan.path },
     );
   }

@@ -24,6 +24,7 @@ import type { RuleCalendarInput, Convention, DateInput, Rule } from './types.js'
 import type { YearFraction } from './deps.js';
 import {
   type DayCountPlan,
+  isOpenDay,
   type LagPlan,
   type ScheduleDayCountOptions,
   type ScheduleFixingOptions,
@@ -92,14 +93,20 @@ export interface Schedule {
 
 const PLACEMENTS: readonly StubPlacement[] = ['short-front', 'long-front', 'short-back', 'long-back'];
 
-function rollMonths(rollDate: number, months: number, keepMonthEnd: boolean): number {
+/**
+ * Rolls a date by whole months: `roll(months)` is the date `months` months from `rollDate`, its day kept where
+ * the month has it (the month end, under `keepMonthEnd`, when the roll date is one). The roll date is decoded once.
+ */
+function monthRoller(rollDate: number, keepMonthEnd: boolean): (months: number) => number {
   const p = packedYmdUnchecked(rollDate);
   const d = dayOfPacked(p);
   const from = monthIndexOfPacked(p);
   const eom = keepMonthEnd && d === dayCountOfMonthIndex(from);
-  const target = from + months;
-  const len = dayCountOfMonthIndex(target);
-  return firstDayNumberOfMonthIndex(target) + (eom ? len : Math.min(d, len)) - 1;
+  return (months) => {
+    const target = from + months;
+    const len = dayCountOfMonthIndex(target);
+    return firstDayNumberOfMonthIndex(target) + (eom ? len : Math.min(d, len)) - 1;
+  };
 }
 
 function stepOf(step: unknown): { unit: 'months' | 'days'; n: number } | Rule {
@@ -209,8 +216,8 @@ export function defineSchedule(options: ScheduleOptions): Schedule {
     // Fails at once when the span holds more whole steps than a schedule may have periods.
     const steps = step.unit === 'months' ? (monthIndexOfPacked(packedYmdUnchecked(end)) - monthIndexOfPacked(packedYmdUnchecked(start))) / step.n : (end - start) / step.n;
     if (steps > MAX_SCHEDULE_PERIODS + 1) throw tooManyPeriods(o['step']);
-    const roll = (k: number): number =>
-      step.unit === 'months' ? rollMonths(front ? end : start, (front ? -k : k) * step.n, keepMonthEnd) : (front ? end - k * step.n : start + k * step.n);
+    const months = step.unit === 'months' ? monthRoller(front ? end : start, keepMonthEnd) : undefined;
+    const roll = (k: number): number => (months ? months((front ? -k : k) * step.n) : front ? end - k * step.n : start + k * step.n);
     const interior: number[] = [];
     let k = 1;
     for (;;) {
@@ -256,7 +263,8 @@ export function defineSchedule(options: ScheduleOptions): Schedule {
     dates.splice(front ? 1 : dates.length - 2, 1);
   }
   if (dates.length === 2 && !irregular) stubSide = undefined;
-  const adjust = (d: number): number => (cal && convention !== 'none' ? cal.adjust(d, convention) : d);
+  // A business day stays where it is: only the others go through the convention (and its checks).
+  const adjust = (d: number): number => (cal && convention !== 'none' && !isOpenDay(cal, d) ? cal.adjust(d, convention) : d);
   const adjusted = dates.map(adjust);
   if (grid && dayCount!.adjusted) grid = grid.map(adjust);
   return Object.freeze({ periods: Object.freeze(periodsOf(dates, adjusted, stubSide, payment, fixing, dayCount, grid)) });
