@@ -105,6 +105,8 @@ export const MAX_RULE_EVERY = 100_000;
 export const MAX_RULE_EVERY_PERIODS = 10_000;
 /** Farthest, in days, a business-day convention may move a date before a rule reports `no-business-day`. */
 export const MAX_ADJUSTMENT_DAYS = 4096;
+/** Largest payment or fixing lag of a finance schedule, in business days. */
+export const MAX_LAG_BUSINESS_DAYS = 1000;
 
 /**
  * The most periods (rows) one series call may produce, even when asked: a bucket range, an alignment, a grid of

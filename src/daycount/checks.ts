@@ -45,61 +45,64 @@ export function refuseUnusedOptions(
   convention: DayCountConvention,
   options: Readonly<Record<string, unknown>>,
   rename: Readonly<Record<string, string>> = {},
+  prefix = 'options',
 ): void {
   const needed = NEEDED_OPTIONS[convention].map((k) => (Object.prototype.hasOwnProperty.call(rename, k) ? rename[k]! : k));
   for (const key of Object.keys(options)) {
     if (options[key] === undefined || needed.includes(key)) continue;
     const users = DAY_COUNT_CONVENTIONS.filter((c) => NEEDED_OPTIONS[c].some((k) => k === key || rename[k] === key));
     throw new KalendsRangeError(
-      `options.${key}: convention ${JSON.stringify(convention)} (${DAY_COUNT_TRADE_NAMES[convention]}) does not use this option, got ${describeValue(options[key])}; only ${users.map((c) => JSON.stringify(c)).join(' and ')} ${users.length > 1 ? 'use' : 'uses'} it: remove it, or check the convention`,
-      { code: 'unsupported', received: options[key], path: `options.${key}` },
+      `${prefix}.${key}: convention ${JSON.stringify(convention)} (${DAY_COUNT_TRADE_NAMES[convention]}) does not use this option, got ${describeValue(options[key])}; only ${users.map((c) => JSON.stringify(c)).join(' and ')} ${users.length > 1 ? 'use' : 'uses'} it: remove it, or check the convention`,
+      { code: 'unsupported', received: options[key], path: `${prefix}.${key}` },
     );
   }
 }
 
-function missing(convention: DayCountConvention, key: string, what: string, fix: string): KalendsTypeError {
+/** The error for a needed option that is missing; `prefix` is the path of the options object. */
+export function missingDayCountOption(convention: DayCountConvention, key: string, what: string, fix: string, prefix = 'options'): KalendsTypeError {
   return new KalendsTypeError(
-    `options.${key}: ${DAY_COUNT_TRADE_NAMES[convention]} needs ${what}, got undefined; pass ${fix}`,
-    { code: 'invalid-type', received: undefined, path: `options.${key}` },
+    `${prefix}.${key}: ${DAY_COUNT_TRADE_NAMES[convention]} needs ${what}, got undefined; pass ${fix}`,
+    { code: 'invalid-type', received: undefined, path: `${prefix}.${key}` },
   );
 }
 
 /** The coupon frequency of Actual/Actual (ICMA) and Actual/365L: required, one of 1, 2, 3, 4, 6, 12. */
-export function readCouponsPerYear(convention: DayCountConvention, options: Readonly<Record<string, unknown>>): number {
+export function readCouponsPerYear(convention: DayCountConvention, options: Readonly<Record<string, unknown>>, prefix = 'options'): number {
   const value = optionOf(options, 'couponsPerYear');
   if (value === undefined) {
-    throw missing(convention, 'couponsPerYear', 'the coupon frequency (coupon periods per year: 1, 2, 3, 4, 6 or 12)', '{ couponsPerYear: 2 } for semi-annual coupons');
+    throw missingDayCountOption(convention, 'couponsPerYear', 'the coupon frequency (coupon periods per year: 1, 2, 3, 4, 6 or 12)', '{ couponsPerYear: 2 } for semi-annual coupons', prefix);
   }
-  const n = requireWhole('options.couponsPerYear', value, 1, 12);
+  const n = requireWhole(`${prefix}.couponsPerYear`, value, 1, 12);
   if (!COUPONS_PER_YEAR_VALUES.includes(n)) {
-    throw new KalendsRangeError(`options.couponsPerYear: expected one of ${COUPONS_PER_YEAR_VALUES.join(', ')} (coupon periods per year, each a whole number of months), got ${n}`, {
+    throw new KalendsRangeError(`${prefix}.couponsPerYear: expected one of ${COUPONS_PER_YEAR_VALUES.join(', ')} (coupon periods per year, each a whole number of months), got ${n}`, {
       code: 'out-of-range',
       received: n,
-      path: 'options.couponsPerYear',
+      path: `${prefix}.couponsPerYear`,
     });
   }
   return n;
 }
 
 /** The Termination Date of 30E/360 (ISDA): required, a day number. */
-export function readTermination(options: Readonly<Record<string, unknown>>): number {
+export function readTermination(options: Readonly<Record<string, unknown>>, prefix = 'options'): number {
   const value = optionOf(options, 'terminationDayNumber');
   if (value === undefined) {
-    throw missing(
+    throw missingDayCountOption(
       'thirty-e-360-isda',
       'terminationDayNumber',
       'the Termination Date (a period that ends on the last day of February keeps its day only on that date)',
       '{ terminationDayNumber } with the day number of the last date of the transaction',
+      prefix,
     );
   }
-  return requireDayNumberArgument('options.terminationDayNumber', value);
+  return requireDayNumberArgument(`${prefix}.terminationDayNumber`, value);
 }
 
 /** Throws unless a period's end is on or before the Termination Date (no period ends after it). */
-export function requireNotAfterTermination(endName: string, end: number, termination: number): void {
+export function requireNotAfterTermination(endName: string, end: number, termination: number, terminationName = 'options.terminationDayNumber'): void {
   if (end > termination) {
     throw new KalendsRangeError(
-      `${endName}: expected a day number on or before options.terminationDayNumber ${showDay(termination)} (no period ends after the Termination Date), got ${showDay(end)}`,
+      `${endName}: expected a day number on or before ${terminationName} ${showDay(termination)} (no period ends after the Termination Date), got ${showDay(end)}`,
       { code: 'out-of-range', received: end },
     );
   }
@@ -109,7 +112,7 @@ export function requireNotAfterTermination(endName: string, end: number, termina
 export function readCalendar(options: Readonly<Record<string, unknown>>): CalendarInput {
   const value = optionOf(options, 'calendar');
   if (value === undefined) {
-    throw missing('business-252', 'calendar', 'the business calendar whose business days it counts', "{ calendar: 'euro-t2' } or a calendar from defineCalendar");
+    throw missingDayCountOption('business-252', 'calendar', 'the business calendar whose business days it counts', "{ calendar: 'euro-t2' } or a calendar from defineCalendar");
   }
   return value as CalendarInput;
 }

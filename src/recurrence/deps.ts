@@ -29,12 +29,19 @@ import {
   countBusinessDays,
   defineCalendar,
   isBusinessDay,
+  listHolidays,
   nthBusinessDayOfRange,
   shiftBusinessDays,
+  UnknownCalendarError,
 } from '../business/index.js';
 import { appendBusinessDaysUnchecked, nthBusinessDayInRangeUnchecked } from '../business/calendar.js';
+export { type DayCountConvention, type YearFraction, DAY_COUNT_TRADE_NAMES, NEEDED_OPTIONS } from '../daycount/conventions.js';
+export { readCouponsPerYear, readTermination, refuseUnusedOptions, requireConvention, requireNotAfterTermination, missingDayCountOption, showDay } from '../daycount/checks.js';
+export { yearFractionFromParts } from '../daycount/fraction.js';
+export { ISDA_DENOMINATOR, actual365LeapDenominator, actualActualIsdaNumerator, greatestCommonDivisor, thirtyDays, thirtyE360IsdaDays } from '../daycount/formulas.js';
 import type { BusinessOps, PeriodOps, ZoneOps } from './engine.js';
 
+export { listHolidays };
 export { formatInstant, formatPlainDate, formatPlainDateTime, parseInstant, parsePlainDate, parsePlainDateTime, toDayNumber, toEpochMs };
 export type { BusinessCalendar, PeriodUnit, Zone };
 
@@ -50,8 +57,15 @@ function isCompiledCalendar(v: Record<string, unknown>): boolean {
 /** A business calendar from a compiled calendar, a calendar definition, or the name of a bundled calendar. */
 export function businessOps(input: unknown, path: string): BusinessOps {
   let cal: BusinessCalendar;
-  if (typeof input === 'string') cal = calendarFromName(input);
-  else if (isObject(input)) cal = isCompiledCalendar(input) ? (input as unknown as BusinessCalendar) : defineCalendar(input as never);
+  if (typeof input === 'string') {
+    try {
+      cal = calendarFromName(input);
+    } catch (e) {
+      // calendarFromName names its own parameter; the message names the option the caller gave.
+      if (e instanceof UnknownCalendarError) throw new UnknownCalendarError(input, path);
+      throw e;
+    }
+  } else if (isObject(input)) cal = isCompiledCalendar(input) ? (input as unknown as BusinessCalendar) : defineCalendar(input as never);
   else {
     throw new KalendsTypeError(`${path}: expected a business calendar, its definition, or a bundled calendar name such as "us-federal", got ${describeValue(input)}`, {
       code: 'invalid-type',

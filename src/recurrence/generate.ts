@@ -79,8 +79,8 @@ export function compiledOf(rule: unknown, name = 'rule'): Compiled {
   return c;
 }
 
-/** Margin (units) around a range so that raw dates adjusted into it are seen. */
-function adjustmentMargin(c: Compiled, lo: number, hi: number): [number, number] {
+/** @internal Margin (days) around [lo, hi) that holds every raw date adjusted into it. */
+export function adjustmentMargin(c: Compiled, lo: number, hi: number): [number, number] {
   const cal = c.business!;
   let before = 8;
   while (before <= MAX_ADJUSTMENT_DAYS && lo - before > cal.firstDay && cal.adjust(lo - before, c.convention) >= lo) before *= 2;

@@ -50,6 +50,11 @@ export {
   type ScheduleOptions,
   type SchedulePeriod,
   type Schedule,
+  type SchedulePaymentOptions,
+  type ScheduleFixingOptions,
+  type ScheduleDayCountOptions,
   defineSchedule,
 } from './schedule.js';
 export { describeRule } from './describe.js';
+export { type ClosedDay, type DateMove, type OccurrenceAdjustment, adjustmentOfOccurrence } from './adjustments.js';
+export { IMM_DATES, CREDIT_ROLL_DATES, MONTH_END_DATES } from './rolls.js';

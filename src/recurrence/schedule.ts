@@ -6,7 +6,8 @@
  * Where the stub goes follows common practice: a front stub is found by rolling back from the end date, a back
  * stub by rolling forward from the start date; a long stub joins the short stub to its neighbouring regular
  * period. Dates are rolled as anchor + n x step from the roll date, never by adding a step repeatedly, so a
- * schedule rolling from the 31st comes back to the 31st after a short month.
+ * schedule rolling from the 31st comes back to the 31st after a short month. Each period can also carry its
+ * payment date, fixing date and day-count fraction (./accrual.ts).
  *
  * @module
  */
@@ -20,6 +21,22 @@ import { businessOps, toDayNumber } from './deps.js';
 import { compiledOf, fillOccurrences } from './generate.js';
 import { Sink } from './engine.js';
 import type { RuleCalendarInput, Convention, DateInput, Rule } from './types.js';
+import type { YearFraction } from './deps.js';
+import {
+  type DayCountPlan,
+  isOpenDay,
+  type LagPlan,
+  type ScheduleDayCountOptions,
+  type ScheduleFixingOptions,
+  type SchedulePaymentOptions,
+  fractionOf,
+  lagDate,
+  readDayCount,
+  readFixing,
+  readPayment,
+} from './accrual.js';
+
+export type { ScheduleDayCountOptions, ScheduleFixingOptions, SchedulePaymentOptions };
 
 /** Where an irregular period goes, and whether it stays short or joins its neighbour. */
 export type StubPlacement = 'short-front' | 'long-front' | 'short-back' | 'long-back';
@@ -45,6 +62,12 @@ export interface ScheduleOptions {
   readonly calendar?: RuleCalendarInput;
   /** Business-day convention for the adjusted dates (default `'none'`; needs `calendar` otherwise). */
   readonly convention?: Convention;
+  /** Each period's payment date: business days after its adjusted end (or start), on a payment calendar. */
+  readonly payment?: SchedulePaymentOptions;
+  /** Each period's fixing (reset) date: business days before its adjusted start, on a fixing calendar. */
+  readonly fixing?: ScheduleFixingOptions;
+  /** Each period's day-count fraction, exactly, under a convention of docs/day-counts.md. */
+  readonly dayCount?: ScheduleDayCountOptions;
 }
 
 /** One period of a schedule. Periods are `[start, end)`: each ends where the next starts. */
@@ -55,6 +78,12 @@ export interface SchedulePeriod {
   readonly adjustedEnd: number;
   /** `'front'` or `'back'` for the irregular (stub) period, otherwise undefined. */
   readonly stub: 'front' | 'back' | undefined;
+  /** The payment date (with the `payment` option), otherwise undefined. */
+  readonly paymentDayNumber: number | undefined;
+  /** The fixing date (with the `fixing` option), otherwise undefined. */
+  readonly fixingDayNumber: number | undefined;
+  /** The day-count fraction of the accrual period (with the `dayCount` option), otherwise undefined. */
+  readonly yearFraction: YearFraction | undefined;
 }
 
 /** A schedule: its periods in order. */
@@ -64,14 +93,20 @@ export interface Schedule {
 
 const PLACEMENTS: readonly StubPlacement[] = ['short-front', 'long-front', 'short-back', 'long-back'];
 
-function rollMonths(rollDate: number, months: number, keepMonthEnd: boolean): number {
+/**
+ * Rolls a date by whole months: `roll(months)` is the date `months` months from `rollDate`, its day kept where
+ * the month has it (the month end, under `keepMonthEnd`, when the roll date is one). The roll date is decoded once.
+ */
+function monthRoller(rollDate: number, keepMonthEnd: boolean): (months: number) => number {
   const p = packedYmdUnchecked(rollDate);
   const d = dayOfPacked(p);
   const from = monthIndexOfPacked(p);
   const eom = keepMonthEnd && d === dayCountOfMonthIndex(from);
-  const target = from + months;
-  const len = dayCountOfMonthIndex(target);
-  return firstDayNumberOfMonthIndex(target) + (eom ? len : Math.min(d, len)) - 1;
+  return (months) => {
+    const target = from + months;
+    const len = dayCountOfMonthIndex(target);
+    return firstDayNumberOfMonthIndex(target) + (eom ? len : Math.min(d, len)) - 1;
+  };
 }
 
 function stepOf(step: unknown): { unit: 'months' | 'days'; n: number } | Rule {
@@ -126,16 +161,29 @@ function tooManyPeriods(step: unknown): KalendsRangeError {
  * With a rule as the step, the rule's occurrences strictly between `start` and `end` are the interior dates;
  * a long stub joins an irregular first (front) or last (back) period to its neighbour.
  *
+ * Accrual parts, each on request: `payment` gives every period a `paymentDayNumber` (business days after its
+ * adjusted end or start, on a payment calendar), `fixing` a `fixingDayNumber` (business days before its adjusted
+ * start, on a fixing calendar), and `dayCount` its exact `yearFraction` under a day-count convention, on the
+ * adjusted or unadjusted dates; Actual/Actual (ICMA) measures a stub against its notional regular period (ICMA
+ * Rule 251). Contracts define their own conventions: a confirmation or an agreement overrides any default.
+ *
  * @example
  * ```ts
  * const s = defineSchedule({ start: '2025-01-15', end: '2026-01-31', step: { months: 3 }, stub: 'short-front', keepMonthEnd: true });
  * s.periods.map((p) => formatPlainDate(p.unadjustedStart));
  * // ['2025-01-15', '2025-01-31', '2025-04-30', '2025-07-31', '2025-10-31']
+ * const leg = defineSchedule({
+ *   start: '2025-11-16', end: '2026-05-16', step: { months: 3 }, calendar: 'us-federal', convention: 'modified-following',
+ *   payment: { businessDaysAfter: 2, from: 'end' }, fixing: { businessDaysBefore: 2 },
+ *   dayCount: { convention: 'actual-360', accrueOn: 'adjusted' },
+ * });
+ * formatPlainDate(leg.periods[0].paymentDayNumber); // '2026-02-19'
+ * leg.periods[0].yearFraction; // { numerator: 23, denominator: 90, value: 0.2555... }
  * ```
  */
 export function defineSchedule(options: ScheduleOptions): Schedule {
   if (options === undefined) throw new KalendsTypeError('options: expected { start, end, step, ... }, got undefined', { code: 'invalid-type', received: options });
-  const o = readOptions('options', options, ['start', 'end', 'step', 'stub', 'keepMonthEnd', 'calendar', 'convention']);
+  const o = readOptions('options', options, ['start', 'end', 'step', 'stub', 'keepMonthEnd', 'calendar', 'convention', 'payment', 'fixing', 'dayCount']);
   const start = dateOption('options.start', o['start']);
   const end = dateOption('options.end', o['end']);
   if (end <= start) {
@@ -155,22 +203,28 @@ export function defineSchedule(options: ScheduleOptions): Schedule {
     });
   }
   const step = stepOf(o['step']);
+  const payment = readPayment(o['payment'], cal);
+  const fixing = readFixing(o['fixing'], cal);
+  const dayCount = readDayCount(o['dayCount'], cal, 'unit' in step && step.unit === 'months' ? step.n : undefined);
   const front = stub === 'short-front' || stub === 'long-front';
   const long = stub === 'long-front' || stub === 'long-back';
   const dates: number[] = [];
   let irregular: boolean;
+  // The roll date that passed the start (front) or the end (back): the stub's notional regular date.
+  let beyond = Number.NaN;
   if ('unit' in step) {
     // Fails at once when the span holds more whole steps than a schedule may have periods.
     const steps = step.unit === 'months' ? (monthIndexOfPacked(packedYmdUnchecked(end)) - monthIndexOfPacked(packedYmdUnchecked(start))) / step.n : (end - start) / step.n;
     if (steps > MAX_SCHEDULE_PERIODS + 1) throw tooManyPeriods(o['step']);
-    const roll = (k: number): number =>
-      step.unit === 'months' ? rollMonths(front ? end : start, (front ? -k : k) * step.n, keepMonthEnd) : (front ? end - k * step.n : start + k * step.n);
+    const months = step.unit === 'months' ? monthRoller(front ? end : start, keepMonthEnd) : undefined;
+    const roll = (k: number): number => (months ? months((front ? -k : k) * step.n) : front ? end - k * step.n : start + k * step.n);
     const interior: number[] = [];
     let k = 1;
     for (;;) {
       const d = roll(k);
       if (front ? d <= start : d >= end) {
         irregular = d !== (front ? start : end);
+        beyond = d;
         break;
       }
       interior.push(d);
@@ -199,15 +253,42 @@ export function defineSchedule(options: ScheduleOptions): Schedule {
     irregular = edge.length === 0;
   }
   let stubSide: 'front' | 'back' | undefined = irregular ? (front ? 'front' : 'back') : undefined;
+  // Actual/Actual (ICMA): the regular coupon dates, with the stub's notional date in place of its irregular end.
+  let grid: number[] | undefined;
+  if (dayCount?.convention === 'actual-actual-icma') {
+    grid = dates.slice();
+    grid[front ? 0 : grid.length - 1] = beyond;
+  }
   if (irregular && long && dates.length > 2) {
     dates.splice(front ? 1 : dates.length - 2, 1);
   }
   if (dates.length === 2 && !irregular) stubSide = undefined;
-  const adjust = (d: number): number => (cal && convention !== 'none' ? cal.adjust(d, convention) : d);
+  // A business day stays where it is: only the others go through the convention (and its checks).
+  const adjust = (d: number): number => (cal && convention !== 'none' && !isOpenDay(cal, d) ? cal.adjust(d, convention) : d);
   const adjusted = dates.map(adjust);
+  if (grid && dayCount!.adjusted) grid = grid.map(adjust);
+  return Object.freeze({ periods: Object.freeze(periodsOf(dates, adjusted, stubSide, payment, fixing, dayCount, grid)) });
+}
+
+/** The periods of a schedule from its dates, with the accrual parts the options asked for. */
+function periodsOf(
+  dates: readonly number[],
+  adjusted: readonly number[],
+  stubSide: 'front' | 'back' | undefined,
+  payment: LagPlan | undefined,
+  fixing: LagPlan | undefined,
+  dayCount: DayCountPlan | undefined,
+  grid: readonly number[] | undefined,
+): SchedulePeriod[] {
   const periods: SchedulePeriod[] = [];
+  const accrual = dayCount?.adjusted ? adjusted : dates;
+  // The grid date on or before each period's start (Actual/Actual (ICMA)): periods and grid both increase.
+  let at = 0;
   for (let i = 0; i + 1 < dates.length; i++) {
     const isStub = stubSide === 'front' ? i === 0 : stubSide === 'back' ? i === dates.length - 2 : false;
+    const a = accrual[i]!;
+    const b = accrual[i + 1]!;
+    if (grid) while (at + 2 < grid.length && grid[at + 1]! <= a) at++;
     periods.push(
       Object.freeze({
         unadjustedStart: dates[i]!,
@@ -215,8 +296,11 @@ export function defineSchedule(options: ScheduleOptions): Schedule {
         adjustedStart: adjusted[i]!,
         adjustedEnd: adjusted[i + 1]!,
         stub: isStub ? stubSide : undefined,
+        paymentDayNumber: payment ? lagDate(payment, adjusted[i]!, adjusted[i + 1]!, false, i) : undefined,
+        fixingDayNumber: fixing ? lagDate(fixing, adjusted[i]!, adjusted[i + 1]!, true, i) : undefined,
+        yearFraction: dayCount ? fractionOf(dayCount, a, b, grid, at, i) : undefined,
       }),
     );
   }
-  return Object.freeze({ periods: Object.freeze(periods) });
+  return periods;
 }

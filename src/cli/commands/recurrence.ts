@@ -8,6 +8,7 @@
 import {
   type Rule,
   type RuleDefinition,
+  adjustmentOfOccurrence,
   defineRule,
   describeRule,
   formatInstant,
@@ -90,7 +91,8 @@ const scheduleCommand: Command = {
   usage: ['<rule> --from <when> (--to <when> [--end-inclusive] | --count <n>) [--json]'],
   description: `Lists the occurrences of a rule in [--from, --to), or the first --count of them from --from, as a stream.
 Date rules print dates (YYYY-MM-DD) with their weekday; rules with a time of day print instants (RFC 3339,
-UTC).
+UTC). A rule with a business-day convention also prints, for every date, the rule's date(s) that moved onto it
+(unadjusted) and why they moved (why): each weekend day by name and each holiday by name, in the order passed.
 
 ${RULE_TEXT}`,
   options: [
@@ -105,6 +107,7 @@ ${RULE_TEXT}`,
   examples: [
     `kalends schedule '{"kind":"semi-monthly","days":[15,"last"]}' --from 2025-01-01 --to 2025-04-01`,
     `kalends schedule '{"kind":"monthly","on":{"businessDay":"last"},"calendar":"us-federal"}' --from 2025-01-01 --count 3`,
+    `kalends schedule '{"kind":"monthly","on":{"day":15},"calendar":"us-federal","convention":"following"}' --from 2026-01-01 --count 3`,
     `kalends schedule 'DTSTART;TZID=America/New_York:19970902T090000\\nRRULE:FREQ=DAILY;COUNT=10' --from 1997-09-01T00:00Z --count 100`,
   ],
   async run(args, io) {
@@ -122,14 +125,25 @@ ${RULE_TEXT}`,
       if (end < from) throw new UsageError(`--to ${toText} is before --from ${fromText}`);
     }
     const dates = rule.values === 'dates';
+    // A rule that moves its dates says, for every date, which date moved there and why.
+    const convention = (rule.definition as { readonly convention?: unknown }).convention;
+    const explains = dates && convention !== undefined && convention !== 'none';
     const out = new Output(io);
-    const writer = new RowWriter(out, optionFlag(args, 'json'), dates ? ['date', 'weekday'] : ['instant']);
+    const writer = new RowWriter(out, optionFlag(args, 'json'), dates ? (explains ? ['date', 'weekday', 'unadjusted', 'why'] : ['date', 'weekday']) : ['instant']);
     let n = 0;
     const iterate = dates ? iterateOccurrenceDayNumbers : iterateOccurrenceEpochMs;
     for (const v of iterate(rule, from, { limit: count ?? MAX_OCCURRENCES })) {
       if (v >= end) break;
       n++;
-      await writer.write(dates ? { date: formatPlainDate(v), weekday: weekdayTitle(v) } : { instant: formatInstant(v) });
+      if (explains) {
+        const why = adjustmentOfOccurrence(rule, v);
+        await writer.write({
+          date: formatPlainDate(v),
+          weekday: weekdayTitle(v),
+          unadjusted: why.unadjustedDayNumbers.map(formatPlainDate).join(' '),
+          why: why.reason === '' ? null : why.reason,
+        });
+      } else await writer.write(dates ? { date: formatPlainDate(v), weekday: weekdayTitle(v) } : { instant: formatInstant(v) });
     }
     await writer.end();
     if (count === undefined && n === MAX_OCCURRENCES) {
