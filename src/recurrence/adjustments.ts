@@ -92,7 +92,8 @@ function moveOf(calendar: BusinessCalendar, convention: string, raw: number, adj
   });
 }
 
-function reasonOf(move: DateMove, convention: string): string {
+/** @internal The causes of one move in words (the warehouse's schedule table writes them per row). */
+export function reasonOfMove(move: DateMove, convention: string): string {
   const parts = move.closedDays.map((c, i) => {
     const causes = [...(c.weekend ? [`weekend: ${c.weekend}`] : []), ...c.holidays.map((h) => `holiday: ${h}`)];
     const text = causes.length > 0 ? causes.join(', ') : 'closed';
@@ -156,7 +157,7 @@ export function adjustmentOfOccurrence(rule: Rule, dayNumber: number): Occurrenc
     unadjusted.push(r);
     if (r !== d) moves.push(moveOf(cal.calendar as BusinessCalendar, c.convention, r, d, (x) => cal.isBusinessDay(x)));
   }
-  const reasons = moves.map((m) => reasonOf(m, c.convention));
+  const reasons = moves.map((m) => reasonOfMove(m, c.convention));
   const reason = moves.length > 1 ? moves.map((m, i) => `${formatPlainDate(m.unadjustedDayNumber)}: ${reasons[i]}`).join(' / ') : (reasons[0] ?? '');
   return Object.freeze({ dayNumber: d, unadjustedDayNumbers: Object.freeze(unadjusted), moves: Object.freeze(moves), reason });
 }

@@ -10,7 +10,8 @@ export { formatPlainDate, parsePlainDate, toDayNumber } from '../instant/index.j
 export { type Zone, type ZoneInput, listTransitions, nextTransition, offsetSecondsFromEpochMs, previousTransition, toZone } from '../zone/index.js';
 export { type PeriodUnit, formatOrdinalBulk, ordinalFromDayNumberBulk } from '../period/index.js';
 export { type BusinessCalendar, type Holiday, adjustDayNumber, isBusinessDay, listHolidays, nextBusinessDay, previousBusinessDay } from '../business/index.js';
-export { type Rule, type RuleDefinition, defineRule, listOccurrenceDayNumbers } from '../recurrence/index.js';
+export { type Rule, type RuleDefinition, adjustmentOfOccurrence, defineRule, listOccurrenceDayNumbers } from '../recurrence/index.js';
+export { reasonOfMove } from '../recurrence/adjustments.js';
 export { type Profile, calendarOfProfile, unitOfProfile } from '../profile/index.js';
 export { placeOfPeriod, fillTemplate, templateOfUnit, formatDayForPeople } from '../profile/labels.js';
 export { requireProfile } from '../profile/profile.js';

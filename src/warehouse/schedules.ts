@@ -8,16 +8,13 @@ import { readOptions } from '../diagnostics/index.js';
 import {
   type Profile,
   type RuleDefinition,
-  WEEKDAY_NAMES,
   adjustDayNumber,
+  adjustmentOfOccurrence,
   calendarOfProfile,
   defineRule,
-  isBusinessDay,
-  listHolidays,
   listOccurrenceDayNumbers,
+  reasonOfMove,
   requireProfile,
-  weekdayOfDayNumber,
-  dayNumberFromYmd,
 } from './deps.js';
 import { type ExportRangeOptions, exportRange, requireCalendarYears } from './dimension.js';
 import type { WarehouseTable } from './table.js';
@@ -25,8 +22,9 @@ import type { WarehouseTable } from './table.js';
 /**
  * One row per occurrence of each date rule of the profile whose unadjusted date lies in `[start, end)`:
  * `rule_name`, `rule_label`, `calendar_name`, `unadjusted_date`, `adjusted_date` (after the rule's business-day
- * convention), `moved`, `moved_because` (`holiday` or `weekend`, null when not moved) and `moved_because_detail`
- * (the holiday's name, or the weekday). Rules of instants (intraday, and RFC 5545 rules with a time) are left out:
+ * convention), `moved`, `moved_because` (`holiday` when a holiday was among the closed days it passed over, else `weekend`;
+ * null when not moved) and `moved_because_detail` (every closed day passed over, in order, with its cause:
+ * `weekend: sunday; holiday: Washington's Birthday (2026-02-16)`, as `adjustmentOfOccurrence` says it). Rules of instants (intraday, and RFC 5545 rules with a time) are left out:
  * they have no business-day adjustment.
  *
  * @example
@@ -57,12 +55,6 @@ export function scheduleTableFromProfile(profile: Profile, options?: Omit<Export
     if (cal && calName) requireCalendarYears(calName, cal, start, end);
     const plain = convention === 'none' ? rule : defineRule({ ...def, convention: 'none' } as RuleDefinition);
     const dates = listOccurrenceDayNumbers(plain, start, end);
-    const holidays = new Map<number, string>();
-    if (cal && convention !== 'none' && dates.length > 0) {
-      for (const h of listHolidays(cal, Math.max(dates[0]!, dayNumberFromYmd(cal.firstYear, 1, 1)), dates[dates.length - 1]! + 1)) {
-        holidays.set(h.dayNumber, holidays.has(h.dayNumber) ? `${holidays.get(h.dayNumber)}; ${h.name}` : h.name);
-      }
-    }
     for (const d of dates) {
       const a = cal && convention !== 'none' ? adjustDayNumber(cal, d, convention as never) : d;
       ruleName.push(name);
@@ -71,15 +63,14 @@ export function scheduleTableFromProfile(profile: Profile, options?: Omit<Export
       unadjusted.push(d);
       adjusted.push(a);
       moved.push(a !== d ? 1 : 0);
-      if (a === d) {
+      const move = a === d ? undefined : adjustmentOfOccurrence(rule, a).moves.find((m) => m.unadjustedDayNumber === d);
+      if (move === undefined) {
         because.push(null);
         detail.push(null);
-      } else if (holidays.has(d)) {
-        because.push('holiday');
-        detail.push(holidays.get(d)!);
       } else {
-        because.push(isBusinessDay(cal!, d) ? null : 'weekend');
-        detail.push(WEEKDAY_NAMES[weekdayOfDayNumber(d) - 1]!);
+        // Every closed day the convention passed over, in order: "weekend: sunday; holiday: Washington's Birthday (2026-02-16)".
+        because.push(move.closedDays.some((c) => c.holidays.length > 0) ? 'holiday' : 'weekend');
+        detail.push(reasonOfMove(move, convention));
       }
     }
   }
@@ -94,8 +85,8 @@ export function scheduleTableFromProfile(profile: Profile, options?: Omit<Export
       { name: 'unadjusted_date', type: 'date' as const, values: Int32Array.from(unadjusted), description: 'the date the rule gives' },
       { name: 'adjusted_date', type: 'date' as const, values: Int32Array.from(adjusted), description: "the date after the rule's business-day convention" },
       { name: 'moved', type: 'boolean' as const, values: Uint8Array.from(moved), description: 'whether the convention moved it' },
-      { name: 'moved_because', type: 'string' as const, values: because, description: '"holiday" or "weekend"' },
-      { name: 'moved_because_detail', type: 'string' as const, values: detail, description: "the holiday's name, or the weekday" },
+      { name: 'moved_because', type: 'string' as const, values: because, description: '"holiday" when a holiday was among the closed days it passed over, else "weekend"' },
+      { name: 'moved_because_detail', type: 'string' as const, values: detail, description: 'every closed day it passed over, in order, with its cause (the weekday, or the holiday by name)' },
     ]),
   });
 }

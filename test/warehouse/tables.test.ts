@@ -177,8 +177,13 @@ describe('schedule_occurrence', () => {
     const because = column(t, 'moved_because') as (string | null)[];
     const detail = column(t, 'moved_because_detail') as (string | null)[];
     const row = [...rule.keys()].find((i) => rule[i] === 'supplier-payments' && formatPlainDate(unadjusted[i]!) === '2026-02-15')!;
-    // 2026-02-15 is a Sunday; modified following moves it to Tuesday 17 February past Washington's Birthday (third Monday).
-    expect([formatPlainDate(adjusted[row]!), because[row], detail[row]]).toEqual(['2026-02-17', 'weekend', 'sunday']);
+    // 2026-02-15 is a Sunday; modified following moves it to Tuesday 17 February past Washington's Birthday (the
+    // third Monday of February, 5 U.S.C. 6103(a)): both causes are named, in the order the convention met them.
+    expect([formatPlainDate(adjusted[row]!), because[row], detail[row]]).toEqual(['2026-02-17', 'holiday', "weekend: sunday; holiday: Washington's Birthday (2026-02-16)"]);
+    // A move past a weekend alone says so: 2026-08-15 is a Saturday (ECMA-262 21.4.4.13 getUTCDay gives 6).
+    expect(new Date(Date.UTC(2026, 7, 15)).getUTCDay()).toBe(6);
+    const weekendRow = [...rule.keys()].find((i) => rule[i] === 'supplier-payments' && formatPlainDate(unadjusted[i]!) === '2026-08-15')!;
+    expect([formatPlainDate(adjusted[weekendRow]!), because[weekendRow], detail[weekendRow]]).toEqual(['2026-08-17', 'weekend', 'weekend: saturday; weekend: sunday (2026-08-16)']);
   });
 });
 

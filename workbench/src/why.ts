@@ -1,8 +1,7 @@
 /**
- * Why a rule's date moved, in words. The recurrence layer is gaining an API that explains each adjustment; until
- * it lands, this one function works it out from the calendar alone (isBusinessDay, listHolidays and
- * adjustDayNumber), so that swapping it for the library's answer touches nothing else: it takes the calendar, the
- * rule's date, the adjusted date and the convention, and returns one sentence.
+ * Why a rule's date moved, as one sentence for people (weekdays and dates written out, the convention in words).
+ * The recurrence layer's adjustmentOfOccurrence gives the same causes as data; the warehouse's schedule table
+ * writes them, and the browser test checks that this sentence names every one of them.
  */
 import { type BusinessCalendar, type BusinessDayConvention, adjustDayNumber, formatPlainDate, isBusinessDay, listHolidays, weekdayOfDayNumber } from 'kalends';
 
