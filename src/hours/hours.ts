@@ -12,7 +12,7 @@ import type { HoursDefinition } from './definition.js';
 import { HoursEngine } from './compile.js';
 import { normalizeHours } from './validate.js';
 
-const ENGINE = Symbol('kalends.hours.engine');
+const ENGINE = /* @__PURE__ */ Symbol('kalends.hours.engine');
 
 /**
  * Compiled, immutable opening hours. Pass them to the functions of the hours layer. They keep their

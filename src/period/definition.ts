@@ -111,7 +111,7 @@ const LAYOUTS: readonly WeekLayout[] = ['4-4-5', '4-5-4', '5-4-4', '13x4'];
 const PLACEMENTS: readonly ExtraWeekPlacement[] = ['last-period', 'first-period'];
 const NAMINGS: readonly string[] = ['end-year', 'start-year'];
 /** Words people use for the calendar units, mapped to our names (suggestions by meaning, not only spelling). */
-const UNIT_SYNONYMS: Readonly<Record<string, string>> = Object.freeze({
+const UNIT_SYNONYMS: Readonly<Record<string, string>> = /* @__PURE__ */ Object.freeze({
   daily: 'day',
   date: 'day',
   week: 'iso-week',

@@ -43,7 +43,7 @@ export type LabelFieldName =
   | 'lastDate';
 
 /** Every field a label template may name, e.g. `"Q{index} FY{yearShort}"`. */
-export const LABEL_FIELD_NAMES: readonly LabelFieldName[] = Object.freeze(
+export const LABEL_FIELD_NAMES: readonly LabelFieldName[] = /* @__PURE__ */ Object.freeze(
   Object.keys({
     label: 0,
     year: 0,
@@ -63,11 +63,11 @@ export const LABEL_FIELD_NAMES: readonly LabelFieldName[] = Object.freeze(
 );
 
 // Closed lists typed against the period layer's types: the compiler rejects a missing or an extra member.
-const LAYOUTS = Object.keys({ '4-4-5': 0, '4-5-4': 0, '5-4-4': 0, '13x4': 0 } satisfies Record<WeekLayout, 0>) as WeekLayout[];
-const PLACEMENTS = Object.keys({ 'last-period': 0, 'first-period': 0 } satisfies Record<ExtraWeekPlacement, 0>) as ExtraWeekPlacement[];
-const NAMINGS = Object.keys({ 'end-year': 0, 'start-year': 0 } satisfies Record<YearNaming, 0>) as YearNaming[];
+const LAYOUTS = /* @__PURE__ */ Object.keys({ '4-4-5': 0, '4-5-4': 0, '5-4-4': 0, '13x4': 0 } satisfies Record<WeekLayout, 0>) as WeekLayout[];
+const PLACEMENTS = /* @__PURE__ */ Object.keys({ 'last-period': 0, 'first-period': 0 } satisfies Record<ExtraWeekPlacement, 0>) as ExtraWeekPlacement[];
+const NAMINGS = /* @__PURE__ */ Object.keys({ 'end-year': 0, 'start-year': 0 } satisfies Record<YearNaming, 0>) as YearNaming[];
 /** @internal The fiscal unit kinds a profile unit may take. */
-export const FISCAL_KINDS = Object.keys({
+export const FISCAL_KINDS = /* @__PURE__ */ Object.keys({
   'fiscal-year': 0,
   'fiscal-half': 0,
   'fiscal-quarter': 0,
@@ -75,7 +75,7 @@ export const FISCAL_KINDS = Object.keys({
   'fiscal-week': 0,
 } satisfies Record<FiscalKind, 0>) as FiscalKind[];
 /** @internal The kinds of frequency rule (the recurrence layer's). */
-export const RULE_KINDS = Object.keys({
+export const RULE_KINDS = /* @__PURE__ */ Object.keys({
   days: 0,
   'business-days': 0,
   weekly: 0,
@@ -89,7 +89,7 @@ export const RULE_KINDS = Object.keys({
   rfc5545: 0,
 } satisfies Record<RuleKind, 0>) as RuleKind[];
 /** @internal The calendar units a profile unit may name. */
-export const CALENDAR_KINDS = Object.keys({
+export const CALENDAR_KINDS = /* @__PURE__ */ Object.keys({
   day: 0,
   'iso-week': 0,
   month: 0,

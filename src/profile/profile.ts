@@ -106,7 +106,7 @@ function reprefix(e: unknown, prefix: string, issues: Issues): void {
 }
 
 /** Root spellings the layers' validators use for "the definition itself". */
-const ROOT_PATHS = new Set(['', '(definition)', 'definition', 'calendar', 'rule', 'unit']);
+const ROOT_PATHS = /* @__PURE__ */ new Set(['', '(definition)', 'definition', 'calendar', 'rule', 'unit']);
 
 function nestedPath(prefix: string, path: string): string {
   if (ROOT_PATHS.has(path)) return prefix;

@@ -144,7 +144,7 @@ export class WindowCursor {
   }
 }
 
-const NO_STARTS = new Float64Array(0);
+const NO_STARTS = /* @__PURE__ */ new Float64Array(0);
 
 /**
  * @internal Validates a window spec against the edge options (`startGiven`: the caller's `startInclusive`, or
