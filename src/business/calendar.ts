@@ -18,7 +18,7 @@ import { BUNDLED_CALENDAR_NAMES, BUNDLED_DEFINITIONS, suggestCalendarNames } fro
 import { holidaysOfYear, mostHolidaysOfYears } from './rules.js';
 import { type CalendarNode, normalizeDefinition } from './validate.js';
 
-const ENGINE = /* @__PURE__ */ Symbol('kalends.business.engine');
+const ENGINE = Symbol('kalends.business.engine');
 
 /**
  * A compiled, immutable business calendar. Pass it (or a bundled calendar's name) to the functions of this

@@ -155,7 +155,7 @@ export const HOLIDAY_CAUTION =
 export type BusinessDayConvention = 'following' | 'modified-following' | 'preceding' | 'modified-preceding' | 'none';
 
 /** The conventions, in the order docs list them. */
-export const BUSINESS_DAY_CONVENTIONS: readonly BusinessDayConvention[] = /* @__PURE__ */ Object.freeze([
+export const BUSINESS_DAY_CONVENTIONS: readonly BusinessDayConvention[] = Object.freeze([
   'following',
   'modified-following',
   'preceding',

@@ -39,23 +39,23 @@ export const SHIFT_NEXT = 2;
 export const SHIFT_NEAREST = 3;
 export const SHIFT_SUBSTITUTE = 4;
 
-const SHIFT_CODES: Readonly<Record<ObservanceShift, number>> = /* @__PURE__ */ Object.freeze({
+const SHIFT_CODES: Readonly<Record<ObservanceShift, number>> = Object.freeze({
   'previous-non-weekend-day': SHIFT_PREVIOUS,
   'next-non-weekend-day': SHIFT_NEXT,
   'nearest-non-weekend-day': SHIFT_NEAREST,
   'substitute-day': SHIFT_SUBSTITUTE,
 });
-const SHIFT_NAMES = /* @__PURE__ */ Object.keys(SHIFT_CODES);
+const SHIFT_NAMES = Object.keys(SHIFT_CODES);
 
 /** Words of 0.1 for the observance shifts, so that a message can name the new spelling. */
-const SHIFT_SYNONYMS: Readonly<Record<string, string>> = /* @__PURE__ */ Object.freeze({
+const SHIFT_SYNONYMS: Readonly<Record<string, string>> = Object.freeze({
   'previous-weekday': 'previous-non-weekend-day',
   'next-weekday': 'next-non-weekend-day',
   'nearest-weekday': 'nearest-non-weekend-day',
 });
 
 const COMMON_RULE_KEYS = ['id', 'name', 'kind', 'from', 'until', 'observance', 'source'];
-const RULE_KEYS: Readonly<Record<string, readonly string[]>> = /* @__PURE__ */ Object.freeze({
+const RULE_KEYS: Readonly<Record<string, readonly string[]>> = Object.freeze({
   fixed: ['month', 'day'],
   'nth-weekday': ['month', 'weekday', 'nth'],
   'weekday-on-or-after': ['month', 'day', 'weekday'],
@@ -63,7 +63,7 @@ const RULE_KEYS: Readonly<Record<string, readonly string[]>> = /* @__PURE__ */ O
   easter: ['offset', 'computus'],
   relative: ['to', 'offset'],
 });
-const KIND_CODES: Readonly<Record<string, number>> = /* @__PURE__ */ Object.freeze({
+const KIND_CODES: Readonly<Record<string, number>> = Object.freeze({
   fixed: KIND_FIXED,
   'nth-weekday': KIND_NTH,
   'weekday-on-or-after': KIND_ON_OR_AFTER,
@@ -71,7 +71,7 @@ const KIND_CODES: Readonly<Record<string, number>> = /* @__PURE__ */ Object.free
   easter: KIND_EASTER,
   relative: KIND_RELATIVE,
 });
-const KIND_NAMES = /* @__PURE__ */ Object.keys(KIND_CODES);
+const KIND_NAMES = Object.keys(KIND_CODES);
 
 
 const listed = (names: readonly string[]): string => names.map((n) => JSON.stringify(n)).join(', ');

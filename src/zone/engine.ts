@@ -36,8 +36,8 @@ export interface ZoneTransition {
   readonly offsetAfterSeconds: number;
 }
 
-const EMPTY_F64 = /* @__PURE__ */ new Float64Array(0);
-const EMPTY_I32 = /* @__PURE__ */ new Int32Array(0);
+const EMPTY_F64 = new Float64Array(0);
+const EMPTY_I32 = new Int32Array(0);
 
 /** @internal Base of the engines. Mutable caches inside; the Zone that holds it is frozen. */
 export abstract class Engine {
@@ -288,9 +288,9 @@ export class TableEngine extends Engine {
 }
 
 /** Before this instant (1800-01-01T00:00Z) the Intl engine assumes a constant offset; test/zone checks it. */
-export const INTL_QUIET_BEFORE_MS = /* @__PURE__ */ dayNumberFromYmdUnchecked(1800, 1, 1) * 86_400_000;
+export const INTL_QUIET_BEFORE_MS = dayNumberFromYmdUnchecked(1800, 1, 1) * 86_400_000;
 /** From this instant (2200-01-01T00:00Z) the Intl engine assumes yearly repeating rules; test/zone checks it. */
-export const INTL_PERIODIC_FROM_MS = /* @__PURE__ */ dayNumberFromYmdUnchecked(2200, 1, 1) * 86_400_000;
+export const INTL_PERIODIC_FROM_MS = dayNumberFromYmdUnchecked(2200, 1, 1) * 86_400_000;
 /**
  * Sampling step of the Intl search: 2 days. Two offset changes closer than one step could hide each other; the
  * closest pair in the tz database since 1800 is 3.99 days apart (Africa/Freetown, 1939), and test/zone compares

@@ -70,7 +70,7 @@ export interface ZoneFromIdOptions {
   readonly source?: ZoneRulesSource;
 }
 
-const ENGINE: unique symbol = /* @__PURE__ */ Symbol('kalends.zone.engine');
+const ENGINE: unique symbol = Symbol('kalends.zone.engine');
 type ZoneWithEngine = Zone & { readonly [ENGINE]: Engine };
 
 function makeZone(fields: Zone, engine: Engine): Zone {
@@ -98,7 +98,7 @@ export function isZone(value: unknown): value is Zone {
 }
 
 /** The UTC zone: offset 0 at every instant. */
-export const UTC_ZONE: Zone = /* @__PURE__ */ makeZone(
+export const UTC_ZONE: Zone = makeZone(
   { id: 'UTC', canonicalId: 'UTC', source: 'fixed', tzRelease: undefined, fixedOffsetSeconds: 0 },
   new FixedEngine(0),
 );

@@ -16,7 +16,7 @@ const SUBSTITUTE = { saturday: 'substitute-day', sunday: 'substitute-day' } as c
  * already a bank holiday) for holidays on a weekend, as proclaimed; and the one-off changes made by Royal
  * Proclamation. From 1995.
  */
-export const ENGLAND_AND_WALES_BANK_HOLIDAYS: CalendarDefinition = /* @__PURE__ */ deepFreezeDefinition({
+export const ENGLAND_AND_WALES_BANK_HOLIDAYS: CalendarDefinition = deepFreezeDefinition({
   id: 'england-and-wales',
   name: 'Bank holidays in England and Wales',
   source:

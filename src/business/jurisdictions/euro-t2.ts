@@ -13,7 +13,7 @@ import { deepFreezeDefinition } from './freeze.js';
  * notice". These are not settlement days for the euro money market or for foreign exchange transactions involving
  * the euro.
  */
-export const EURO_T2_CLOSING_DAYS: CalendarDefinition = /* @__PURE__ */ deepFreezeDefinition({
+export const EURO_T2_CLOSING_DAYS: CalendarDefinition = deepFreezeDefinition({
   id: 'euro-t2',
   name: 'T2 (TARGET) closing days',
   source:

@@ -12,19 +12,19 @@ import { US_FEDERAL_HOLIDAYS } from './us-federal.js';
 export { ENGLAND_AND_WALES_BANK_HOLIDAYS, EURO_T2_CLOSING_DAYS, US_FEDERAL_HOLIDAYS };
 
 /** Bundled calendar definitions by name. */
-export const BUNDLED_DEFINITIONS: Readonly<Record<BundledCalendarName, CalendarDefinition>> = /* @__PURE__ */ Object.freeze({
+export const BUNDLED_DEFINITIONS: Readonly<Record<BundledCalendarName, CalendarDefinition>> = Object.freeze({
   'us-federal': US_FEDERAL_HOLIDAYS,
   'england-and-wales': ENGLAND_AND_WALES_BANK_HOLIDAYS,
   'euro-t2': EURO_T2_CLOSING_DAYS,
 });
 
 /** The names of the bundled calendars. */
-export const BUNDLED_CALENDAR_NAMES: readonly BundledCalendarName[] = /* @__PURE__ */ Object.freeze(
+export const BUNDLED_CALENDAR_NAMES: readonly BundledCalendarName[] = Object.freeze(
   Object.keys(BUNDLED_DEFINITIONS) as BundledCalendarName[],
 );
 
 /** Words people may type for a bundled calendar; used only to suggest the right name. */
-const HINTS: Readonly<Record<string, BundledCalendarName>> = /* @__PURE__ */ Object.freeze({
+const HINTS: Readonly<Record<string, BundledCalendarName>> = Object.freeze({
   us: 'us-federal',
   usa: 'us-federal',
   federal: 'us-federal',

@@ -12,7 +12,7 @@ import { deepFreezeDefinition } from './freeze.js';
  * on the Friday before (1 January on a Saturday is observed on 31 December of the year before), one on a Sunday on
  * the Monday after. From 1971, the first year of the Monday holidays of Pub. L. 90-363.
  */
-export const US_FEDERAL_HOLIDAYS: CalendarDefinition = /* @__PURE__ */ deepFreezeDefinition({
+export const US_FEDERAL_HOLIDAYS: CalendarDefinition = deepFreezeDefinition({
   id: 'us-federal',
   name: 'United States federal holidays',
   source:
