@@ -22,8 +22,11 @@ const ENGINE = /* @__PURE__ */ Symbol('kalends.hours.engine');
 export interface BusinessHours {
   /** The definition's `id`, or `"custom"`. */
   readonly id: string;
+  /** The definition's `name`, if any. */
   readonly name: string | undefined;
+  /** The definition's `source`, if any. */
   readonly source: string | undefined;
+  /** The definition's `caution`, if any. */
   readonly caution: string | undefined;
   /** The zone of the wall clock, as the definition names it. */
   readonly zoneId: string;
@@ -31,6 +34,7 @@ export interface BusinessHours {
   readonly calendarId: string | undefined;
   /** The years (inclusive) the hours answer for; instants outside them are refused. */
   readonly firstYear: number;
+  /** The last year (inclusive) the hours answer for. */
   readonly lastYear: number;
   /** The names of the cut-off times, in definition order. */
   readonly cutoffNames: readonly string[];

@@ -58,7 +58,9 @@ export interface ProfileWarehouseRange {
  * {@link hoursOfProfile}, which suggest the nearest name when one is misspelled.
  */
 export interface Profile {
+  /** The profile's id. */
   readonly id: string;
+  /** The profile's name for people. */
   readonly name: string;
   /** The home zone. */
   readonly zone: Zone;

@@ -41,6 +41,7 @@ export type AggregationName =
 
 /** An aggregation with its settings. */
 export interface AggregationSpec {
+  /** What to compute. */
   readonly kind: AggregationName;
   /** Input column (default: the series' first column). */
   readonly column?: string;
