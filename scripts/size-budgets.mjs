@@ -37,6 +37,15 @@ export const SETS = [
     budget: 12000,
   },
   {
+    // Not in issue 17: guards the pure annotations. Without them the six calendar units that src/period/units.ts
+    // defines at load time (DAY_UNIT ... YEAR_UNIT) bring the unit compiler into every program that touches a
+    // period: measured 9.1 kB instead of 1.0.
+    name: 'period arithmetic on a given unit',
+    imports: ['formatPeriod', 'shiftPeriod', 'firstDayNumberOfPeriod'],
+    goal: 2000,
+    budget: 2000,
+  },
+  {
     name: 'period API with bulk',
     imports: [
       'defineUnit',
