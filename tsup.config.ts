@@ -1,18 +1,26 @@
 import { defineConfig } from 'tsup';
 
+/** What the bundled library files share (the CommonJS core and the pinned tz data). */
+const bundled = { sourcemap: true, clean: false, treeshake: true, splitting: false, target: 'es2022', outDir: 'dist' } as const;
+
 export default defineConfig([
-  // The library: ESM + CJS with declarations, one entry per public subpath.
+  // The library as ES modules, one file per source module (not bundled), so that a consumer's bundler drops every
+  // module a program does not import (package.json says `sideEffects: false`). The CLI, the pinned tz data and the
+  // Node-only warehouse writer are built by the configurations below, so they are left out here.
   {
-    entry: { index: 'src/index.ts', tzdata: 'src/tzdata/index.ts' },
-    format: ['esm', 'cjs'],
-    dts: true,
+    entry: ['src/**/*.ts', '!src/cli/**', '!src/tzdata/**', '!src/warehouse/files.ts'],
+    format: ['esm'],
+    bundle: false,
+    dts: { entry: { index: 'src/index.ts' } },
     sourcemap: true,
     clean: true,
-    treeshake: true,
-    splitting: false,
     target: 'es2022',
     outDir: 'dist',
   },
+  // The library for require(): one CommonJS file, and the pinned tz data (kalends/tzdata) in both formats: it is
+  // one module, and the core never imports it.
+  { ...bundled, entry: { index: 'src/index.ts' }, format: ['cjs'], dts: true },
+  { ...bundled, entry: { tzdata: 'src/tzdata/index.ts' }, format: ['esm', 'cjs'], dts: true },
   // kalends/warehouse (Node.js): file writers, with the pure-JavaScript Parquet writer bundled in (so that the
   // package keeps zero runtime dependencies). It imports the library by the package's own name (tsconfig paths
   // map it to src/index.ts here), kept external, so that profiles and tables made with `kalends` are the same

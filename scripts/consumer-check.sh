@@ -36,6 +36,24 @@ const { parquetFromTable: fromCjs } = require('kalends/warehouse');
 if (typeof fromCjs !== 'function') throw new Error('kalends/warehouse has no CJS entry');
 console.log('subpaths ok (kalends/warehouse, kalends/profile.schema.json)');
 JS
+# The declarations as a TypeScript user sees them (module node16, ESM and CJS files): the subpaths' types fit the
+# core's (kalends/tzdata's rules source is what zoneFromId takes), with the TypeScript of this repository.
+cat > types.mts <<'TS'
+import { zoneFromId, offsetSecondsFromEpochMs, dayNumberFromYmd } from 'kalends';
+import { PINNED_TZDATA, TZDATA_RELEASE } from 'kalends/tzdata';
+import { parquetFromTable } from 'kalends/warehouse';
+const zone = zoneFromId('Europe/Dublin', { source: PINNED_TZDATA });
+const offset: number = offsetSecondsFromEpochMs(zone, dayNumberFromYmd(2025, 7, 1) * 86_400_000);
+const release: string = TZDATA_RELEASE;
+export { offset, release, parquetFromTable };
+TS
+cat > types.cts <<'TS'
+import kalends = require('kalends');
+import tzdata = require('kalends/tzdata');
+export const zone = kalends.zoneFromId('Europe/Dublin', { source: tzdata.PINNED_TZDATA });
+TS
+"$root/node_modules/.bin/tsc" --noEmit --strict --module node16 --moduleResolution node16 --target es2022 --types node --typeRoots "$root/node_modules/@types" types.mts types.cts
+echo 'TypeScript (node16, ESM and CJS) ok'
 node esm.mjs
 node cjs.cjs
 node subpaths.mjs

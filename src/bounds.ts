@@ -94,6 +94,7 @@ export const MAX_COUNT = 10_000_000;
 export const MAX_LISTED_COUNT = 100_000;
 /** Most occurrences one list or bulk call returns by default (`maxCount`), and the most it may be raised to. */
 export const DEFAULT_MAX_OCCURRENCES = 1_000_000;
+/** Most occurrences `maxCount` may ask one list or bulk call for. */
 export const MAX_OCCURRENCES = 10_000_000;
 /** Largest RFC 5545 INTERVAL accepted (RFC 5545 sets no upper bound). */
 export const MAX_RFC5545_INTERVAL = 1_000_000;

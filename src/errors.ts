@@ -35,8 +35,11 @@ export interface KalendsErrorFields {
 
 /** Options accepted by every kalends error constructor. */
 export interface KalendsErrorOptions {
+  /** The error's stable code. */
   readonly code: ErrorCode;
+  /** The value that was rejected. */
   readonly received: unknown;
+  /** Dotted path of the offending field inside a definition, when there is one. */
   readonly path?: string | undefined;
 }
 
@@ -95,8 +98,12 @@ export class KalendsSyntaxError extends SyntaxError implements KalendsErrorField
   readonly code: ErrorCode;
   readonly received: unknown;
   readonly path: string | undefined;
+  /** The 0-based index of the first character that could not be read. */
   readonly position: number;
-  constructor(message: string, options: KalendsErrorOptions & { readonly position?: number }) {
+  constructor(message: string, options: KalendsErrorOptions & {
+    /** The 0-based index of the first character that could not be read (default 0). */
+    readonly position?: number;
+  }) {
     super(message);
     this.name = 'KalendsSyntaxError';
     this.code = options.code;
@@ -127,6 +134,7 @@ export class DefinitionError extends RangeError implements KalendsErrorFields {
   readonly code: ErrorCode = 'invalid-definition';
   readonly received: unknown;
   readonly path: string | undefined;
+  /** Every fault found, each with its dotted path. */
   readonly issues: readonly DefinitionIssue[];
   constructor(issues: readonly DefinitionIssue[], received: unknown) {
     super(issues.map((i) => `${i.path}: ${i.message}`).join('; '));

@@ -2,11 +2,12 @@
  * kalends: calendar-aware time indexing. This file is the public surface and nothing else; every export is
  * documented where it is defined.
  *
- * @module
+ * @module kalends
  */
 export {
   type ErrorCode,
   type KalendsErrorFields,
+  type KalendsErrorOptions,
   type DefinitionIssue,
   KalendsRangeError,
   KalendsTypeError,

@@ -1,9 +1,9 @@
 /**
  * The workbench page's build (vite). `import 'kalends'` in the page resolves to the package's public entry as
- * package.json's `exports` names it (the built ESM bundle, `dist/index.js` today): the page runs the library a
- * browser user would install, through its public surface only, and the size it reports is that of the shipped
- * code. `npm run workbench` builds the library first; the browser test passes the sources instead when dist/ is
- * missing or older than src/ (see test/workbench/browser.test.ts).
+ * package.json's `exports` names it (`dist/index.js` today, the entry of the built ES modules): the page runs the
+ * library a browser user would install, through its public surface only, and the size it reports is that of the
+ * shipped code. `npm run workbench` builds the library first; the browser test passes the sources instead when
+ * dist/ is missing or older than src/ (see test/workbench/browser.test.ts).
  */
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';

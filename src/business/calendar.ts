@@ -27,6 +27,7 @@ const ENGINE = Symbol('kalends.business.engine');
 export interface BusinessCalendar {
   /** The definition's `id`, or `"custom"`. */
   readonly id: string;
+  /** The definition's `name`, if any. */
   readonly name: string | undefined;
   /** The legal source named by the definition. */
   readonly source: string | undefined;
@@ -38,6 +39,7 @@ export interface BusinessCalendar {
   readonly weekendNames: readonly WeekdayName[];
   /** First and last year (inclusive) the calendar answers for. */
   readonly firstYear: number;
+  /** The last year (inclusive) the calendar answers for. */
   readonly lastYear: number;
   /** The definition it was compiled from (frozen). */
   readonly definition: CalendarDefinition;
@@ -60,6 +62,7 @@ export interface Holiday {
   readonly date: string;
   /** `actualDayNumber` as `YYYY-MM-DD`. */
   readonly actualDate: string;
+  /** The holiday's name, from its rule or dated entry. */
   readonly name: string;
   /** True when the holiday was moved off a weekend day (an observed, "in lieu of" or substitute day). */
   readonly moved: boolean;
@@ -78,6 +81,7 @@ export interface Holiday {
  * ```
  */
 export class UnknownCalendarError extends KalendsRangeError {
+  /** The closest bundled calendar names (empty when none is close), also shown in the message. */
   readonly suggestions: readonly string[];
   constructor(name: string, parameter: string) {
     const suggestions = suggestCalendarNames(name);
@@ -433,7 +437,12 @@ export function nthBusinessDayOfRange(calendar: CalendarInput, start: number, en
 
 /** What {@link nthBusinessDayOfPeriod} needs of a period: its unit's first-day mapping and its ordinal. */
 export interface PeriodLike {
-  readonly unit: { firstDayNumberFromOrdinal(ordinal: number): number };
+  /** The period's unit: only its mapping from an ordinal to the period's first day is used. */
+  readonly unit: {
+    /** The first day number of the period with this ordinal. */
+    firstDayNumberFromOrdinal(ordinal: number): number;
+  };
+  /** The period's ordinal in its unit. */
   readonly ordinal: number;
 }
 

@@ -51,8 +51,11 @@ export interface HolidayRuleBase {
 
 /** A fixed month and day each year. 29 February gives a date only in leap years. */
 export interface FixedDateRule extends HolidayRuleBase {
+  /** Selects this kind of rule. */
   readonly kind: 'fixed';
+  /** The month, 1..12. */
   readonly month: number;
+  /** The day of the month. */
   readonly day: number;
 }
 
@@ -61,23 +64,33 @@ export interface FixedDateRule extends HolidayRuleBase {
  * Monday of February) gives no date that year.
  */
 export interface NthWeekdayRule extends HolidayRuleBase {
+  /** Selects this kind of rule. */
   readonly kind: 'nth-weekday';
+  /** The month, 1..12. */
   readonly month: number;
+  /** The weekday. */
   readonly weekday: WeekdayName;
+  /** Which such weekday of the month: 1 to 5, or `'last'`. */
   readonly nth: 1 | 2 | 3 | 4 | 5 | 'last';
 }
 
 /** The first given weekday on or after (or on or before) a month and day: "the Saturday from 20 June". */
 export interface WeekdayNearDateRule extends HolidayRuleBase {
+  /** Selects the direction: the weekday on or after the date, or on or before it. */
   readonly kind: 'weekday-on-or-after' | 'weekday-on-or-before';
+  /** The month of the date, 1..12. */
   readonly month: number;
+  /** The day of the date. */
   readonly day: number;
+  /** The weekday. */
   readonly weekday: WeekdayName;
 }
 
 /** `offset` days from Easter Sunday (Good Friday is -2, Easter Monday 1), by the Gregorian or Julian computus. */
 export interface EasterRule extends HolidayRuleBase {
+  /** Selects this kind of rule. */
   readonly kind: 'easter';
+  /** Days from Easter Sunday (negative before it). */
   readonly offset: number;
   /** Defaults to `'gregorian'`. `'julian'` gives the Eastern Orthodox date as a Gregorian civil date. */
   readonly computus?: 'gregorian' | 'julian';
@@ -88,9 +101,11 @@ export interface EasterRule extends HolidayRuleBase {
  * day after the fourth Thursday of November). When the other rule gives no date, neither does this one.
  */
 export interface RelativeRule extends HolidayRuleBase {
+  /** Selects this kind of rule. */
   readonly kind: 'relative';
   /** The `id` of the other rule. */
   readonly to: string;
+  /** Days from the other rule's date (negative before it). */
   readonly offset: number;
 }
 
@@ -127,15 +142,27 @@ export interface CalendarDefinition {
   /** The caution shown with the calendar: holidays change by proclamation; verify against the official calendar. */
   readonly caution?: string;
   /** The calendar this one adds to: a definition, a bundled name, or a compiled calendar (its definition is used). */
-  readonly extends?: CalendarDefinition | BundledCalendarName | string | { readonly definition: CalendarDefinition };
+  readonly extends?: CalendarDefinition | BundledCalendarName | string | {
+    /** A compiled calendar, whose definition is used. */
+    readonly definition: CalendarDefinition;
+  };
   /** Calendars combined into this one (definitions, bundled names or compiled calendars). */
-  readonly union?: readonly (CalendarDefinition | BundledCalendarName | string | { readonly definition: CalendarDefinition })[];
+  readonly union?: readonly (CalendarDefinition | BundledCalendarName | string | {
+    /** A compiled calendar, whose definition is used. */
+    readonly definition: CalendarDefinition;
+  })[];
   /** Weekend days; defaults to Saturday and Sunday (or the extended calendar's). Never all seven. */
   readonly weekend?: readonly WeekdayName[];
   /** Default observance for rules that give none; a calendar that extends this one inherits it. */
   readonly observance?: Observance;
   /** The years (inclusive) the calendar answers for; queries outside them throw a KalendsRangeError. */
-  readonly years?: { readonly from?: number; readonly until?: number };
+  readonly years?: {
+    /** The first year (inclusive). */
+    readonly from?: number;
+    /** The last year (inclusive). */
+    readonly until?: number;
+  };
+  /** The holiday rules. */
   readonly holidays?: readonly HolidayRule[];
   /** Ids of rules of the extended calendar to leave out. Only with `extends`. */
   readonly omitRules?: readonly string[];

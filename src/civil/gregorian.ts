@@ -13,8 +13,11 @@ import { readOptions, requireDayNumberArgument, requireNumberArray, requireOutAr
 
 /** A calendar date as three integers. `month` is 1..12, `day` is 1..31. */
 export interface Ymd {
+  /** The proleptic Gregorian year, numbered as in ISO 8601 (0 is 1 BC). */
   readonly year: number;
+  /** The month, 1..12. */
   readonly month: number;
+  /** The day of the month, 1..31. */
   readonly day: number;
 }
 
@@ -249,8 +252,22 @@ function dayOfMonthOfDayNumberUnchecked(dayNumber: number): number {
  */
 export function ymdFromDayNumberBulk(
   dayNumbers: ArrayLike<number>,
-  out?: { readonly years?: Int32Array; readonly months?: Int32Array; readonly days?: Int32Array },
-): { years: Int32Array; months: Int32Array; days: Int32Array } {
+  out?: {
+    /** Where to write the years (a new array when absent). */
+    readonly years?: Int32Array;
+    /** Where to write the months (a new array when absent). */
+    readonly months?: Int32Array;
+    /** Where to write the days (a new array when absent). */
+    readonly days?: Int32Array;
+  },
+): {
+  /** The year of each day. */
+  years: Int32Array;
+  /** The month of each day, 1..12. */
+  months: Int32Array;
+  /** The day of the month of each day, 1..31. */
+  days: Int32Array;
+} {
   const src = requireNumberArray('dayNumbers', dayNumbers);
   const n = src.length;
   const o = readOptions('out', out, ['years', 'months', 'days']);

@@ -18,8 +18,11 @@ import { KalendsRangeError } from '../errors.js';
 
 /** An ISO 8601 week date: week-year, week 1..53, weekday 1 (Monday)..7 (Sunday). */
 export interface IsoWeekDate {
+  /** The ISO week-year: the year of the week's Thursday. */
   readonly weekYear: number;
+  /** The week of the week-year, 1..53. */
   readonly week: number;
+  /** The ISO weekday, 1 (Monday) .. 7 (Sunday). */
   readonly weekday: number;
 }
 

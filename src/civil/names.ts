@@ -19,7 +19,7 @@ export type WeekdayName = 'monday' | 'tuesday' | 'wednesday' | 'thursday' | 'fri
  * WEEKDAY_NAMES[weekdayOfDayNumber(0) - 1]; // 'thursday' (1970-01-01)
  * ```
  */
-export const WEEKDAY_NAMES: readonly WeekdayName[] = Object.freeze([
+export const WEEKDAY_NAMES: readonly WeekdayName[] = /* @__PURE__ */ Object.freeze([
   'monday',
   'tuesday',
   'wednesday',

@@ -36,7 +36,7 @@ import {
 type Days = ArrayLike<number>;
 
 const BULK_KEYS: readonly string[] = ['couponsPerYear', 'regularStarts', 'regularEnds', 'terminationDayNumber', 'calendar'];
-const BULK_NAMES: Readonly<Record<string, string>> = Object.freeze({ regularStart: 'regularStarts', regularEnd: 'regularEnds' });
+const BULK_NAMES: Readonly<Record<string, string>> = /* @__PURE__ */ Object.freeze({ regularStart: 'regularStarts', regularEnd: 'regularEnds' });
 
 /** True when a pair is not two integer day numbers in the civil range with `b >= a` (day numbers fit in int32). */
 function badPair(a: number, b: number): boolean {

@@ -43,7 +43,7 @@ export type DayCountConvention =
  * DAY_COUNT_CONVENTIONS.includes('thirty-e-360-isda'); // true
  * ```
  */
-export const DAY_COUNT_CONVENTIONS: readonly DayCountConvention[] = Object.freeze([
+export const DAY_COUNT_CONVENTIONS: readonly DayCountConvention[] = /* @__PURE__ */ Object.freeze([
   'one-one',
   'actual-actual-isda',
   'actual-actual-icma',
@@ -64,7 +64,7 @@ export const DAY_COUNT_CONVENTIONS: readonly DayCountConvention[] = Object.freez
  * DAY_COUNT_TRADE_NAMES['thirty-e-360']; // '30E/360'
  * ```
  */
-export const DAY_COUNT_TRADE_NAMES: Readonly<Record<DayCountConvention, string>> = Object.freeze({
+export const DAY_COUNT_TRADE_NAMES: Readonly<Record<DayCountConvention, string>> = /* @__PURE__ */ Object.freeze({
   'one-one': '1/1',
   'actual-actual-isda': 'Actual/Actual (ISDA)',
   'actual-actual-icma': 'Actual/Actual (ICMA)',
@@ -83,7 +83,7 @@ export const DAY_COUNT_TRADE_NAMES: Readonly<Record<DayCountConvention, string>>
  * never accepted in place of our identifier. "Actual/365" alone is left out on purpose: the 2000 ISDA Definitions
  * used it for Actual/Actual (ISDA), others use it for Actual/365 (Fixed).
  */
-export const DAY_COUNT_SYNONYMS: Readonly<Record<string, DayCountConvention>> = Object.freeze({
+export const DAY_COUNT_SYNONYMS: Readonly<Record<string, DayCountConvention>> = /* @__PURE__ */ Object.freeze({
   '1/1': 'one-one',
   'actual/actual': 'actual-actual-isda',
   'act/act': 'actual-actual-isda',
@@ -129,7 +129,7 @@ export const DAY_COUNT_SYNONYMS: Readonly<Record<string, DayCountConvention>> = 
  * COUPONS_PER_YEAR_VALUES; // [1, 2, 3, 4, 6, 12]
  * ```
  */
-export const COUPONS_PER_YEAR_VALUES: readonly number[] = Object.freeze([1, 2, 3, 4, 6, 12]);
+export const COUPONS_PER_YEAR_VALUES: readonly number[] = /* @__PURE__ */ Object.freeze([1, 2, 3, 4, 6, 12]);
 
 /** A year fraction, exactly: `numerator / denominator` in lowest terms, and the nearest double. */
 export interface YearFraction {
@@ -187,7 +187,7 @@ export interface YearFractionBulkOptions {
 }
 
 /** @internal The option keys each convention needs (all of them are required). */
-export const NEEDED_OPTIONS: Readonly<Record<DayCountConvention, readonly string[]>> = Object.freeze({
+export const NEEDED_OPTIONS: Readonly<Record<DayCountConvention, readonly string[]>> = /* @__PURE__ */ Object.freeze({
   'one-one': [],
   'actual-actual-isda': [],
   'actual-actual-icma': ['couponsPerYear', 'regularStart', 'regularEnd'],

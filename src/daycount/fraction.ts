@@ -30,7 +30,7 @@ export function yearFractionFromParts(numerator: number, denominator: number): Y
   return Object.freeze({ numerator: n, denominator: d, value: n / d });
 }
 
-const ZERO: YearFraction = Object.freeze({ numerator: 0, denominator: 1, value: 0 });
+const ZERO: YearFraction = /* @__PURE__ */ Object.freeze({ numerator: 0, denominator: 1, value: 0 });
 
 /**
  * The year fraction of the period `[start, end)` (day numbers) under a day-count convention, exactly: the reduced

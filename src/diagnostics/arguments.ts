@@ -11,7 +11,7 @@ import { KalendsRangeError, KalendsTypeError, describeValue } from '../errors.js
 import { hasOwn } from './issues.js';
 import { didYouMean, type SuggestOptions } from './suggest.js';
 
-const EMPTY: Readonly<Record<string, unknown>> = Object.freeze({});
+const EMPTY: Readonly<Record<string, unknown>> = /* @__PURE__ */ Object.freeze({});
 
 /**
  * Reads an options object: `undefined` gives an empty object; anything but a plain object (including `null` and

@@ -56,7 +56,7 @@ export interface Table {
   readonly nextBusiness: Int32Array;
 }
 
-const EMPTY: readonly NormInterval[] = Object.freeze([]);
+const EMPTY: readonly NormInterval[] = /* @__PURE__ */ Object.freeze([]);
 
 /** The engine of one compiled definition: its normalized form and its current table. */
 export class HoursEngine {

@@ -16,7 +16,9 @@ import type { Disambiguation } from '../zone/index.js';
  * `open`) is refused: a 24-hour session is written `{ open: '00:00', close: '24:00' }`.
  */
 export interface IntervalDefinition {
+  /** When the interval opens, `HH:MM` or `HH:MM:SS`, 00:00 to 23:59:59. */
   readonly open: string;
+  /** When it closes, `HH:MM` or `HH:MM:SS`, 00:00 to 24:00; earlier than `open` for an overnight interval. */
   readonly close: string;
 }
 
@@ -39,17 +41,23 @@ export type WeekDefinition = { readonly [day in WeekdayName]?: readonly Interval
  * - `extra`: intervals added to the regular ones (alone or with `open` / `close`).
  */
 export interface SpecialDayDefinition {
+  /** Which day, as an ISO 8601 date (`YYYY-MM-DD`). */
   readonly date?: string;
+  /** Which day, as a holiday of the calendar by name or rule id (with `offset`). */
   readonly holiday?: string;
+  /** Business days from the day `holiday` is observed (default 0, the holiday itself). */
   readonly offset?: number;
   /** What the day is, for people ("Christmas Eve: early close"). */
   readonly name?: string;
+  /** `true`: no session that day. */
   readonly closed?: boolean;
+  /** The day's intervals, instead of the regular ones. */
   readonly hours?: readonly IntervalDefinition[];
   /** A late open: the day's regular intervals start no earlier than this wall time. */
   readonly open?: string;
   /** An early close: the day's regular intervals end no later than this wall time. */
   readonly close?: string;
+  /** Intervals added to the day's regular ones. */
   readonly extra?: readonly IntervalDefinition[];
   /** Cut-off times that differ on this day, by name (the others stay as `cutoffs` sets them). */
   readonly cutoffs?: Readonly<Record<string, string>>;
@@ -70,20 +78,35 @@ export interface SpecialDayDefinition {
  * - `years`: the years the hours answer for; defaults to the calendar's years (or 1900..2199 without a calendar).
  */
 export interface HoursDefinition {
+  /** A short identifier of the hours. */
   readonly id?: string;
+  /** A name for people. */
   readonly name?: string;
   /** Where the hours come from (the institution's published hours). */
   readonly source?: string;
   /** A caution to carry with the hours. */
   readonly caution?: string;
+  /** The IANA zone (or fixed offset) of the wall clock the hours are written in. */
   readonly zone: string;
+  /** The business calendar whose weekend days and holidays close the day (none by default). */
   readonly calendar?: string | CalendarDefinition | BusinessCalendar;
+  /** The regular opening intervals of each weekday. */
   readonly week: WeekDefinition;
+  /** Days that differ from the regular week, by date or relative to a named holiday. */
   readonly special?: readonly SpecialDayDefinition[];
+  /** Named cut-off times of each business day, `HH:MM` or `HH:MM:SS` (`{ payments: '17:00' }`). */
   readonly cutoffs?: Readonly<Record<string, string>>;
+  /** Accept cut-off times outside the day's sessions (default false). */
   readonly allowCutoffsOutsideSessions?: boolean;
+  /** How a wall time in a gap or an overlap becomes an instant (default `'compatible'`). */
   readonly disambiguation?: Disambiguation;
-  readonly years?: { readonly from?: number; readonly until?: number };
+  /** The years the hours answer for (default: the calendar's years, or 1900..2199 without a calendar). */
+  readonly years?: {
+    /** The first year (inclusive). */
+    readonly from?: number;
+    /** The last year (inclusive). */
+    readonly until?: number;
+  };
 }
 
 /** The caution the docs and the CLI carry with every definition of hours. */

@@ -12,7 +12,7 @@ import type { HoursDefinition } from './definition.js';
 import { HoursEngine } from './compile.js';
 import { normalizeHours } from './validate.js';
 
-const ENGINE = Symbol('kalends.hours.engine');
+const ENGINE = /* @__PURE__ */ Symbol('kalends.hours.engine');
 
 /**
  * Compiled, immutable opening hours. Pass them to the functions of the hours layer. They keep their
@@ -22,8 +22,11 @@ const ENGINE = Symbol('kalends.hours.engine');
 export interface BusinessHours {
   /** The definition's `id`, or `"custom"`. */
   readonly id: string;
+  /** The definition's `name`, if any. */
   readonly name: string | undefined;
+  /** The definition's `source`, if any. */
   readonly source: string | undefined;
+  /** The definition's `caution`, if any. */
   readonly caution: string | undefined;
   /** The zone of the wall clock, as the definition names it. */
   readonly zoneId: string;
@@ -31,6 +34,7 @@ export interface BusinessHours {
   readonly calendarId: string | undefined;
   /** The years (inclusive) the hours answer for; instants outside them are refused. */
   readonly firstYear: number;
+  /** The last year (inclusive) the hours answer for. */
   readonly lastYear: number;
   /** The names of the cut-off times, in definition order. */
   readonly cutoffNames: readonly string[];

@@ -242,17 +242,21 @@ export function toWallMs(value: unknown): number {
  * the polyfill you already use; kalends never imports one.
  */
 export interface TemporalNamespaceLike {
-  readonly Instant: { fromEpochMilliseconds(epochMilliseconds: number): unknown };
-  readonly PlainDate: new (isoYear: number, isoMonth: number, isoDay: number) => unknown;
-  readonly PlainDateTime: new (
-    isoYear: number,
-    isoMonth: number,
-    isoDay: number,
-    hour: number,
-    minute: number,
-    second: number,
-    millisecond: number,
-  ) => unknown;
+  /** `Temporal.Instant`: only `fromEpochMilliseconds` is used. */
+  readonly Instant: {
+    /** Makes a `Temporal.Instant` from epoch milliseconds. */
+    fromEpochMilliseconds(epochMilliseconds: number): unknown;
+  };
+  /** `Temporal.PlainDate`: only its constructor is used. */
+  readonly PlainDate: {
+    /** Makes a `Temporal.PlainDate` from the ISO year, month and day. */
+    new (isoYear: number, isoMonth: number, isoDay: number): unknown;
+  };
+  /** `Temporal.PlainDateTime`: only its constructor is used. */
+  readonly PlainDateTime: {
+    /** Makes a `Temporal.PlainDateTime` from the ISO year, month and day and the time of day. */
+    new (isoYear: number, isoMonth: number, isoDay: number, hour: number, minute: number, second: number, millisecond: number): unknown;
+  };
 }
 
 function requireNamespace(fn: string, ns: unknown, member: 'Instant' | 'PlainDate' | 'PlainDateTime'): void {

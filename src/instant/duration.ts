@@ -19,14 +19,23 @@ import { formatDayNumberUnchecked, formatPlainDateTime, requireWallMs } from './
  * never converted into each other: `P1D` is not `PT24H`, and `PT36H` stays 36 hours.
  */
 export interface Duration {
+  /** -1, 0 (every field zero) or 1: the sign every non-zero field shares. */
   readonly sign: -1 | 0 | 1;
+  /** Calendar years. */
   readonly years: number;
+  /** Calendar months. */
   readonly months: number;
+  /** Weeks. */
   readonly weeks: number;
+  /** Calendar days (not 24-hour periods). */
   readonly days: number;
+  /** Hours. */
   readonly hours: number;
+  /** Minutes. */
   readonly minutes: number;
+  /** Seconds. */
   readonly seconds: number;
+  /** Milliseconds. */
   readonly milliseconds: number;
 }
 

@@ -385,7 +385,7 @@ export function checkLeapSecond(sc: Scanner, f: Fields, leapSecond: LeapSecondHa
 }
 
 /** @internal */
-export const NO_ANNOTATIONS: readonly SuffixTag[] = Object.freeze([]);
+export const NO_ANNOTATIONS: readonly SuffixTag[] = /* @__PURE__ */ Object.freeze([]);
 
 /** @internal Builds the frozen result in one object literal (one shape for every result, no spreading). */
 export function makeResult(f: Fields, leapSecond: boolean, epochMs: number): ParsedInstant {

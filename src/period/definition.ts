@@ -23,7 +23,9 @@ export type YearNaming = 'end-year' | 'start-year';
 
 /** A day of the year without a year: month 1..12, day 1..(days in that month; 28 for February). */
 export interface MonthDay {
+  /** The month, 1..12. */
   readonly month: number;
+  /** The day of the month, 1..(days in that month; 28 for February). */
   readonly day: number;
 }
 
@@ -33,8 +35,11 @@ export interface MonthDay {
  * forms of 26 U.S.C. 441(f)(1) and 26 CFR 1.441-2(a)(1)(iii).
  */
 export interface YearEndRule {
+  /** The weekday the year ends on. */
   readonly weekday: WeekdayName;
+  /** The month (1..12) whose last such weekday, or the such weekday nearest whose last day, ends the year. */
   readonly month: number;
+  /** `'last'`: the last `weekday` in `month`; `'nearest'`: the `weekday` nearest the last day of `month`. */
   readonly rule: 'last' | 'nearest';
 }
 
@@ -58,23 +63,46 @@ export type FiscalKind = 'fiscal-year' | 'fiscal-half' | 'fiscal-quarter' | 'fis
 
 /** A calendar unit: day, ISO week, month, quarter, half-year, year; a week starting on any weekday; a cycle. */
 export type CalendarUnitDefinition =
-  | { readonly kind: CalendarUnitName }
-  | { readonly kind: 'week'; readonly firstWeekday: WeekdayName }
-  | { readonly kind: 'cycle'; readonly lengthDays: number; readonly anchor: string };
+  | {
+      /** A calendar unit's name. */
+      readonly kind: CalendarUnitName;
+    }
+  | {
+      /** Selects a week that starts on `firstWeekday`. */
+      readonly kind: 'week';
+      /** The first day of each week. */
+      readonly firstWeekday: WeekdayName;
+    }
+  | {
+      /** Selects a cycle of a fixed number of days. */
+      readonly kind: 'cycle';
+      /** Days in each cycle. */
+      readonly lengthDays: number;
+      /** An ISO 8601 date on which a cycle starts. */
+      readonly anchor: string;
+    };
 
 /** A fiscal unit of a year that starts on a fixed month and day (periods are months starting on that day). */
 export interface MonthFiscalDefinition {
+  /** Which fiscal unit: the year, or its halves, quarters or (monthly) periods. */
   readonly kind: Exclude<FiscalKind, 'fiscal-week'>;
+  /** The month and day on which each fiscal year starts. */
   readonly start: MonthDay;
+  /** Whether a fiscal year is named after the calendar year it ends in or the one it starts in. */
   readonly naming: YearNaming;
 }
 
 /** A fiscal unit of a 52/53-week year. `layout` is required for halves, quarters and periods. */
 export interface WeekFiscalDefinition {
+  /** Which fiscal unit: the year, or its halves, quarters, periods or weeks. */
   readonly kind: FiscalKind;
+  /** Where each 52/53-week year ends. */
   readonly yearEnd: YearEndRule;
+  /** Whether a fiscal year is named after the calendar year it ends in or the one it starts in. */
   readonly naming: YearNaming;
+  /** Weeks per period in each quarter (required for halves, quarters and periods). */
   readonly layout?: WeekLayout;
+  /** Which period of a 53-week year takes the 53rd week (default `'last-period'`). */
   readonly extraWeek?: ExtraWeekPlacement;
 }
 
@@ -111,7 +139,7 @@ const LAYOUTS: readonly WeekLayout[] = ['4-4-5', '4-5-4', '5-4-4', '13x4'];
 const PLACEMENTS: readonly ExtraWeekPlacement[] = ['last-period', 'first-period'];
 const NAMINGS: readonly string[] = ['end-year', 'start-year'];
 /** Words people use for the calendar units, mapped to our names (suggestions by meaning, not only spelling). */
-const UNIT_SYNONYMS: Readonly<Record<string, string>> = Object.freeze({
+const UNIT_SYNONYMS: Readonly<Record<string, string>> = /* @__PURE__ */ Object.freeze({
   daily: 'day',
   date: 'day',
   week: 'iso-week',

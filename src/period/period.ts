@@ -11,7 +11,9 @@ import { type PeriodUnit, type UnitCore, type UnitInput, coreOf, toUnit } from '
 
 /** A period: a compiled unit and the period's ordinal in it. Immutable. */
 export interface Period {
+  /** The unit the period belongs to. */
   readonly unit: PeriodUnit;
+  /** The period's ordinal in its unit. */
   readonly ordinal: number;
 }
 

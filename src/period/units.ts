@@ -182,14 +182,14 @@ export function toUnit(input: UnitInput, name = 'unit'): PeriodUnit {
 }
 
 /** The calendar day as a unit: ordinal = day number, label YYYY-MM-DD. */
-export const DAY_UNIT: PeriodUnit = defineUnit('day');
+export const DAY_UNIT: PeriodUnit = /* @__PURE__ */ defineUnit('day');
 /** The ISO 8601 week (Monday to Sunday, week-year by the Thursday), label YYYY-Www. */
-export const ISO_WEEK_UNIT: PeriodUnit = defineUnit('iso-week');
+export const ISO_WEEK_UNIT: PeriodUnit = /* @__PURE__ */ defineUnit('iso-week');
 /** The calendar month, ordinal year * 12 + month - 1, label YYYY-MM. */
-export const MONTH_UNIT: PeriodUnit = defineUnit('month');
+export const MONTH_UNIT: PeriodUnit = /* @__PURE__ */ defineUnit('month');
 /** The calendar quarter (January, April, July, October), ordinal year * 4 + quarter - 1, label YYYY-Qn. */
-export const QUARTER_UNIT: PeriodUnit = defineUnit('quarter');
+export const QUARTER_UNIT: PeriodUnit = /* @__PURE__ */ defineUnit('quarter');
 /** The calendar half-year, ordinal year * 2 + half - 1, label YYYY-Hn. */
-export const HALF_YEAR_UNIT: PeriodUnit = defineUnit('half-year');
+export const HALF_YEAR_UNIT: PeriodUnit = /* @__PURE__ */ defineUnit('half-year');
 /** The calendar year, ordinal = year, label YYYY. */
-export const YEAR_UNIT: PeriodUnit = defineUnit('year');
+export const YEAR_UNIT: PeriodUnit = /* @__PURE__ */ defineUnit('year');

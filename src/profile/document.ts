@@ -43,7 +43,7 @@ export type LabelFieldName =
   | 'lastDate';
 
 /** Every field a label template may name, e.g. `"Q{index} FY{yearShort}"`. */
-export const LABEL_FIELD_NAMES: readonly LabelFieldName[] = Object.freeze(
+export const LABEL_FIELD_NAMES: readonly LabelFieldName[] = /* @__PURE__ */ Object.freeze(
   Object.keys({
     label: 0,
     year: 0,
@@ -63,11 +63,11 @@ export const LABEL_FIELD_NAMES: readonly LabelFieldName[] = Object.freeze(
 );
 
 // Closed lists typed against the period layer's types: the compiler rejects a missing or an extra member.
-const LAYOUTS = Object.keys({ '4-4-5': 0, '4-5-4': 0, '5-4-4': 0, '13x4': 0 } satisfies Record<WeekLayout, 0>) as WeekLayout[];
-const PLACEMENTS = Object.keys({ 'last-period': 0, 'first-period': 0 } satisfies Record<ExtraWeekPlacement, 0>) as ExtraWeekPlacement[];
-const NAMINGS = Object.keys({ 'end-year': 0, 'start-year': 0 } satisfies Record<YearNaming, 0>) as YearNaming[];
+const LAYOUTS = /* @__PURE__ */ Object.keys({ '4-4-5': 0, '4-5-4': 0, '5-4-4': 0, '13x4': 0 } satisfies Record<WeekLayout, 0>) as WeekLayout[];
+const PLACEMENTS = /* @__PURE__ */ Object.keys({ 'last-period': 0, 'first-period': 0 } satisfies Record<ExtraWeekPlacement, 0>) as ExtraWeekPlacement[];
+const NAMINGS = /* @__PURE__ */ Object.keys({ 'end-year': 0, 'start-year': 0 } satisfies Record<YearNaming, 0>) as YearNaming[];
 /** @internal The fiscal unit kinds a profile unit may take. */
-export const FISCAL_KINDS = Object.keys({
+export const FISCAL_KINDS = /* @__PURE__ */ Object.keys({
   'fiscal-year': 0,
   'fiscal-half': 0,
   'fiscal-quarter': 0,
@@ -75,7 +75,7 @@ export const FISCAL_KINDS = Object.keys({
   'fiscal-week': 0,
 } satisfies Record<FiscalKind, 0>) as FiscalKind[];
 /** @internal The kinds of frequency rule (the recurrence layer's). */
-export const RULE_KINDS = Object.keys({
+export const RULE_KINDS = /* @__PURE__ */ Object.keys({
   days: 0,
   'business-days': 0,
   weekly: 0,
@@ -89,7 +89,7 @@ export const RULE_KINDS = Object.keys({
   rfc5545: 0,
 } satisfies Record<RuleKind, 0>) as RuleKind[];
 /** @internal The calendar units a profile unit may name. */
-export const CALENDAR_KINDS = Object.keys({
+export const CALENDAR_KINDS = /* @__PURE__ */ Object.keys({
   day: 0,
   'iso-week': 0,
   month: 0,
@@ -100,22 +100,50 @@ export const CALENDAR_KINDS = Object.keys({
 
 /** A fiscal year made of calendar months, starting on a fixed month and day. */
 export interface MonthFiscalYear {
-  readonly start: { readonly month: number; readonly day: number };
+  /** The month and day on which each fiscal year starts. */
+  readonly start: {
+    /** The month, 1..12. */
+    readonly month: number;
+    /** The day of the month. */
+    readonly day: number;
+  };
+  /** Whether a fiscal year is named after the calendar year it ends in or the one it starts in. */
   readonly naming: YearNaming;
 }
 
 /** A 52/53-week fiscal year: where it ends, how it is named, and (for quarters and periods) its week layout. */
 export interface WeekFiscalYear {
-  readonly yearEnd: { readonly weekday: WeekdayName; readonly month: number; readonly rule: 'last' | 'nearest' };
+  /** Where each year ends: on `weekday`, the last in `month` or the one nearest the month's last day. */
+  readonly yearEnd: {
+    /** The weekday the year ends on. */
+    readonly weekday: WeekdayName;
+    /** The month, 1..12. */
+    readonly month: number;
+    /** `'last'`: the last `weekday` in `month`; `'nearest'`: the `weekday` nearest the last day of `month`. */
+    readonly rule: 'last' | 'nearest';
+  };
+  /** Whether a fiscal year is named after the calendar year it ends in or the one it starts in. */
   readonly naming: YearNaming;
+  /** Weeks per period in each quarter (needed for the halves, quarters and periods of this year). */
   readonly layout?: WeekLayout;
+  /** Which period of a 53-week year takes the 53rd week (default `'last-period'`). */
   readonly extraWeek?: ExtraWeekPlacement;
 }
 
 /** A named unit of a profile: a fiscal unit derived from one of its fiscal years, or a calendar unit. */
 export type ProfileUnitDefinition =
-  | { readonly kind: FiscalKind; readonly fiscalYear: string; readonly layout?: WeekLayout }
-  | { readonly kind: CalendarUnitName };
+  | {
+      /** Which fiscal unit. */
+      readonly kind: FiscalKind;
+      /** The name of the profile's fiscal year the unit divides. */
+      readonly fiscalYear: string;
+      /** Weeks per period in each quarter, when the fiscal year gives none. */
+      readonly layout?: WeekLayout;
+    }
+  | {
+      /** A calendar unit's name. */
+      readonly kind: CalendarUnitName;
+    };
 
 /** A business calendar of a profile: a bundled or profile calendar's name, or a definition (`extends` and `union` may name profile calendars). */
 export type ProfileCalendarDefinition = string | CalendarDefinition;
@@ -131,6 +159,7 @@ export type ProfileRuleDefinition = RuleDefinition;
 export type ProfileHoursDefinition = Omit<HoursDefinition, 'zone' | 'calendar'> & {
   /** The zone of the wall clock the hours are written in (default: the profile's zone). */
   readonly zone?: string;
+  /** The business calendar: a bundled calendar's name, one of the profile's calendars by name, or a definition. */
   readonly calendar?: string | CalendarDefinition;
 };
 
@@ -160,19 +189,30 @@ export interface ProfileWarehouse {
 export interface ProfileDefinition {
   /** For editors: the JSON Schema's address (ignored by the library). */
   readonly $schema?: string;
+  /** The profile's id: lower-case words joined by hyphens. */
   readonly id: string;
+  /** A name for people. */
   readonly name: string;
   /** The home zone: an IANA id (or a fixed offset such as "+05:30"). */
   readonly zone: string;
   /** `"iso"` (ISO 8601 weeks) or weeks starting on a given weekday. */
-  readonly week: 'iso' | { readonly firstWeekday: WeekdayName };
+  readonly week: 'iso' | {
+    /** The first day of each week. */
+    readonly firstWeekday: WeekdayName;
+  };
+  /** Fiscal years by name. */
   readonly fiscalYears?: Readonly<Record<string, MonthFiscalYear | WeekFiscalYear>>;
+  /** Units by name: fiscal units of the fiscal years, or calendar units. */
   readonly units?: Readonly<Record<string, ProfileUnitDefinition>>;
+  /** Business calendars by name. */
   readonly calendars?: Readonly<Record<string, ProfileCalendarDefinition>>;
   /** The calendar used where none is named (default: the only one, when there is one). */
   readonly defaultCalendar?: string;
+  /** Frequency rules by name. */
   readonly rules?: Readonly<Record<string, ProfileRuleDefinition>>;
+  /** Labels for people. */
   readonly labels?: ProfileLabels;
+  /** The default range and zones of warehouse exports. */
   readonly warehouse?: ProfileWarehouse;
   /** Named opening hours (business time): the support desk, the payments office with its cut-offs. */
   readonly hours?: Readonly<Record<string, ProfileHoursDefinition>>;

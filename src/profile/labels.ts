@@ -20,6 +20,7 @@ export interface PeriodPlace {
   readonly year: number;
   /** 1-based position of the period in that year (the quarter number, the fiscal week number, the day of year). */
   readonly index: number;
+  /** The first day of the period. */
   readonly firstDayNumber: number;
   /** The first day after the period. */
   readonly endDayNumber: number;

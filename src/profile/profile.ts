@@ -58,7 +58,9 @@ export interface ProfileWarehouseRange {
  * {@link hoursOfProfile}, which suggest the nearest name when one is misspelled.
  */
 export interface Profile {
+  /** The profile's id. */
   readonly id: string;
+  /** The profile's name for people. */
   readonly name: string;
   /** The home zone. */
   readonly zone: Zone;
@@ -106,7 +108,7 @@ function reprefix(e: unknown, prefix: string, issues: Issues): void {
 }
 
 /** Root spellings the layers' validators use for "the definition itself". */
-const ROOT_PATHS = new Set(['', '(definition)', 'definition', 'calendar', 'rule', 'unit']);
+const ROOT_PATHS = /* @__PURE__ */ new Set(['', '(definition)', 'definition', 'calendar', 'rule', 'unit']);
 
 function nestedPath(prefix: string, path: string): string {
   if (ROOT_PATHS.has(path)) return prefix;

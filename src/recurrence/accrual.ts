@@ -52,6 +52,7 @@ export interface ScheduleFixingOptions {
 
 /** The day-count fraction of each period: a convention of docs/day-counts.md, on the dates the contract names. */
 export interface ScheduleDayCountOptions {
+  /** The day-count convention of each period's fraction (one of `DAY_COUNT_CONVENTIONS`, docs/day-counts.md). */
   readonly convention: DayCountConvention;
   /** Which dates accrue: the `'adjusted'` period ends (common for swaps) or the `'unadjusted'` ones (common for bonds). */
   readonly accrueOn: 'adjusted' | 'unadjusted';

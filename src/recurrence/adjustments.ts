@@ -18,6 +18,7 @@ import type { Rule } from './types.js';
 
 /** A day that is not a business day, and why. */
 export interface ClosedDay {
+  /** The closed day, as a day number. */
   readonly dayNumber: number;
   /** The weekday's name when it is a weekend day of the calendar, otherwise undefined. */
   readonly weekend: WeekdayName | undefined;

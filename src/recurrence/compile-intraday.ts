@@ -15,7 +15,7 @@ import { type RepeatedTime, type SkippedTime, elapsedEngine, resolveWall, wallCl
 const SKIPPED: readonly SkippedTime[] = ['later', 'drop'];
 const REPEATED: readonly RepeatedTime[] = ['earlier', 'later', 'both'];
 /** The spelling of 0.1 ("shift-forward"), so that the message names its replacement. */
-const SKIPPED_SYNONYMS: Readonly<Record<string, string>> = Object.freeze({ 'shift-forward': 'later', forward: 'later', compatible: 'later' });
+const SKIPPED_SYNONYMS: Readonly<Record<string, string>> = /* @__PURE__ */ Object.freeze({ 'shift-forward': 'later', forward: 'later', compatible: 'later' });
 
 /** Compiles an intraday rule. */
 export function compileIntraday(def: Record<string, unknown>, issues: Issues): Compiled | undefined {

@@ -125,8 +125,8 @@ export function gcd(a: number, b: number): number {
 const CYCLE_MONTHS = 4800;
 /** Days in one 400-year Gregorian cycle (146,097 = 20,871 weeks). */
 export const CYCLE_DAYS = 146_097;
-const MIN_MONTH_INDEX = monthIndexOfDayNumberUnchecked(MIN_DAY_NUMBER);
-const MAX_MONTH_INDEX = monthIndexOfDayNumberUnchecked(MAX_DAY_NUMBER);
+const MIN_MONTH_INDEX = /* @__PURE__ */ monthIndexOfDayNumberUnchecked(MIN_DAY_NUMBER);
+const MAX_MONTH_INDEX = /* @__PURE__ */ monthIndexOfDayNumberUnchecked(MAX_DAY_NUMBER);
 
 /**
  * The occurrence number k at or after `lo` of an engine whose occurrences repeat every `cycle` units: one cycle

@@ -95,7 +95,7 @@ export function adjustmentMargin(c: Compiled, lo: number, hi: number): [number, 
   return [before, after];
 }
 
-const scratchSink = new Sink(256);
+const scratchSink = /* @__PURE__ */ new Sink(256);
 
 /**
  * @internal Appends the occurrences in [lo, hi) to `out`, in strictly increasing order: raw dates within the

@@ -48,7 +48,7 @@ export interface StepOptions {
 
 type Unit = 'dates' | 'instants';
 
-const FORMS: Readonly<Record<string, readonly [string, string]>> = Object.freeze({
+const FORMS: Readonly<Record<string, readonly [string, string]>> = /* @__PURE__ */ Object.freeze({
   list: ['listOccurrenceDayNumbers', 'listOccurrenceEpochMs'],
   bulk: ['occurrenceDayNumberBulk', 'occurrenceEpochMsBulk'],
   iterate: ['iterateOccurrenceDayNumbers', 'iterateOccurrenceEpochMs'],

@@ -42,7 +42,16 @@ export type { ScheduleDayCountOptions, ScheduleFixingOptions, SchedulePaymentOpt
 export type StubPlacement = 'short-front' | 'long-front' | 'short-back' | 'long-back';
 
 /** The regular step of a schedule: months, weeks or days, or the dates of a rule. */
-export type ScheduleStep = { readonly months: number } | { readonly weeks: number } | { readonly days: number } | Rule;
+export type ScheduleStep = {
+  /** Months per regular period. */
+  readonly months: number;
+} | {
+  /** Weeks per regular period. */
+  readonly weeks: number;
+} | {
+  /** Days per regular period. */
+  readonly days: number;
+} | Rule;
 
 /** What {@link defineSchedule} needs. */
 export interface ScheduleOptions {
@@ -50,6 +59,7 @@ export interface ScheduleOptions {
   readonly start: DateInput;
   /** The end (termination) date: the last period ends here. */
   readonly end: DateInput;
+  /** The regular step: months, weeks, days, or the dates of a rule. */
   readonly step: ScheduleStep;
   /** Where the stub goes when the step does not divide the span (default `'short-front'`). */
   readonly stub?: StubPlacement;
@@ -72,9 +82,13 @@ export interface ScheduleOptions {
 
 /** One period of a schedule. Periods are `[start, end)`: each ends where the next starts. */
 export interface SchedulePeriod {
+  /** The period's start as the step gives it (a day number). */
   readonly unadjustedStart: number;
+  /** The period's end as the step gives it (a day number, exclusive). */
   readonly unadjustedEnd: number;
+  /** The start after the business-day convention (the unadjusted start when there is none). */
   readonly adjustedStart: number;
+  /** The end after the business-day convention (the unadjusted end when there is none). */
   readonly adjustedEnd: number;
   /** `'front'` or `'back'` for the irregular (stub) period, otherwise undefined. */
   readonly stub: 'front' | 'back' | undefined;
@@ -88,6 +102,7 @@ export interface SchedulePeriod {
 
 /** A schedule: its periods in order. */
 export interface Schedule {
+  /** The periods, first to last. */
   readonly periods: readonly SchedulePeriod[];
 }
 

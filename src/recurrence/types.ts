@@ -50,9 +50,22 @@ export type WhenShort = 'last-day' | 'skip';
  *   `calendar` decides which days are business days).
  */
 export type DaySelector =
-  | { readonly day: number | 'last'; readonly whenShort?: WhenShort }
-  | { readonly weekday: WeekdayInput; readonly nth: number | 'last' }
-  | { readonly businessDay: number | 'last' };
+  | {
+      /** The day of the period, from 1; negative counts from the end (-1 the last day), as does `'last'`. */
+      readonly day: number | 'last';
+      /** What happens when the period has fewer days than `day` (required for days past 28). */
+      readonly whenShort?: WhenShort;
+    }
+  | {
+      /** The weekday to pick. */
+      readonly weekday: WeekdayInput;
+      /** Which of the period's such weekdays: 1 the first, -1 or `'last'` the last. */
+      readonly nth: number | 'last';
+    }
+  | {
+      /** Which business day of the period: 1 the first, -1 or `'last'` the last (by the rule's `calendar`). */
+      readonly businessDay: number | 'last';
+    };
 
 /** Fields shared by every date rule. */
 export interface DateRuleCommon {
@@ -75,15 +88,21 @@ export interface DateRuleCommon {
 
 /** Every `every` days, counted from `anchor` (default: `start`). */
 export interface DaysRuleDefinition extends DateRuleCommon {
+  /** Selects this kind of rule. */
   readonly kind: 'days';
+  /** The step in days (default 1). */
   readonly every?: number;
+  /** The date the steps count from (default `start`; required when `every` is more than 1 and there is no `start`). */
   readonly anchor?: DateInput;
 }
 
 /** Every `every` business days of `calendar`, counted from the first business day on or after `anchor`. */
 export interface BusinessDaysRuleDefinition extends DateRuleCommon {
+  /** Selects this kind of rule. */
   readonly kind: 'business-days';
+  /** The step in business days of `calendar` (default 1). */
   readonly every?: number;
+  /** The steps count from the first business day on or after this date (default `start`). */
   readonly anchor?: DateInput;
 }
 
@@ -92,10 +111,15 @@ export interface BusinessDaysRuleDefinition extends DateRuleCommon {
  * holds `anchor` (default: `start`) is week 0.
  */
 export interface WeeklyRuleDefinition extends DateRuleCommon {
+  /** Selects this kind of rule. */
   readonly kind: 'weekly';
+  /** The weekdays of each selected week that the rule produces. */
   readonly weekdays: readonly WeekdayInput[];
+  /** Every how many weeks (default 1). */
   readonly every?: number;
+  /** A date in week 0 (default `start`). */
   readonly anchor?: DateInput;
+  /** The first day of each week (default monday). */
   readonly weekStart?: WeekdayInput;
 }
 
@@ -105,18 +129,27 @@ export interface WeeklyRuleDefinition extends DateRuleCommon {
  * `keepMonthEnd` is true; a day past 28 otherwise moves to the last day of shorter months).
  */
 export interface MonthlyRuleDefinition extends DateRuleCommon {
+  /** Selects this kind of rule. */
   readonly kind: 'monthly';
+  /** The day or days to pick in each selected month; without it, the day of `anchor`. */
   readonly on?: DaySelector | readonly DaySelector[];
+  /** Every how many months, counted from the month of `anchor` (default 1). */
   readonly every?: number;
+  /** The date whose month is month 0, and whose day is used when `on` is absent (default `start`). */
   readonly anchor?: DateInput;
+  /** Keep only these months of the year (1..12). */
   readonly months?: readonly number[];
+  /** With no `on` and an anchor on a month end: put every date on a month end (default false). */
   readonly keepMonthEnd?: boolean;
 }
 
 /** Two days in each month, such as `[15, 'last']` (days past 28 need `whenShort`). */
 export interface SemiMonthlyRuleDefinition extends DateRuleCommon {
+  /** Selects this kind of rule. */
   readonly kind: 'semi-monthly';
+  /** The two days of each month, each a day number from 1 or `'last'`. */
   readonly days: readonly (number | 'last')[];
+  /** What happens in months shorter than a day given (required for days past 28). */
   readonly whenShort?: WhenShort;
 }
 
@@ -126,11 +159,17 @@ export interface SemiMonthlyRuleDefinition extends DateRuleCommon {
  * `every` counts quarters, halves or years (counting from `anchor` when more than 1).
  */
 export interface AnchoredMonthRuleDefinition extends DateRuleCommon {
+  /** Selects the length of the step: a quarter, a half-year or a year. */
   readonly kind: 'quarterly' | 'half-yearly' | 'yearly';
+  /** A month of the year (1..12) that belongs to the schedule; the others follow by the step. */
   readonly month?: number;
+  /** The day or days to pick in each selected month; without it, the day of `anchor`. */
   readonly on?: DaySelector | readonly DaySelector[];
+  /** Every how many quarters, halves or years (default 1). */
   readonly every?: number;
+  /** A date whose month belongs to the schedule, and whose day is used when `on` is absent (default `start`). */
   readonly anchor?: DateInput;
+  /** With no `on` and an anchor on a month end: put every date on a month end (default false). */
   readonly keepMonthEnd?: boolean;
 }
 
@@ -139,11 +178,15 @@ export interface AnchoredMonthRuleDefinition extends DateRuleCommon {
  * period, a 52/53-week year. The period that holds `anchor` is period 0.
  */
 export interface PeriodsRuleDefinition extends DateRuleCommon {
+  /** Selects this kind of rule. */
   readonly kind: 'periods';
   /** A compiled period unit, a unit definition, or a calendar unit name such as `"quarter"`. */
   readonly unit: object | string;
+  /** The day or days to pick in each selected period. */
   readonly on: DaySelector | readonly DaySelector[];
+  /** Every how many periods (default 1). */
   readonly every?: number;
+  /** A date in period 0 (default `start`). */
   readonly anchor?: DateInput;
 }
 
@@ -159,16 +202,32 @@ export interface PeriodsRuleDefinition extends DateRuleCommon {
  * Renamed in 0.2: `skipped: 'shift-forward'` is `skipped: 'later'`.
  */
 export interface IntradayRuleDefinition {
+  /** Selects this kind of rule. */
   readonly kind: 'intraday';
+  /** The zone of the wall-clock times: an IANA id, an offset, or a compiled zone. */
   readonly zone: string | object;
-  readonly every: { readonly hours?: number; readonly minutes?: number };
+  /** The step: hours, minutes or both. */
+  readonly every: {
+    /** Hours of the step. */
+    readonly hours?: number;
+    /** Minutes of the step. */
+    readonly minutes?: number;
+  };
+  /** The wall-clock time the steps count from, an ISO 8601 local date-time such as `"2025-03-09T01:30"`. */
   readonly anchor: string;
+  /** `'wall'` steps local clock time; `'elapsed'` steps absolute time from the anchor's instant. */
   readonly clock: 'wall' | 'elapsed';
+  /** A wall time in a DST gap: moved forward by the gap's length (`'later'`, the default) or dropped. */
   readonly skipped?: 'later' | 'drop';
+  /** A wall time an overlap repeats: at its earlier instant (the default), its later one, or both. */
   readonly repeated?: 'earlier' | 'later' | 'both';
+  /** First instant the rule may produce (inclusive). */
   readonly start?: InstantInput;
+  /** Instants the rule produces lie before this one (exclusive). */
   readonly end?: InstantInput;
+  /** At most this many occurrences, counted from `start`. */
   readonly count?: number;
+  /** A free label shown by `describeRule` and the CLI. */
   readonly label?: string;
 }
 
@@ -177,7 +236,9 @@ export type Rfc5545Frequency = 'yearly' | 'monthly' | 'weekly' | 'daily' | 'hour
 
 /** One BYDAY entry: a weekday, with an optional ordinal (RFC 5545 `weekdaynum`, e.g. `-1SU`). */
 export interface Rfc5545WeekdayNum {
+  /** The weekday. */
   readonly weekday: WeekdayName;
+  /** Which occurrence of the weekday in the month or year (1 the first, -1 the last); absent for every one. */
   readonly nth?: number;
 }
 
@@ -186,25 +247,37 @@ export interface Rfc5545WeekdayNum {
  * the fields are the rule parts in our spelling.
  */
 export interface Rfc5545RuleDefinition {
+  /** Selects this kind of rule. */
   readonly kind: 'rfc5545';
+  /** FREQ. */
   readonly frequency: Rfc5545Frequency;
   /** DTSTART: a date (`"1997-09-02"`) or a local date-time (`"1997-09-02T09:00:00"`). */
   readonly start: string;
   /** TZID of DTSTART (an IANA id), `"UTC"` for a DTSTART in UTC; absent for a date or a floating time. */
   readonly zone?: string;
+  /** INTERVAL (default 1). */
   readonly interval?: number;
+  /** COUNT: at most this many occurrences, DTSTART included. */
   readonly count?: number;
   /** UNTIL, inclusive: a date, or an instant (RFC 3339, UTC). */
   readonly until?: string;
+  /** BYMONTH (1..12). */
   readonly byMonth?: readonly number[];
+  /** BYWEEKNO (1..53 or -53..-1). */
   readonly byWeekNo?: readonly number[];
+  /** BYYEARDAY (1..366 or -366..-1). */
   readonly byYearDay?: readonly number[];
+  /** BYMONTHDAY (1..31 or -31..-1). */
   readonly byMonthDay?: readonly number[];
+  /** BYDAY. */
   readonly byDay?: readonly Rfc5545WeekdayNum[];
+  /** BYSETPOS (1..366 or -366..-1). */
   readonly bySetPos?: readonly number[];
+  /** WKST (default monday). */
   readonly weekStart?: WeekdayName;
   /** EXDATE values: dates or local date-times in the same form as `start`. */
   readonly exclude?: readonly string[];
+  /** A free label shown by `describeRule` and the CLI. */
   readonly label?: string;
 }
 
@@ -228,7 +301,9 @@ export type RuleKind = RuleDefinition['kind'];
  * (epoch milliseconds).
  */
 export interface Rule {
+  /** The kind of the definition the rule was compiled from. */
   readonly kind: RuleKind;
+  /** What the occurrences are: `'dates'` (day numbers) or `'instants'` (epoch milliseconds). */
   readonly values: 'dates' | 'instants';
   /** The definition, frozen, as given (serialize it to store the rule). */
   readonly definition: RuleDefinition;

@@ -16,10 +16,13 @@ import { makeSeries } from './series.js';
 
 /** Options of {@link defineBucketAccumulator}. */
 export interface BucketAccumulatorOptions {
+  /** The period unit. */
   readonly unit: UnitInput;
+  /** The zone whose local days decide which period an instant falls in. */
   readonly zone: ZoneInput;
   /** Aggregations of the single value column (names or specs without `column`). */
   readonly aggregations: readonly Aggregation[];
+  /** Missing values: `'skip'` (default) or `'propagate'`. */
   readonly missing?: MissingPolicy;
 }
 
@@ -35,8 +38,11 @@ export interface BucketAccumulator {
 
 /** Options of {@link BucketAccumulator.finish}, as in {@link bucketSeries}. */
 export interface BucketFinishOptions {
+  /** Periods to report, end-exclusive. */
   readonly range?: PeriodRange;
+  /** Empty periods inside `range`: `'nan'` (default), `'zero'` or `'previous'`. */
   readonly empty?: EmptyPolicy;
+  /** The most periods `range` may hold. */
   readonly maxRows?: number;
 }
 

@@ -41,6 +41,7 @@ export type AggregationName =
 
 /** An aggregation with its settings. */
 export interface AggregationSpec {
+  /** What to compute. */
   readonly kind: AggregationName;
   /** Input column (default: the series' first column). */
   readonly column?: string;
@@ -58,7 +59,7 @@ export interface AggregationSpec {
 export type Aggregation = AggregationName | AggregationSpec;
 
 /** All aggregation names, for messages and validation. */
-export const AGGREGATION_NAMES: readonly AggregationName[] = Object.freeze([
+export const AGGREGATION_NAMES: readonly AggregationName[] = /* @__PURE__ */ Object.freeze([
   'count',
   'rows',
   'sum',
@@ -83,7 +84,7 @@ export const AGGREGATION_NAMES: readonly AggregationName[] = Object.freeze([
  * spelling). Keys are lower case with words joined by `-`, as the diagnostics kit normalizes received text.
  * @internal
  */
-export const AGGREGATION_SYNONYMS: Readonly<Record<string, AggregationName>> = Object.freeze({
+export const AGGREGATION_SYNONYMS: Readonly<Record<string, AggregationName>> = /* @__PURE__ */ Object.freeze({
   std: 'stddev',
   stdev: 'stddev',
   stdv: 'stddev',

@@ -35,7 +35,9 @@ export type MissingPolicy = 'skip' | 'propagate';
 
 /** A range of periods, end-exclusive: each end is an ordinal of the unit or a label the unit parses. */
 export interface PeriodRange {
+  /** The first period: an ordinal of the unit or a label it parses. */
   readonly start: number | string;
+  /** The period after the last one (exclusive): an ordinal or a label. */
   readonly end: number | string;
 }
 
@@ -68,7 +70,9 @@ export interface BucketOptions {
 
 /** One row per period: ordinals, labels, period bounds, and one column per aggregation. */
 export interface BucketTable {
+  /** The unit of the periods, compiled. */
   readonly unit: PeriodUnit;
+  /** The zone of the local days, compiled. */
   readonly zone: Zone;
   /** Period ordinals, ascending. */
   readonly ordinals: Int32Array;
@@ -82,6 +86,7 @@ export interface BucketTable {
   readonly rowCounts: Int32Array;
   /** Aggregated values by output name. */
   readonly columns: Readonly<Record<string, Float64Array>>;
+  /** The names of `columns`, in the order of the aggregations. */
   readonly columnNames: readonly string[];
   /** Number of periods. */
   readonly length: number;

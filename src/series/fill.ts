@@ -19,9 +19,19 @@ import { type Series, instantsFromArray, makeSeries, readColumnList, requireSeri
  * - `{ epochMs }`: any ascending instants.
  */
 export type FillGrid =
-  | { readonly unit: UnitInput; readonly zone: ZoneInput; readonly range: PeriodRange }
+  | {
+      /** The period unit. */
+      readonly unit: UnitInput;
+      /** The zone of the periods' first instants. */
+      readonly zone: ZoneInput;
+      /** The periods of the grid, end-exclusive. */
+      readonly range: PeriodRange;
+    }
   | RecurrenceGrid
-  | { readonly epochMs: ArrayLike<number> };
+  | {
+      /** Ascending instants (epoch milliseconds). */
+      readonly epochMs: ArrayLike<number>;
+    };
 
 /**
  * How a grid instant g gets its value, from the non-missing values around it:
@@ -36,6 +46,7 @@ const FILL_METHODS: readonly FillMethod[] = ['previous', 'next', 'linear'];
 
 /** Options of {@link fillSeries}. */
 export interface FillOptions {
+  /** The instants to fill onto. */
   readonly grid: FillGrid;
   /** Default `'previous'`. */
   readonly method?: FillMethod;

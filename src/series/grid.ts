@@ -13,7 +13,9 @@ import { type OptionRecord, optionOf, rowsLimitError } from './options.js';
  * the recurrence layer's `occurrenceDayNumberBulk` or `occurrenceEpochMsBulk`, as the rule's values are.
  */
 export interface RecurrenceGrid {
+  /** The recurrence rule whose occurrences make the grid. */
   readonly rule: Rule;
+  /** The zone of the local dates (for a rule of dates). */
   readonly zone: ZoneInput;
   /** Start of the range (inclusive): a day number or epoch ms (as the rule's values are), or an ISO string. */
   readonly start: number | string;

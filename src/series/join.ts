@@ -117,7 +117,9 @@ export function joinAsOf(left: Series, right: Series, options?: JoinAsOfOptions)
 
 /** Options of {@link alignSeries}. */
 export interface AlignOptions {
+  /** The period unit. */
   readonly unit: UnitInput;
+  /** The zone whose local days decide which period an instant falls in. */
   readonly zone: ZoneInput;
   /** How each series is reduced per period (default `'last'`). */
   readonly aggregation?: Aggregation;
@@ -132,14 +134,23 @@ export interface AlignOptions {
 
 /** Several series on one period index: one column per input series, NaN where a series has no rows. */
 export interface AlignedTable {
+  /** The unit of the periods, compiled. */
   readonly unit: PeriodUnit;
+  /** The zone of the local days, compiled. */
   readonly zone: Zone;
+  /** Period ordinals, ascending. */
   readonly ordinals: Int32Array;
+  /** `unit.formatOrdinal(ordinal)` for each period. */
   readonly labels: readonly string[];
+  /** First instant of each period in the zone. */
   readonly startEpochMs: Float64Array;
+  /** First instant of the next period (end-exclusive). */
   readonly endEpochMs: Float64Array;
+  /** One column per input series, by name. */
   readonly columns: Readonly<Record<string, Float64Array>>;
+  /** The names of `columns`, in the order of the input series. */
   readonly columnNames: readonly string[];
+  /** Number of periods. */
   readonly length: number;
 }
 

@@ -48,11 +48,42 @@ import { type Series, columnNamed, makeSeries, requireSeries } from './series.js
  *   period (the period's closing value); NaN when that period has no values.
  */
 export type LagAmount =
-  | { readonly rows: number }
-  | { readonly durationMs: number; readonly toleranceMs?: number }
-  | { readonly span: CalendarSpan; readonly zone: ZoneInput; readonly toleranceMs?: number }
-  | { readonly businessDays: number; readonly calendar: BusinessCalendar | string; readonly zone: ZoneInput; readonly toleranceMs?: number }
-  | { readonly periods: number; readonly unit: UnitInput; readonly zone: ZoneInput };
+  | {
+      /** How many rows back (forward for a lead). */
+      readonly rows: number;
+    }
+  | {
+      /** How far back (forward) in milliseconds. */
+      readonly durationMs: number;
+      /** How far before the target instant (after it, for a lead) the value found may lie (default: no limit). */
+      readonly toleranceMs?: number;
+    }
+  | {
+      /** The calendar span to move the row's wall-clock time by. */
+      readonly span: CalendarSpan;
+      /** The zone of the wall-clock time. */
+      readonly zone: ZoneInput;
+      /** How far before the target instant (after it, for a lead) the value found may lie (default: no limit). */
+      readonly toleranceMs?: number;
+    }
+  | {
+      /** How many business days back (forward). */
+      readonly businessDays: number;
+      /** The business calendar: a bundled name or a calendar from `defineCalendar`. */
+      readonly calendar: BusinessCalendar | string;
+      /** The zone of the local days. */
+      readonly zone: ZoneInput;
+      /** How far before the target instant (after it, for a lead) the value found may lie (default: no limit). */
+      readonly toleranceMs?: number;
+    }
+  | {
+      /** How many periods back (forward). */
+      readonly periods: number;
+      /** The period unit. */
+      readonly unit: UnitInput;
+      /** The zone whose local days decide the periods. */
+      readonly zone: ZoneInput;
+    };
 
 /** Options of {@link lagSeries} and {@link leadSeries}. */
 export interface LagOptions {
@@ -261,11 +292,15 @@ const AGAINST: readonly ('previous' | 'year-earlier')[] = ['previous', 'year-ear
 
 /** Each period's value beside its base period's value, with the change and the relative change. */
 export interface PeriodChange {
+  /** The unit of the periods, compiled. */
   readonly unit: PeriodUnit;
+  /** Period ordinals, ascending. */
   readonly ordinals: Int32Array;
+  /** `unit.formatOrdinal(ordinal)` for each period. */
   readonly labels: readonly string[];
   /** Ordinal of each base period (NaN when it has none). */
   readonly baseOrdinals: Float64Array;
+  /** Each period's value. */
   readonly value: Float64Array;
   /** The base period's value; NaN when the base period is not in the table. */
   readonly base: Float64Array;
@@ -273,6 +308,7 @@ export interface PeriodChange {
   readonly change: Float64Array;
   /** (value - base) / base, a fraction (0.05 is 5 %); NaN when base is 0 or missing. */
   readonly relativeChange: Float64Array;
+  /** Number of periods. */
   readonly length: number;
 }
 

@@ -55,10 +55,28 @@ export type CalendarSpan = string | Duration | DurationFields;
  *   `calendar` is a bundled calendar name (`'us-federal'`) or a calendar from `defineCalendar`.
  */
 export type WindowSpec =
-  | { readonly rows: number }
-  | { readonly lengthMs: number }
-  | { readonly span: CalendarSpan; readonly zone: ZoneInput }
-  | { readonly businessDays: number; readonly calendar: BusinessCalendar | string; readonly zone: ZoneInput };
+  | {
+      /** The row and the rows before it: this many in all. */
+      readonly rows: number;
+    }
+  | {
+      /** The window's length in milliseconds, ending at the row's instant. */
+      readonly lengthMs: number;
+    }
+  | {
+      /** The calendar span back from the row's wall-clock time. */
+      readonly span: CalendarSpan;
+      /** The zone of the wall-clock time. */
+      readonly zone: ZoneInput;
+    }
+  | {
+      /** The number of business days the window covers. */
+      readonly businessDays: number;
+      /** The business calendar: a bundled name or a calendar from `defineCalendar`. */
+      readonly calendar: BusinessCalendar | string;
+      /** The zone of the local days. */
+      readonly zone: ZoneInput;
+    };
 
 /** The window kinds and the keys each allows. */
 const WINDOW_KINDS = {
@@ -144,7 +162,7 @@ export class WindowCursor {
   }
 }
 
-const NO_STARTS = new Float64Array(0);
+const NO_STARTS = /* @__PURE__ */ new Float64Array(0);
 
 /**
  * @internal Validates a window spec against the edge options (`startGiven`: the caller's `startInclusive`, or

@@ -17,13 +17,24 @@ import { type Series, makeSeries, requireSeries } from './series.js';
 /** A rolling aggregation by name or with settings (`as`, `column`, `estimator`). */
 export type RollingAggregation =
   | RollingAggregationName
-  | { readonly kind: RollingAggregationName; readonly column?: string; readonly as?: string; readonly estimator?: 'sample' | 'population' };
+  | {
+      /** What to compute. */
+      readonly kind: RollingAggregationName;
+      /** Input column (default: the option `column`, else the first). */
+      readonly column?: string;
+      /** Output column name (default: the kind, or `<column>-<kind>` when `column` is given). */
+      readonly as?: string;
+      /** For `variance` and `stddev`: `'sample'` (the default) or `'population'`. */
+      readonly estimator?: 'sample' | 'population';
+    };
 
 const ROLLING_NAMES: readonly AggregationName[] = ['count', 'sum', 'mean', 'min', 'max', 'variance', 'stddev'];
 
 /** Options of {@link rollSeries}. */
 export interface RollOptions {
+  /** Which rows each row's window holds. */
   readonly window: WindowSpec;
+  /** What to compute over each window. */
   readonly aggregations: readonly RollingAggregation[];
   /** Default input column (default: the first). */
   readonly column?: string;
@@ -37,10 +48,15 @@ export interface RollOptions {
 
 /** Options of {@link rollBulk}: one aggregation, the rest as in {@link RollOptions}. */
 export interface RollBulkOptions {
+  /** Which rows each row's window holds. */
   readonly window: WindowSpec;
+  /** What to compute over each window. */
   readonly aggregation: RollingAggregation;
+  /** Fewest non-missing values a window needs for a result (default 1). */
   readonly minObservations?: number;
+  /** Whether the window's start instant belongs to it (time windows only; default false). */
   readonly startInclusive?: boolean;
+  /** Whether the window's end, the row itself, belongs to it (default true). */
   readonly endInclusive?: boolean;
 }
 

@@ -11,7 +11,7 @@
  *
  * The tz database is in the public domain.
  *
- * @module
+ * @module kalends/tzdata
  */
 import type { ZoneRulesData, ZoneRulesSource } from '../zone/zone.js';
 import { PINNED_DATA, PINNED_NAMES, TZDATA_RELEASE } from './data.js';

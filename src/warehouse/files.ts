@@ -7,7 +7,7 @@
  * This module uses the library's public surface only (like the CLI), so profiles and tables made with `kalends`
  * are the ones it takes.
  *
- * @module
+ * @module kalends/warehouse
  */
 import { closeSync, existsSync, fsyncSync, mkdirSync, openSync, renameSync, rmSync, writeSync } from 'node:fs';
 import { join } from 'node:path';
@@ -88,7 +88,9 @@ export function parquetFromTable(table: WarehouseTable): Uint8Array {
 
 /** One file of an export: its name in the directory and a function that makes its content. */
 export interface ExportFile {
+  /** The file's name in the directory. */
   readonly name: string;
+  /** Makes the file's content: text or bytes. */
   readonly content: () => string | Uint8Array;
 }
 

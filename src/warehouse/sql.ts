@@ -19,6 +19,7 @@ const FORMATS: readonly LoadFormat[] = ['csv', 'parquet'];
 
 /** Options of {@link formatLoadSql}. */
 export interface LoadSqlOptions {
+  /** The SQL engine the statements are written for: `'duckdb'` or `'postgresql'`. */
   readonly dialect: SqlDialect;
   /** The files to read: `csv` (both dialects) or `parquet` (DuckDB). */
   readonly format: LoadFormat;

@@ -14,15 +14,60 @@ export type WarehouseColumnType = 'int32' | 'int64' | 'boolean' | 'date' | 'stri
  * `valid` (when present) marks the rows that hold a value: 0 is SQL NULL.
  */
 export type WarehouseColumn =
-  | { readonly name: string; readonly type: 'int32' | 'date'; readonly values: Int32Array; readonly valid?: Uint8Array; readonly description: string }
-  | { readonly name: string; readonly type: 'int64'; readonly values: Float64Array; readonly valid?: Uint8Array; readonly description: string }
-  | { readonly name: string; readonly type: 'boolean'; readonly values: Uint8Array; readonly valid?: Uint8Array; readonly description: string }
-  | { readonly name: string; readonly type: 'string'; readonly values: readonly (string | null)[]; readonly description: string };
+  | {
+      /** The column's name (a SQL identifier). */
+      readonly name: string;
+      /** `int32`, or `date` for day numbers. */
+      readonly type: 'int32' | 'date';
+      /** One value per row. */
+      readonly values: Int32Array;
+      /** 1 for a row that holds a value, 0 for SQL NULL; absent when every row holds one. */
+      readonly valid?: Uint8Array;
+      /** What the column holds, for the SQL file's comments. */
+      readonly description: string;
+    }
+  | {
+      /** The column's name (a SQL identifier). */
+      readonly name: string;
+      /** `int64`: epoch milliseconds. */
+      readonly type: 'int64';
+      /** One value per row, each an integer. */
+      readonly values: Float64Array;
+      /** 1 for a row that holds a value, 0 for SQL NULL; absent when every row holds one. */
+      readonly valid?: Uint8Array;
+      /** What the column holds, for the SQL file's comments. */
+      readonly description: string;
+    }
+  | {
+      /** The column's name (a SQL identifier). */
+      readonly name: string;
+      /** `boolean`. */
+      readonly type: 'boolean';
+      /** One value per row: 1 for true, 0 for false. */
+      readonly values: Uint8Array;
+      /** 1 for a row that holds a value, 0 for SQL NULL; absent when every row holds one. */
+      readonly valid?: Uint8Array;
+      /** What the column holds, for the SQL file's comments. */
+      readonly description: string;
+    }
+  | {
+      /** The column's name (a SQL identifier). */
+      readonly name: string;
+      /** `string`. */
+      readonly type: 'string';
+      /** One value per row; null is SQL NULL. */
+      readonly values: readonly (string | null)[];
+      /** What the column holds, for the SQL file's comments. */
+      readonly description: string;
+    };
 
 /** A table for a warehouse: a name (a SQL identifier), its rows' count and its columns, all of that length. */
 export interface WarehouseTable {
+  /** The table's name (a SQL identifier). */
   readonly name: string;
+  /** The number of rows. */
   readonly rowCount: number;
+  /** The columns, each of `rowCount` values. */
   readonly columns: readonly WarehouseColumn[];
   /** What one row is, for the SQL file's comments. */
   readonly description: string;

@@ -31,8 +31,11 @@ export interface Chunk {
 
 /** A transition: the instant and the offsets before and after it. */
 export interface ZoneTransition {
+  /** The instant of the transition (epoch milliseconds). */
   readonly epochMs: number;
+  /** The offset before the transition (seconds east of UTC). */
   readonly offsetBeforeSeconds: number;
+  /** The offset after the transition (seconds east of UTC). */
   readonly offsetAfterSeconds: number;
 }
 

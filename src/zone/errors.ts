@@ -16,6 +16,7 @@ import { KalendsRangeError, KalendsSyntaxError, describeValue } from '../errors.
  * ```
  */
 export class UnknownZoneError extends KalendsRangeError {
+  /** The closest valid ids by edit distance (at most three; empty when none is close). */
   readonly suggestions: readonly string[];
   constructor(name: string, id: unknown, suggestions: readonly string[], where = "the runtime's Intl time zone list") {
     const hint = suggestions.length > 0 ? `; did you mean ${suggestions.map((s) => JSON.stringify(s)).join(' or ')}?` : '';
@@ -39,7 +40,9 @@ export class UnknownZoneError extends KalendsRangeError {
  * ```
  */
 export class WallTimeRejectedError extends KalendsRangeError {
+  /** `'gap'` when the clocks skipped the wall time, `'overlap'` when they showed it twice. */
   readonly kind: 'gap' | 'overlap';
+  /** The id of the zone. */
   readonly zoneId: string;
   constructor(message: string, kind: 'gap' | 'overlap', zoneId: string, wallMs: number) {
     super(message, { code: kind === 'gap' ? 'skipped-time' : 'repeated-time', received: wallMs });

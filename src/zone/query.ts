@@ -42,57 +42,86 @@ export type Disambiguation = 'compatible' | 'earlier' | 'later' | 'reject';
  * times `[startWallMs, endWallMs)` the transition skipped (a gap) or repeated (an overlap).
  */
 export type WallResolution =
-  | { readonly kind: 'unique'; readonly epochMs: number; readonly offsetSeconds: number }
   | {
+      /** The wall time happens once. */
+      readonly kind: 'unique';
+      /** Its instant. */
+      readonly epochMs: number;
+      /** The zone's offset at that instant. */
+      readonly offsetSeconds: number;
+    }
+  | {
+      /** The zone's clocks skipped the wall time. */
       readonly kind: 'gap';
       /** The transition that skipped this wall time. */
       readonly transitionEpochMs: number;
-      /** Offset before and after the transition. */
+      /** Offset before the transition (seconds east of UTC). */
       readonly offsetBeforeSeconds: number;
+      /** Offset after the transition (seconds east of UTC). */
       readonly offsetAfterSeconds: number;
-      /** The skipped wall-clock range [startWallMs, endWallMs). */
+      /** Start of the skipped wall-clock range [startWallMs, endWallMs). */
       readonly startWallMs: number;
+      /** End of the skipped wall-clock range (exclusive). */
       readonly endWallMs: number;
     }
   | {
+      /** The zone's clocks showed the wall time twice. */
       readonly kind: 'overlap';
       /** The transition after which this wall time came round again. */
       readonly transitionEpochMs: number;
-      /** Offset before and after the transition. */
+      /** Offset before the transition (seconds east of UTC). */
       readonly offsetBeforeSeconds: number;
+      /** Offset after the transition (seconds east of UTC). */
       readonly offsetAfterSeconds: number;
-      /** The repeated wall-clock range [startWallMs, endWallMs). */
+      /** Start of the repeated wall-clock range [startWallMs, endWallMs). */
       readonly startWallMs: number;
+      /** End of the repeated wall-clock range (exclusive). */
       readonly endWallMs: number;
-      /** The instant of this wall time before the transition (the earlier one), and after it (the later one). */
+      /** The instant of this wall time before the transition (the earlier one). */
       readonly epochMsBeforeTransition: number;
+      /** The instant of this wall time after the transition (the later one). */
       readonly epochMsAfterTransition: number;
     };
 
 /** A local date-time as fields, with the zone's offset and the ISO weekday. */
 export interface WallFields {
+  /** The local year. */
   readonly year: number;
+  /** The local month, 1..12. */
   readonly month: number;
+  /** The local day of the month, 1..31. */
   readonly day: number;
+  /** The local hour, 0..23. */
   readonly hour: number;
+  /** The minute, 0..59. */
   readonly minute: number;
+  /** The second, 0..59. */
   readonly second: number;
+  /** The millisecond, 0..999. */
   readonly millisecond: number;
   /** Local day number (days since 1970-01-01). */
   readonly dayNumber: number;
   /** ISO weekday, 1 = Monday .. 7 = Sunday. */
   readonly weekday: number;
+  /** The zone's offset at the instant (seconds east of UTC). */
   readonly offsetSeconds: number;
 }
 
 /** Input fields of {@link epochMsFromWallFields}: year, month and day required, the rest default to 0. */
 export interface WallFieldsInput {
+  /** The year. */
   readonly year: number;
+  /** The month, 1..12. */
   readonly month: number;
+  /** The day of the month, 1..31. */
   readonly day: number;
+  /** The hour, 0..23 (default 0). */
   readonly hour?: number;
+  /** The minute, 0..59 (default 0). */
   readonly minute?: number;
+  /** The second, 0..59 (default 0). */
   readonly second?: number;
+  /** The millisecond, 0..999 (default 0). */
   readonly millisecond?: number;
 }
 

@@ -46,11 +46,17 @@ export type ZoneInput = Zone | string;
  * instants after the last transition. The pinned module `kalends/tzdata` produces these.
  */
 export interface ZoneRulesData {
+  /** The zone's id. */
   readonly id: string;
+  /** The tz database release the rules come from, when known (such as `"2025b"`). */
   readonly tzRelease?: string | undefined;
+  /** The offset (seconds east of UTC) before the first transition. */
   readonly initialOffsetSeconds: number;
+  /** The instants of the transitions, in seconds since the epoch, ascending. */
   readonly transitionsSeconds: ArrayLike<number>;
+  /** The offset (seconds east of UTC) from each transition on; as long as `transitionsSeconds`. */
   readonly offsetsSeconds: ArrayLike<number>;
+  /** A POSIX TZ string (RFC 8536 section 3.3) for the instants after the last transition. */
   readonly tailRule?: string | undefined;
 }
 
@@ -236,7 +242,10 @@ function rulesZone(
  * offsetSecondsFromEpochMs(ny, Date.UTC(2025, 6, 1)); // -14400
  * ```
  */
-export function zoneFromTzif(bytes: Uint8Array, id = 'TZif', options?: { readonly tzRelease?: string }): Zone {
+export function zoneFromTzif(bytes: Uint8Array, id = 'TZif', options?: {
+  /** The tz database release of the file, when known (such as `"2025b"`). */
+  readonly tzRelease?: string;
+}): Zone {
   if (typeof id !== 'string' || id === '') {
     throw new KalendsTypeError(`id: expected a non-empty string naming the zone, got ${describeValue(id)}`, { code: 'invalid-type', received: id });
   }

@@ -1,17 +1,26 @@
 /**
  * Conformance of the built package (dist/), not only of the sources: the ESM and CJS entry points expose the same
- * names as src/index.ts, the declarations exist, the core bundle carries no pinned tz data, and package.json keeps
+ * names as src/index.ts, the declarations exist, the core carries no pinned tz data, and package.json keeps
  * its promises (no runtime dependencies, sideEffects false, an exports map). `npm test` builds before it runs.
+ * The ESM core is one file per source module; "the core" below is everything dist/index.js reaches, bundled with
+ * esbuild as a consumer's bundler would.
  */
 import { describe, expect, it } from 'vitest';
 import { createRequire } from 'node:module';
 import { existsSync, readFileSync } from 'node:fs';
 import { fileURLToPath, pathToFileURL } from 'node:url';
+import { build } from 'esbuild';
 import * as source from '../../src/index.js';
 
 const root = fileURLToPath(new URL('../../', import.meta.url));
 const dist = (f: string) => `${root}dist/${f}`;
 const built = existsSync(dist('index.js'));
+
+/** The ESM core as one text: dist/index.js and every module it imports, bundled (not minified). */
+async function coreText(): Promise<string> {
+  const out = await build({ entryPoints: [dist('index.js')], bundle: true, write: false, format: 'esm', platform: 'neutral', logLevel: 'silent' });
+  return out.outputFiles[0]!.text;
+}
 
 describe.skipIf(!built && !process.env.CI)('built package', () => {
   it('ESM entry exports exactly the names of src/index.ts', async () => {
@@ -51,17 +60,29 @@ describe.skipIf(!built && !process.env.CI)('built package', () => {
     expect(new TextDecoder().decode(bytes.subarray(bytes.length - 4))).toBe('PAR1');
   });
 
-  it('the core bundle does not contain the Parquet writer, and the schema file ships at its subpath', () => {
-    expect(readFileSync(dist('index.js'), 'utf8')).not.toMatch(/hyparquet|PAR1/);
+  it('the core (ESM modules and the CJS file) does not contain the Parquet writer, and the schema file ships at its subpath', async () => {
+    const core = await coreText();
+    expect(core).toMatch(/function dayNumberFromYmd\b/); // the bundle is the core
+    expect(core).not.toMatch(/hyparquet|PAR1/);
+    expect(readFileSync(dist('index.cjs'), 'utf8')).not.toMatch(/hyparquet|PAR1/);
     const pkg = JSON.parse(readFileSync(`${root}package.json`, 'utf8')) as { exports: Record<string, unknown>; files: string[] };
     expect(pkg.exports['./profile.schema.json']).toBe('./schema/profile.schema.json');
     expect(pkg.files).toContain('schema');
   });
 
-  it('the core bundle does not contain the pinned tz data module', () => {
-    const core = readFileSync(dist('index.js'), 'utf8');
+  it('the core (ESM modules and the CJS file) does not contain the pinned tz data module', async () => {
     const pinned = readFileSync(dist('tzdata.js'), 'utf8');
     expect(pinned).toMatch(/TZDATA_RELEASE/);
-    expect(core).not.toMatch(/TZDATA_RELEASE/);
+    expect(await coreText()).not.toMatch(/TZDATA_RELEASE/);
+    expect(readFileSync(dist('index.cjs'), 'utf8')).not.toMatch(/TZDATA_RELEASE/);
+  });
+
+  it('the ESM core is one module per source module, so that a bundler can leave out the modules a program does not import', () => {
+    // One dist module for each source module of a layer the core exports (src/cli, src/tzdata and the Node-only
+    // src/warehouse/files.ts are built as bundles of their own).
+    for (const m of ['civil/gregorian.js', 'instant/text.js', 'zone/engine.js', 'period/units.js', 'business/jurisdictions/us-federal.js', 'series/bucket.js']) {
+      expect(existsSync(dist(m)), m).toBe(true);
+    }
+    expect(readFileSync(dist('index.js'), 'utf8')).not.toMatch(/function /);
   });
 });
