@@ -128,7 +128,9 @@ export interface Command {
 
 /** The help page of a command: usage, description, options table, examples, exit codes. */
 export function helpOf(command: Command): string {
-  const options = [...command.options, HELP_OPTION];
+  // Every command takes --profile (main.ts reads it before the command runs); its help says so.
+  const profile = command.options.some((o) => o.name === PROFILE_OPTION.name) ? [] : [PROFILE_OPTION];
+  const options = [...command.options, ...profile, HELP_OPTION];
   const heads = options.map((o) => `--${o.name}${o.value ? ` ${o.value}` : ''}`);
   const width = Math.max(...heads.map((h) => h.length)) + 2;
   const table = options.map((o, i) => `  ${heads[i]!.padEnd(width)}${wrap(o.text, HELP_WIDTH - 2 - width).join(`\n  ${' '.repeat(width)}`)}`);

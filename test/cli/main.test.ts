@@ -74,6 +74,8 @@ describe('kalends CLI frame', () => {
       const sections = help.split('\n').filter((l) => /^[A-Z][a-z]+( codes)?$/.test(l));
       expect(sections, c.name).toEqual(['Options', 'Examples', 'Exit codes']);
       expect(c.options.some((o) => o.name === 'json'), c.name).toBe(true);
+      // --profile is read for every command (main.ts), so every help page lists it once.
+      expect(help.match(/^  --profile\b/gm)?.length, c.name).toBe(1);
       for (const o of [...c.options, { name: 'help' }]) expect(help, c.name).toMatch(new RegExp(`^  --${o.name}\\b`, 'm'));
       for (const e of c.examples) expect(e.startsWith(`kalends ${c.name} `) || e.includes(`| kalends ${c.name} `), e).toBe(true);
       expect(help.trimEnd().split('\n').at(-1)).toMatch(/^ {2}0 done, 1 .*, 2 usage error/);
