@@ -24,6 +24,7 @@ const MAX_TRANSITIONS_WALKED = 100_000;
 import { type PeriodUnit, toUnit } from '../period/index.js';
 import {
   type BusinessCalendar,
+  UnknownCalendarError,
   adjustDayNumber,
   calendarFromName,
   countBusinessDays,
@@ -50,7 +51,14 @@ function isCompiledCalendar(v: Record<string, unknown>): boolean {
 /** A business calendar from a compiled calendar, a calendar definition, or the name of a bundled calendar. */
 export function businessOps(input: unknown, path: string): BusinessOps {
   let cal: BusinessCalendar;
-  if (typeof input === 'string') cal = calendarFromName(input);
+  if (typeof input === 'string') {
+    try {
+      cal = calendarFromName(input);
+    } catch (e) {
+      if (e instanceof UnknownCalendarError) throw new UnknownCalendarError(input, path);
+      throw e;
+    }
+  }
   else if (isObject(input)) cal = isCompiledCalendar(input) ? (input as unknown as BusinessCalendar) : defineCalendar(input as never);
   else {
     throw new KalendsTypeError(`${path}: expected a business calendar, its definition, or a bundled calendar name such as "us-federal", got ${describeValue(input)}`, {

@@ -13,4 +13,4 @@ export { type BusinessCalendar, type Holiday, adjustDayNumber, isBusinessDay, li
 export { type Rule, type RuleDefinition, defineRule, listOccurrenceDayNumbers } from '../recurrence/index.js';
 export { type Profile, calendarOfProfile, unitOfProfile } from '../profile/index.js';
 export { placeOfPeriod, fillTemplate, templateOfUnit, formatDayForPeople } from '../profile/labels.js';
-export { requireProfile } from '../profile/profile.js';
+export { calendarNamed, requireProfile } from '../profile/profile.js';
