@@ -9,12 +9,15 @@ import {
   formatLabelForPeople,
   formatPeriod,
   formatPlainDate,
+  hoursOfProfile,
   listOccurrenceDayNumbers,
+  parseInstant,
   periodFromEpochMs,
   ruleOfProfile,
   scheduleTableFromProfile,
   transitionTableFromZones,
   unitOfProfile,
+  valueDayNumberOfEpochMs,
 } from '../../src/index.js';
 import type { DemoSection } from '../demo.js';
 import otterbrook from '../otterbrook.profile.json';
@@ -35,6 +38,10 @@ export const section: DemoSection = {
     print(`  that day for people: ${formatDayForPeople(profile, dayNumberFromYmd(2025, 9, 30))}`);
     const cal = calendarOfProfile(profile);
     print(`  business days in 2026 (calendar "${profile.defaultCalendarName}"): ${countBusinessDays(cal, dayNumberFromYmd(2026, 1, 1), dayNumberFromYmd(2027, 1, 1))}`);
+    // The hours the business-time section wrote out by hand, now from the profile by name.
+    const office = hoursOfProfile(profile, 'payments-office');
+    const late = parseInstant('2025-11-26T17:30:00-06:00').epochMs;
+    print(`  hours ${Object.keys(profile.hours).join(', ')}; a payment instructed 2025-11-26 17:30 in Chicago (after the 17:00 cut-off, before Thanksgiving Day) takes value date ${formatPlainDate(valueDayNumberOfEpochMs(office, late, 'payments'))}`);
 
     // The warehouse tables of 2026: the dimension, the zones' offset periods, the rules' occurrences.
     const dim = dimensionTableFromProfile(profile, { start: '2026-01-01', end: '2027-01-01' });

@@ -1,6 +1,6 @@
 /**
  * @internal The one place where the profile layer touches the layers below it (civil, zone, period, business,
- * recurrence), so that their public names appear here once. Renames in those layers are reconciled in this file.
+ * recurrence, hours), so that their public names appear here once. Renames in those layers are reconciled in this file.
  *
  * @module
  */
@@ -27,3 +27,4 @@ export {
   defineCalendar,
 } from '../business/index.js';
 export { type Rule, type RuleDefinition, type RuleKind, defineRule } from '../recurrence/index.js';
+export { type BusinessHours, type HoursDefinition, defineHours } from '../hours/index.js';

@@ -6,7 +6,7 @@
  *
  * @module
  */
-import { MAX_YEAR, MIN_YEAR } from '../bounds.js';
+import { MAX_HOURS_CUTOFFS, MAX_HOURS_INTERVALS_PER_DAY, MAX_YEAR, MIN_YEAR } from '../bounds.js';
 import type { Shape } from './shape.js';
 import {
   type BusinessDayConvention,
@@ -14,6 +14,7 @@ import {
   type CalendarUnitName,
   type ExtraWeekPlacement,
   type FiscalKind,
+  type HoursDefinition,
   type RuleDefinition,
   type RuleKind,
   type WeekLayout,
@@ -122,6 +123,17 @@ export type ProfileCalendarDefinition = string | CalendarDefinition;
 /** A frequency rule of a profile: a rule definition whose `calendar` (and a periods rule's `unit`) name the profile's own. */
 export type ProfileRuleDefinition = RuleDefinition;
 
+/**
+ * Opening hours of a profile: a definition of hours (docs/business-time.md) whose `zone` defaults to the profile's
+ * zone and whose `calendar` is a bundled calendar's name, one of the profile's calendars by name, or an inline
+ * definition (whose `extends` and `union` may name the profile's calendars).
+ */
+export type ProfileHoursDefinition = Omit<HoursDefinition, 'zone' | 'calendar'> & {
+  /** The zone of the wall clock the hours are written in (default: the profile's zone). */
+  readonly zone?: string;
+  readonly calendar?: string | CalendarDefinition;
+};
+
 /** Labels for people: a locale and templates of named fields. */
 export interface ProfileLabels {
   /** A BCP 47 language tag (`"en-US"`, `"de-DE"`, `"ja-JP"`): month and weekday names and digits come from Intl. */
@@ -162,8 +174,8 @@ export interface ProfileDefinition {
   readonly rules?: Readonly<Record<string, ProfileRuleDefinition>>;
   readonly labels?: ProfileLabels;
   readonly warehouse?: ProfileWarehouse;
-  /** Reserved for named opening-hours definitions (business time); accepted and kept, not yet compiled. */
-  readonly hours?: Readonly<Record<string, Readonly<Record<string, unknown>>>>;
+  /** Named opening hours (business time): the support desk, the payments office with its cut-offs. */
+  readonly hours?: Readonly<Record<string, ProfileHoursDefinition>>;
 }
 
 // ---------------------------------------------------------------------------------------------------------
@@ -185,6 +197,16 @@ const naming: Shape = {
 };
 const layout: Shape = { type: 'enum', description: 'weeks per period in each quarter of a 52-week year', values: LAYOUTS };
 const name = (what: string): Shape => ({ type: 'string', description: what, maxLength: 64, pattern: NAME_PATTERN, patternHint: `a name (${NAME_HINT})` });
+
+/** Named entries: keys are profile names. */
+const map = (description: string, values: Shape, maxEntries = MAX_PROFILE_ENTRIES): Shape => ({
+  type: 'map',
+  description,
+  keyPattern: NAME_PATTERN,
+  keyHint: NAME_HINT,
+  values,
+  maxEntries,
+});
 
 const monthFiscalYear: Shape = {
   type: 'object',
@@ -291,6 +313,35 @@ const rule: Shape = {
   },
 };
 
+/** A wall-clock time as the hours layer writes it; the validator also refuses 24:00 as an opening time. */
+const TIME_PATTERN = '^(?:(?:[01][0-9]|2[0-3]):[0-5][0-9](?::[0-5][0-9])?|24:00(?::00)?)$';
+const time = (what: string): Shape => ({ type: 'string', description: what, maxLength: 8, pattern: TIME_PATTERN, patternHint: 'a wall-clock time "HH:MM" or "HH:MM:SS" from 00:00 to 24:00' });
+const interval: Shape = {
+  type: 'object',
+  description: 'an opening interval in wall-clock time; a close before the open runs overnight into the next day',
+  required: ['open', 'close'],
+  fields: { open: time('when the interval opens, 00:00..23:59:59'), close: time('when it closes, 00:00..24:00') },
+};
+const hoursWeek: Shape = {
+  type: 'object',
+  description: 'the regular opening intervals of each weekday (a weekday left out is closed)',
+  required: [],
+  fields: Object.fromEntries(
+    WEEKDAY_NAMES.map((d) => [d, { type: 'array', description: `the intervals of each ${d}`, items: interval, maxItems: MAX_HOURS_INTERVALS_PER_DAY } satisfies Shape]),
+  ),
+};
+const hours: Shape = {
+  type: 'definition',
+  description: 'opening hours (docs/business-time.md): the weekly intervals, special days and named cut-off times; the zone defaults to the profile\'s',
+  required: ['week'],
+  hintFields: {
+    zone: { type: 'string', description: 'the zone of the wall clock the hours are written in (default: the profile\'s zone)', maxLength: 64 },
+    calendar: { ...calendar, description: `the business calendar that closes days: a bundled calendar (${BUNDLED_CALENDAR_NAMES.join(', ')}), one of the profile's calendars by name, or a definition` },
+    week: hoursWeek,
+    cutoffs: map('named cut-off times of each business day, e.g. {"payments": "17:00"}', time('the cut-off time'), MAX_HOURS_CUTOFFS),
+  },
+};
+
 const templatePattern = `^(?:[^{}]|\\{(?:${LABEL_FIELD_NAMES.join('|')})\\})*$`;
 const template: Shape = {
   type: 'string',
@@ -306,14 +357,7 @@ const labels: Shape = {
   required: ['locale'],
   fields: {
     locale: { type: 'string', description: 'a BCP 47 language tag, e.g. "en-US"', maxLength: 64 },
-    units: {
-      type: 'map',
-      description: 'a template for each unit, by the unit\'s name',
-      keyPattern: NAME_PATTERN,
-      keyHint: NAME_HINT,
-      values: template,
-      maxEntries: MAX_PROFILE_ENTRIES,
-    },
+    units: map('a template for each unit, by the unit\'s name', template),
     day: { ...template, description: 'a template for single days' },
   },
 };
@@ -337,15 +381,6 @@ const warehouse: Shape = {
     calendar: name('the calendar of the business-day columns'),
   },
 };
-
-const map = (description: string, values: Shape): Shape => ({
-  type: 'map',
-  description,
-  keyPattern: NAME_PATTERN,
-  keyHint: NAME_HINT,
-  values,
-  maxEntries: MAX_PROFILE_ENTRIES,
-});
 
 /** The one description of a profile document: the schema and the validator's structural checks come from it. */
 export const PROFILE_SHAPE: Shape = {
@@ -378,6 +413,6 @@ export const PROFILE_SHAPE: Shape = {
     rules: map('the frequency rules, by name', rule),
     labels,
     warehouse,
-    hours: map('reserved for opening-hours definitions, by name (accepted and kept; not yet compiled)', { type: 'definition', description: 'an opening-hours definition' }),
+    hours: map('opening hours, by name', hours),
   },
 };

@@ -6,10 +6,11 @@ export {
   type ProfileUnitDefinition,
   type ProfileCalendarDefinition,
   type ProfileRuleDefinition,
+  type ProfileHoursDefinition,
   type ProfileLabels,
   type ProfileWarehouse,
   type LabelFieldName,
   LABEL_FIELD_NAMES,
 } from './document.js';
-export { type Profile, type ProfileWarehouseRange, defineProfile, unitOfProfile, calendarOfProfile, ruleOfProfile } from './profile.js';
+export { type Profile, type ProfileWarehouseRange, defineProfile, unitOfProfile, calendarOfProfile, ruleOfProfile, hoursOfProfile } from './profile.js';
 export { type PeriodPlace, formatLabelForPeople, formatDayForPeople } from './labels.js';

@@ -10,7 +10,9 @@ import { Issues, didYouMean, hasOwn, isRecord, joinPath } from '../diagnostics/i
 import { checkShape } from './shape.js';
 import {
   type BusinessCalendar,
+  type BusinessHours,
   type CalendarDefinition,
+  type HoursDefinition,
   type PeriodUnit,
   type Rule,
   type RuleDefinition,
@@ -20,6 +22,7 @@ import {
   UnknownZoneError,
   calendarFromName,
   defineCalendar,
+  defineHours,
   defineRule,
   defineUnit,
   dayNumberFromYmd,
@@ -51,8 +54,8 @@ export interface ProfileWarehouseRange {
 /**
  * A compiled calendar profile: immutable, with every unit, calendar and rule ready for the other functions
  * (`periodFromDayNumber(profile.units['fiscal-quarter'], d)`, `isBusinessDay(profile.calendars.company, d)`).
- * Look entries up by name with {@link unitOfProfile}, {@link calendarOfProfile} and {@link ruleOfProfile}, which
- * suggest the nearest name when one is misspelled.
+ * Look entries up by name with {@link unitOfProfile}, {@link calendarOfProfile}, {@link ruleOfProfile} and
+ * {@link hoursOfProfile}, which suggest the nearest name when one is misspelled.
  */
 export interface Profile {
   readonly id: string;
@@ -73,6 +76,8 @@ export interface Profile {
   readonly defaultCalendarName: string | undefined;
   /** The frequency rules, by name. */
   readonly rules: Readonly<Record<string, Rule>>;
+  /** The opening hours, by name (business time: sessions, cut-offs), each with the profile's calendar it names. */
+  readonly hours: Readonly<Record<string, BusinessHours>>;
   /** Label settings for people, or undefined. */
   readonly labels: ProfileLabels | undefined;
   /** The export range of the `warehouse` section, or undefined. */
@@ -130,6 +135,17 @@ interface Context {
   readonly unitFiscalYears: Record<string, string>;
   readonly calendars: Record<string, BusinessCalendar>;
   readonly rules: Record<string, Rule>;
+  readonly hours: Record<string, BusinessHours>;
+}
+
+/**
+ * How the other sections reach the profile's calendars: a name (a profile calendar, compiled on demand, or a
+ * bundled one), and an inline definition whose `extends` and `union` name them. Both return undefined after
+ * recording an issue, or silently when the named calendar's own faults are reported under `calendars`.
+ */
+interface CalendarLinks {
+  readonly resolve: (name: string, at: string) => BusinessCalendar | undefined;
+  readonly link: (raw: Record<string, unknown>, path: string, self?: string) => Record<string, unknown> | undefined;
 }
 
 function compileZone(ctx: Context): Zone | undefined {
@@ -216,7 +232,7 @@ function compileUnits(ctx: Context): void {
   }
 }
 
-function compileCalendars(ctx: Context): void {
+function compileCalendars(ctx: Context): CalendarLinks {
   const section = isRecord(ctx.doc['calendars']) ? ctx.doc['calendars'] : {};
   const own = Object.keys(section);
   const known = [...own, ...BUNDLED_CALENDAR_NAMES];
@@ -228,6 +244,25 @@ function compileCalendars(ctx: Context): void {
     if ((BUNDLED_CALENDAR_NAMES as readonly string[]).includes(name)) return calendarFromName(name);
     ctx.issues.add(at, `unknown calendar ${JSON.stringify(name)}${didYouMean(name, known)}; name one of the profile's calendars (${own.map((n) => JSON.stringify(n)).join(', ') || 'none'}) or a bundled calendar (${BUNDLED_CALENDAR_NAMES.join(', ')})`);
     return undefined;
+  };
+  /** A copy of an inline definition whose `extends` and `union` names are compiled calendars (`self` stays a name). */
+  const link = (raw: Record<string, unknown>, path: string, self?: string): Record<string, unknown> | undefined => {
+    const def = { ...raw };
+    let ok = true;
+    if (typeof def['extends'] === 'string' && def['extends'] !== self) {
+      const parent = resolve(def['extends'], `${path}.extends`);
+      if (parent) def['extends'] = parent;
+      else ok = false;
+    }
+    if (Array.isArray(def['union'])) {
+      def['union'] = def['union'].map((m: unknown, i: number) => {
+        if (typeof m !== 'string' || m === self) return m;
+        const member = resolve(m, `${path}.union[${i}]`);
+        if (!member) ok = false;
+        return member ?? m;
+      });
+    }
+    return ok ? def : undefined;
   };
   const compileOne = (name: string): BusinessCalendar | undefined => {
     if (hasOwn(ctx.calendars, name)) return ctx.calendars[name];
@@ -251,24 +286,10 @@ function compileCalendars(ctx: Context): void {
           ctx.issues.add(path, `a calendar cannot be another name for itself`);
         } else cal = raw === name ? calendarFromName(raw) : resolve(raw, path);
       } else {
-        const def = { ...(raw as Record<string, unknown>) };
-        let ok = true;
-        if (typeof def['extends'] === 'string' && def['extends'] !== name) {
-          const parent = resolve(def['extends'], `${path}.extends`);
-          if (parent) def['extends'] = parent;
-          else ok = false;
-        }
-        if (Array.isArray(def['union'])) {
-          def['union'] = def['union'].map((m: unknown, i: number) => {
-            if (typeof m !== 'string' || m === name) return m;
-            const member = resolve(m, `${path}.union[${i}]`);
-            if (!member) ok = false;
-            return member ?? m;
-          });
-        }
-        if (ok) {
+        const def = link(raw as Record<string, unknown>, path, name);
+        if (def) {
           try {
-            cal = defineCalendar(def as CalendarDefinition);
+            cal = defineCalendar(def as unknown as CalendarDefinition);
           } catch (e) {
             reprefix(e, path, ctx.issues);
           }
@@ -282,6 +303,7 @@ function compileCalendars(ctx: Context): void {
     }
   };
   for (const name of own) compileOne(name);
+  return { resolve, link };
 }
 
 function compileRules(ctx: Context): void {
@@ -307,6 +329,38 @@ function compileRules(ctx: Context): void {
       if (!placeholder) ctx.rules[name] = rule;
     } catch (e) {
       reprefix(e, path, ctx.issues);
+    }
+  }
+}
+
+/**
+ * Compiles each entry of `hours` with defineHours: the zone defaults to the profile's, and the calendar is a
+ * bundled or profile calendar by name, or an inline definition linked to the profile's calendars.
+ */
+function compileHours(ctx: Context, zone: Zone | undefined, calendars: CalendarLinks): void {
+  for (const [name, raw] of entries(ctx.doc['hours'])) {
+    const path = `hours.${name}`;
+    if (!clean(ctx.issues, path)) continue;
+    const def = { ...(raw as Record<string, unknown>) };
+    if (!hasOwn(def, 'zone')) {
+      if (!zone) continue; // the profile's zone has a fault of its own, reported at "zone"
+      def['zone'] = ctx.doc['zone'];
+    }
+    const cal = def['calendar'];
+    let compiled: BusinessCalendar | Record<string, unknown> | undefined = undefined;
+    if (typeof cal === 'string') compiled = calendars.resolve(cal, `${path}.calendar`);
+    else if (isRecord(cal)) compiled = calendars.link(cal, `${path}.calendar`);
+    // A calendar with faults (reported above): the hours' other fields are still checked, against a calendar that
+    // closes no day, and the hours are not kept. Holiday names cannot be checked without the calendar.
+    const placeholder = cal !== undefined && compiled === undefined;
+    if (cal !== undefined) def['calendar'] = compiled ?? defineCalendar({ id: 'placeholder', weekend: [] });
+    try {
+      const hours = defineHours(def as unknown as HoursDefinition);
+      if (!placeholder) ctx.hours[name] = hours;
+    } catch (e) {
+      if (placeholder && e instanceof DefinitionError) {
+        for (const i of e.issues) if (!/^special\[\d+\]\.holiday$/.test(i.path)) ctx.issues.add(nestedPath(path, i.path), i.message);
+      } else reprefix(e, path, ctx.issues);
     }
   }
 }
@@ -429,14 +483,16 @@ export function defineProfile(json: ProfileDefinition | string): Profile {
     unitFiscalYears: Object.create(null) as Context['unitFiscalYears'],
     calendars: Object.create(null) as Context['calendars'],
     rules: Object.create(null) as Context['rules'],
+    hours: Object.create(null) as Context['hours'],
   };
   const zone = compileZone(ctx);
   const week = compileWeek(ctx);
   compileFiscalYears(ctx);
   compileUnits(ctx);
-  compileCalendars(ctx);
+  const calendarLinks = compileCalendars(ctx);
   checkNames(ctx);
   compileRules(ctx);
+  compileHours(ctx, zone, calendarLinks);
   const labels = compileLabels(ctx);
   const warehouse = compileWarehouse(ctx, zone);
   issues.throwIfAny(json);
@@ -452,6 +508,7 @@ export function defineProfile(json: ProfileDefinition | string): Profile {
     calendars: Object.freeze(ctx.calendars),
     defaultCalendarName: defaultCalendarOf(ctx),
     rules: Object.freeze(ctx.rules),
+    hours: Object.freeze(ctx.hours),
     labels: labels === undefined ? undefined : deepFreeze(JSON.parse(JSON.stringify(labels)) as ProfileLabels),
     warehouse: warehouse === undefined ? undefined : Object.freeze({ ...warehouse, zones: Object.freeze([...warehouse.zones]) }),
     definition: deepFreeze(JSON.parse(JSON.stringify(d)) as ProfileDefinition),
@@ -541,4 +598,20 @@ export function calendarNamed(p: Profile, name: unknown, param: string): Busines
 export function ruleOfProfile(profile: Profile, name: string): Rule {
   const p = requireProfile(profile);
   return lookup(p, p.rules, 'rule', name, 'name');
+}
+
+/**
+ * The profile's opening hours named `name`, compiled with the profile's zone and calendars, ready for the hours
+ * layer's functions (`isOpen`, `shiftBusinessTime`, `valueDayNumberOfEpochMs`, ...). An unknown name is a
+ * KalendsRangeError with code `unknown-name` that suggests the nearest names.
+ *
+ * @example
+ * ```ts
+ * const desk = hoursOfProfile(profile, 'support-desk');
+ * isOpen(desk, parseInstant('2025-11-26T21:30:00Z').epochMs); // false: 15:30 in Chicago, and the desk closes at 15:00 before Thanksgiving
+ * ```
+ */
+export function hoursOfProfile(profile: Profile, name: string): BusinessHours {
+  const p = requireProfile(profile);
+  return lookup(p, p.hours, 'hours definition', name, 'name');
 }

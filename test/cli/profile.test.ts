@@ -67,6 +67,22 @@ describe('--profile', () => {
     expect(viaProfile.out.split('\n').filter(Boolean).map((l) => JSON.parse(l).period)).toEqual(['FY2025-Q4', 'FY2026-Q1']);
   });
 
+  it('hours: the profile\'s opening hours by name answer as the scenario\'s definition given directly', async () => {
+    // examples/scenario.ts holds the payments office written out by hand; the profile's entry names the "federal"
+    // calendar, which is us-federal.
+    const { PAYMENTS_OFFICE_HOURS } = await import('../../examples/scenario.js');
+    const instants = ['2025-11-25T22:59:59Z', '2025-11-25T23:00:00.001Z', '2025-11-26T23:30:00Z', '2025-12-24T18:30:00Z'];
+    const viaProfile = await cli(['hours', 'value-date', ...instants, '--cutoff', 'payments', '--hours', 'payments-office', '--profile', PROFILE, '--json']);
+    const direct = await cli(['hours', 'value-date', ...instants, '--cutoff', 'payments', '--hours', JSON.stringify(PAYMENTS_OFFICE_HOURS), '--json']);
+    expect(viaProfile.code).toBe(0);
+    expect(viaProfile.out).toBe(direct.out);
+    // After the 17:00 cut-off of Tuesday 2025-11-25 (23:00Z is 17:00 CST): the next business day; 12:30 CST on
+    // 2025-12-24 is after that day's 12:00 cut-off, and Christmas Day (5 U.S.C. 6103(a)) is closed.
+    expect(viaProfile.out.split('\n').filter(Boolean).map((l) => JSON.parse(l).valueDate)).toEqual(['2025-11-25', '2025-11-26', '2025-11-28', '2025-12-26']);
+    // A name the profile lacks is read as a file, and refused as such.
+    expect((await cli(['hours', 'open', '2025-11-25T22:00:00Z', '--hours', 'support-dsk', '--profile', PROFILE])).code).not.toBe(0);
+  });
+
   it('every command accepts --profile; zone commands take its zone', async () => {
     for (const c of allCommands) {
       const r = await cli([c.name, '--help', '--profile', PROFILE]);

@@ -4,10 +4,7 @@
  * against the sources they name), and every bad input of the profiles issue is reported at its path, all at once.
  */
 import { describe, expect, it } from 'vitest';
-import { readFileSync } from 'node:fs';
-import { fileURLToPath } from 'node:url';
 import {
-  DefinitionError,
   KalendsRangeError,
   KalendsSyntaxError,
   KalendsTypeError,
@@ -22,19 +19,9 @@ import {
   ruleOfProfile,
   unitOfProfile,
 } from '../../src/index.js';
+import { copy, demo, issuesOf } from './helpers.js';
 
-const demo = JSON.parse(readFileSync(fileURLToPath(new URL('../../examples/otterbrook.profile.json', import.meta.url)), 'utf8')) as Record<string, any>;
-const copy = () => JSON.parse(JSON.stringify(demo)) as Record<string, any>;
 
-function issuesOf(doc: unknown): { path: string; message: string }[] {
-  try {
-    defineProfile(doc as never);
-  } catch (e) {
-    if (e instanceof DefinitionError) return e.issues.map((i) => ({ path: i.path, message: i.message }));
-    throw e;
-  }
-  return [];
-}
 
 describe('defineProfile on the demo profile', () => {
   const profile = defineProfile(demo as never);

@@ -76,6 +76,12 @@ describe('profile JSON Schema', () => {
     'an export range within the calendar\'s years': { ...BASE, calendars: { c: 'us-federal' }, warehouse: { start: '1900-01-01', end: '1950-01-01' } },
     'export zones the runtime knows': { ...BASE, warehouse: { start: '2025-01-01', end: '2026-01-01', zones: ['Mars/Olympus'] } },
     'the unit name "week" is the week convention': { ...BASE, units: { week: { kind: 'month' } } },
+    'nested hours definitions (overlapping intervals)': { ...BASE, hours: { desk: { week: { monday: [{ open: '09:00', close: '12:00' }, { open: '11:00', close: '13:00' }] } } } },
+    'an hours calendar the profile lacks': { ...BASE, hours: { desk: { calendar: 'missing', week: { monday: [{ open: '09:00', close: '17:00' }] } } } },
+    'hours zones the runtime knows': { ...BASE, hours: { desk: { zone: 'Mars/Olympus', week: { monday: [{ open: '09:00', close: '17:00' }] } } } },
+    'an opening time of 24:00': { ...BASE, hours: { desk: { week: { monday: [{ open: '24:00', close: '06:00' }] } } } },
+    'hours on a weekday the calendar\'s weekend always closes': { ...BASE, hours: { desk: { calendar: 'us-federal', week: { saturday: [{ open: '09:00', close: '17:00' }] } } } },
+    'cut-offs within the sessions': { ...BASE, hours: { desk: { week: { monday: [{ open: '09:00', close: '17:00' }] }, cutoffs: { payments: '18:00' } } } },
   };
 
   it.each(Object.entries(DEVIATIONS))('deviation, kept valid by the generator: %s', (_, doc) => {
@@ -117,6 +123,21 @@ describe('profile JSON Schema', () => {
         withLabels: fc.boolean(),
         withWarehouse: fc.boolean(),
         ruleShape: fc.constantFrom<object>({ kind: 'monthly', on: { day: 15 } }, { kind: 'weekly', weekdays: ['friday'], every: 2, anchor: '2025-01-03' }),
+        hours: fc.option(
+          fc.record(
+            {
+              // Monday to Thursday: no generated calendar has one of them in its weekend (a deviation below).
+              days: fc.subarray(['monday', 'tuesday', 'wednesday', 'thursday'], { minLength: 1 }),
+              open: fc.constantFrom('08:00', '09:00', '07:30:15'),
+              close: fc.constantFrom('17:00', '18:00', '24:00', '02:00'),
+              zone: fc.constantFrom('Europe/Dublin', '+05:30'),
+              cutoff: fc.constantFrom('12:00', '13:30'),
+              calendar: fc.constantFrom('first', 'us-federal', 'inline'),
+            },
+            { requiredKeys: ['days', 'open', 'close'] },
+          ),
+          { nil: undefined },
+        ),
       })
       .map((g) => {
         const doc: Record<string, unknown> = { id: g.id, name: g.name, zone: g.zone, week: g.week };
@@ -140,6 +161,16 @@ describe('profile JSON Schema', () => {
           if (calNames.length > 1) doc['defaultCalendar'] = calNames[1];
         }
         if (g.withLabels) doc['labels'] = { locale: 'de-DE', units: Object.fromEntries(Object.keys(units).slice(0, 2).map((u) => [u, g.template || '{label}'])), day: g.template || '{day}' };
+        if (g.hours) {
+          const h = g.hours;
+          const entry: Record<string, unknown> = { week: Object.fromEntries(h.days.map((d) => [d, [{ open: h.open, close: h.close }]])) };
+          if (h.zone) entry['zone'] = h.zone;
+          if (h.cutoff) entry['cutoffs'] = { payments: h.cutoff };
+          if (h.calendar === 'inline') entry['calendar'] = { extends: calNames[0] ?? 'us-federal', holidays: [{ kind: 'fixed', name: 'Stocktake', month: 8, day: 3 }] };
+          else if (h.calendar === 'first') entry['calendar'] = calNames[0] ?? 'england-and-wales';
+          else if (h.calendar) entry['calendar'] = h.calendar;
+          doc['hours'] = { desk: entry };
+        }
         if (g.withWarehouse) doc['warehouse'] = { start: '2010-01-01', end: '2011-01-01', zones: ['Europe/Dublin'] };
         return doc;
       });
@@ -240,6 +271,28 @@ describe('profile JSON Schema', () => {
         return c;
       },
       (d) => ({ ...copy(d), hours: { desk: 'nine to five' } }),
+      (d, p) => {
+        const c = copy(d);
+        if (!c.hours) return undefined;
+        const desk = c.hours.desk;
+        if (typeof desk !== 'object' || typeof desk.week !== 'object') return undefined;
+        const day = Object.keys(desk.week)[0]!;
+        if (p % 4 === 0) delete desk.week;
+        else if (p % 4 === 1) desk.week[day][0].open = ['9am', '25:00'][p >> 2];
+        else if (p % 4 === 2) desk.week.funday = [];
+        else desk.week[day][0].extra = true;
+        return c;
+      },
+      (d, p) => {
+        const c = copy(d);
+        if (!c.hours) return undefined;
+        const desk = c.hours.desk;
+        if (typeof desk !== 'object') return undefined;
+        if (p % 3 === 0) desk.cutoffs = { 'Late Payments': '12:00' };
+        else if (p % 3 === 1) desk.zone = 42;
+        else desk.calendar = 7;
+        return c;
+      },
       (d) => ({ ...copy(d), defaultCalendar: 12 }),
     ];
     let broken = 0;

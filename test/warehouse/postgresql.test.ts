@@ -16,10 +16,11 @@ import { join } from 'node:path';
 import { defineProfile, formatPlainDate } from '../../src/index.js';
 import { writeWarehouseExport } from '../../src/warehouse/files.js';
 import { DIMENSION_RANGE, type Events, ZONES, libraryAnswers, makeEvents } from './events.js';
+import { note } from '../note.js';
 
 const BIN = '/usr/lib/postgresql/15/bin';
 const available = existsSync(join(BIN, 'initdb')) && existsSync(join(BIN, 'pg_ctl')) && existsSync(join(BIN, 'psql'));
-if (!available) process.stderr.write(`postgresql.test.ts: skipped: no PostgreSQL 15 programs in ${BIN} (Debian package postgresql-15)\n`);
+if (!available) note(`postgresql.test.ts: skipped: no PostgreSQL 15 programs in ${BIN} (Debian package postgresql-15)`);
 
 const profile = defineProfile(JSON.parse(readFileSync(new URL('../../examples/otterbrook.profile.json', import.meta.url), 'utf8')) as never);
 const root = available ? mkdtempSync(join(tmpdir(), 'kalends-pg-')) : '';

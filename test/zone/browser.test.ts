@@ -16,12 +16,13 @@ import { build } from 'esbuild';
 import * as kalends from '../../src/zone/index.js';
 import { seededRandom } from '../../bench/harness.js';
 import { SEED } from './helpers.js';
+import { note } from '../note.js';
 
 const CHROMIUM = '/usr/bin/chromium';
 const HAVE = existsSync(CHROMIUM);
 const ROOT = fileURLToPath(new URL('../../', import.meta.url));
 if (!HAVE && process.env.CI) throw new Error(`test/zone/browser.test.ts: ${CHROMIUM} is missing; .ci/run installs it with apt-get install chromium`);
-if (!HAVE) console.log(`[zone] browser test skipped: ${CHROMIUM} is missing (apt-get install chromium)`);
+if (!HAVE) note(`[zone] browser test skipped: ${CHROMIUM} is missing (apt-get install chromium)`);
 
 /** The newest modification time under `dir`: a dist/ older than the sources is stale and not used. */
 function newestSource(dir: string): number {
@@ -137,7 +138,7 @@ describe.skipIf(!HAVE)('zone answers in headless Chromium equal Node', () => {
         expect(g.transitions, zone).toEqual(e.transitions);
       }
     });
-    console.log(`[zone] browser ${agent} vs Node ${process.version} (tz ${process.versions.tz}): tz data differences: ${dataDiffs.length ? dataDiffs.join('; ') : 'none'}`);
+    note(`[zone] browser ${agent} vs Node ${process.version} (tz ${process.versions.tz}): tz data differences: ${dataDiffs.length ? dataDiffs.join('; ') : 'none'}`);
     expect(dataDiffs.length, 'most sampled zones have the same data in both runtimes').toBeLessThanOrEqual(2);
   });
 });

@@ -11,6 +11,7 @@ import { CHUNK_MS, INTL_STEP_MS, IntlEngine } from '../../src/zone/engine.js';
 import { engineOf } from '../../src/zone/zone.js';
 import { seededRandom } from '../../bench/harness.js';
 import { FIXTURE_ZONES, SEED, fixtureZone } from './helpers.js';
+import { note } from '../note.js';
 import { dayOfPacked, monthOfPacked, packedYmdUnchecked, yearOfPacked } from '../../src/civil/gregorian.js';
 
 const RUNTIME_TZ = process.versions.tz;
@@ -55,7 +56,7 @@ describe(`Intl (tz ${RUNTIME_TZ}) against the TZif fixtures (IANA tz 2025b)`, ()
       if (bad.length > 0) {
         found[id] = bad;
         const years = [...new Set(bad.map((t) => new Date(t).getUTCFullYear()))].sort((a, b) => a - b);
-        console.log(`[zone] ${id}: Intl tz ${RUNTIME_TZ} differs from TZif 2025b at ${bad.length} checked instants in ${years[0]}..${years[years.length - 1]}`);
+        note(`[zone] ${id}: Intl tz ${RUNTIME_TZ} differs from TZif 2025b at ${bad.length} checked instants in ${years[0]}..${years[years.length - 1]}`);
       }
       const known = KNOWN_FIXTURE_DIFFERENCES[id];
       if (RUNTIME_TZ === '2025c') {

@@ -15,6 +15,7 @@ import { describe, expect, it } from 'vitest';
 import { listTransitions, listZoneIds, offsetSecondsFromEpochMs, zoneFromId, zoneFromTzif } from '../../src/zone/index.js';
 import { parseTzif } from '../../src/zone/tzif.js';
 import { INTL_PERIODIC_FROM_MS, INTL_QUIET_BEFORE_MS, INTL_STEP_MS } from '../../src/zone/engine.js';
+import { note } from '../note.js';
 
 const DIR = process.env.TZDIR ?? '/usr/share/zoneinfo';
 const HAVE = existsSync(join(DIR, 'America/New_York'));
@@ -33,7 +34,7 @@ const KNOWN_SWEEP_DIFFERENCES: Record<string, string> = {
   'America/Tijuana': 'the two releases disagree on Baja California in 1970-1975 (2025c revised its 1950s-1970s history)',
 };
 
-if (!HAVE) console.log(`[zone] system sweep skipped: no tz database at ${DIR} (set TZDIR)`);
+if (!HAVE) note(`[zone] system sweep skipped: no tz database at ${DIR} (set TZDIR)`);
 
 describe.skipIf(!HAVE)(`system sweep: Intl (tz ${RUNTIME_TZ}) against ${DIR} (tz ${systemRelease()})`, () => {
   it('every listed zone agrees at every transition ±1 s, 1970-2038, except the known list', () => {
@@ -61,7 +62,7 @@ describe.skipIf(!HAVE)(`system sweep: Intl (tz ${RUNTIME_TZ}) against ${DIR} (tz
       }
       if (bad > 0) differing[id] = bad;
     }
-    console.log(`[zone] system sweep: ${listZoneIds().length} zones, ${checks} checks, differences: ${JSON.stringify(differing)}, missing files: ${JSON.stringify(missing)}`);
+    note(`[zone] system sweep: ${listZoneIds().length} zones, ${checks} checks, differences: ${JSON.stringify(differing)}, missing files: ${JSON.stringify(missing)}`);
     expect(missing).toEqual([]);
     if (RUNTIME_TZ === '2025c' && systemRelease() === '2025b') {
       expect(Object.keys(differing).sort()).toEqual(Object.keys(KNOWN_SWEEP_DIFFERENCES).sort());
@@ -92,7 +93,7 @@ describe.skipIf(!HAVE)(`system sweep: Intl (tz ${RUNTIME_TZ}) against ${DIR} (tz
         }
       }
     }
-    console.log(`[zone] tz data facts: first change ${new Date(first).toISOString()}, closest changes ${(minGap / 86_400_000).toFixed(2)} days (${minGapAt}), last explicit ${new Date(last).toISOString()}`);
+    note(`[zone] tz data facts: first change ${new Date(first).toISOString()}, closest changes ${(minGap / 86_400_000).toFixed(2)} days (${minGapAt}), last explicit ${new Date(last).toISOString()}`);
     expect(first).toBeGreaterThan(INTL_QUIET_BEFORE_MS);
     expect(minGap).toBeGreaterThan(INTL_STEP_MS);
     expect(last).toBeLessThan(INTL_PERIODIC_FROM_MS);

@@ -11,6 +11,7 @@ import { build } from 'esbuild';
 import { PINNED_TZDATA, TZDATA_RELEASE, pinnedZoneIds, pinnedZoneRules } from '../../src/tzdata/index.js';
 import { UnknownZoneError, listTransitions, offsetSecondsFromEpochMs, zoneFromId, zoneFromRules, zoneFromTzif } from '../../src/zone/index.js';
 import { FIXTURE_RELEASE, FIXTURE_ZONES, fixtureZone } from './helpers.js';
+import { note } from '../note.js';
 
 const ROOT = fileURLToPath(new URL('../../', import.meta.url));
 const DIR = process.env.TZDIR ?? '/usr/share/zoneinfo';
@@ -24,7 +25,7 @@ describe('pinned tz data (kalends/tzdata)', () => {
 
   it('the generated file stays compact (under 1 MB; sizes are stated in docs/zones.md)', () => {
     const text = readFileSync(join(ROOT, 'src/tzdata/data.ts'));
-    console.log(`[zone] src/tzdata/data.ts: ${text.length} bytes, gzip ${gzipSync(text).length} bytes, ${pinnedZoneIds().length} ids`);
+    note(`[zone] src/tzdata/data.ts: ${text.length} bytes, gzip ${gzipSync(text).length} bytes, ${pinnedZoneIds().length} ids`);
     expect(text.length).toBeLessThan(1_000_000);
     expect(pinnedZoneIds().length).toBeGreaterThan(500);
   });
@@ -42,7 +43,7 @@ describe('pinned tz data (kalends/tzdata)', () => {
   it.skipIf(!existsSync(join(DIR, 'tzdata.zi')))(`equals every system TZif file in ${DIR} when that is the same release`, () => {
     const rel = /^# version (\S+)/.exec(readFileSync(join(DIR, 'tzdata.zi'), 'utf8'))?.[1];
     if (rel !== TZDATA_RELEASE) {
-      console.log(`[zone] system tz ${rel} differs from the pinned ${TZDATA_RELEASE}; the per-file comparison is skipped`);
+      note(`[zone] system tz ${rel} differs from the pinned ${TZDATA_RELEASE}; the per-file comparison is skipped`);
       return;
     }
     let checked = 0;

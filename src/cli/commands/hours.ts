@@ -14,6 +14,7 @@ import {
   countBusinessMs,
   defineHours,
   formatInstant,
+  hoursOfProfile,
   formatPlainDate,
   isOpen,
   nextClosingEpochMs,
@@ -24,6 +25,7 @@ import {
   toEpochMs,
   valueDayNumberOfEpochMs,
 } from '../../index.js';
+import { profileOfArgs } from '../profile.js';
 import { type CliIo, type Command, JSON_OPTION, type ParsedArgs, type Row, UsageError, optionFlag, optionString, readDefinition, writeRowsPerValue } from '../kit.js';
 
 const ACTIONS = ['open', 'next-open', 'shift', 'between', 'value-date'] as const;
@@ -38,10 +40,12 @@ const FIELDS: Readonly<Record<Action, readonly string[]>> = {
   'value-date': ['at'],
 };
 
-/** The definition named by --hours: JSON text, a JSON file, or "-" for standard input. */
+/** The definition named by --hours: the name of the --profile's hours, JSON text, a JSON file, or "-" for standard input. */
 async function hoursOption(args: ParsedArgs, io: CliIo): Promise<BusinessHours> {
   const value = optionString(args, 'hours');
-  if (value === undefined) throw new UsageError('--hours is required: a definition of hours as JSON text, a JSON file or "-" (see docs/business-time.md)');
+  if (value === undefined) throw new UsageError('--hours is required: a definition of hours as JSON text, a JSON file or "-" (see docs/business-time.md), or with --profile the name of its hours');
+  const profile = profileOfArgs(args);
+  if (profile && Object.prototype.hasOwnProperty.call(profile.hours, value)) return hoursOfProfile(profile, value);
   return defineHours((await readDefinition(value, '--hours', io, [])) as HoursDefinition);
 }
 
@@ -140,7 +144,7 @@ values after the action, reads standard input: one input per line, either plain 
 JSON object ({"at": "2025-03-10T14:00Z", "duration": "PT8H"}; "start" and "end" for between). Instants are shown
 with the offset of the hours' zone. Official hours and cut-offs are set by the institution: verify against it.`,
   options: [
-    { name: 'hours', value: '<definition>', text: 'the definition: JSON text (starting with "{"), a JSON file, or "-" for standard input (required)' },
+    { name: 'hours', value: '<definition>', text: 'the definition: JSON text (starting with "{"), a JSON file, "-" for standard input, or with --profile the name of its hours (required)' },
     { name: 'cutoff', value: '<name>', text: 'the cut-off of value-date (a name from the definition\'s "cutoffs")' },
     JSON_OPTION,
   ],
@@ -148,6 +152,7 @@ with the offset of the hours' zone. Official hours and cut-offs are set by the i
     'kalends hours open 2025-07-03T17:30:00Z --hours desk.json',
     'kalends hours shift 2025-07-02T19:00:00Z PT8H --hours desk.json --json',
     `echo '{"start": "2025-07-02T19:00Z", "end": "2025-07-07T14:30Z"}' | kalends hours between --hours desk.json`,
+    'kalends hours value-date 2025-11-25T23:30:00Z --cutoff payments --hours payments-office --profile examples/otterbrook.profile.json',
   ],
   async run(args: ParsedArgs, io: CliIo): Promise<number> {
     const action = args.positionals[0];
