@@ -1,6 +1,6 @@
 /**
- * The adversarial table covers the whole public surface, and only it: every export of `kalends` (src/index.ts)
- * and of `kalends/warehouse` (src/warehouse/files.ts) has a row in test/adversarial/table.ts, of the right kind,
+ * The adversarial table covers the whole public surface, and only it: every export of `kalends` (src/index.ts),
+ * `kalends/tzdata` (src/tzdata/index.ts) and `kalends/warehouse` (src/warehouse/files.ts) has a row in test/adversarial/table.ts, of the right kind,
  * naming its parameters as the declaration does, and listing every option key the function reads. A new export
  * (or a new option) without a row fails here with a message that names it, so whoever adds it adds the row.
  *
@@ -15,9 +15,10 @@ import { declaredExports } from './declared.js';
 import { configureTable, MODULES, type FunctionRow, type Row } from './table.js';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { readFileSync } from 'node:fs';
 
 const ROOT = fileURLToPath(new URL('../../', import.meta.url));
-const FILES: Readonly<Record<string, string>> = { kalends: join(ROOT, 'src/index.ts'), 'kalends/warehouse': join(ROOT, 'src/warehouse/files.ts') };
+const FILES: Readonly<Record<string, string>> = { kalends: join(ROOT, 'src/index.ts'), 'kalends/tzdata': join(ROOT, 'src/tzdata/index.ts'), 'kalends/warehouse': join(ROOT, 'src/warehouse/files.ts') };
 configureTable({ root: ROOT, sandbox: join(tmpdir(), `kalends-adversarial-surface-${process.pid}`), temporal: Temporal });
 
 const declared = declaredExports(Object.values(FILES));
@@ -48,6 +49,14 @@ describe('every export has a row in the adversarial table', () => {
       expect(faults).toEqual([]);
     });
   }
+
+  // A new subpath of package.json's exports needs a module here; JSON files (the profile schema) are data, not code.
+  it('covers every subpath package.json exports', () => {
+    const pkg = JSON.parse(readFileSync(join(ROOT, 'package.json'), 'utf8')) as { exports: Record<string, unknown> };
+    const subpaths = Object.keys(pkg.exports).filter((p) => !p.endsWith('.json')).map((p) => (p === '.' ? 'kalends' : `kalends/${p.slice(2)}`));
+    expect(MODULES.map((m) => m.name).sort()).toEqual(subpaths.sort());
+    expect(Object.keys(FILES).sort()).toEqual(subpaths.sort());
+  });
 
   it('has the size of the surface (about 250 exports)', () => {
     expect(Object.keys(MODULES[0]!.table).length).toBeGreaterThan(240);

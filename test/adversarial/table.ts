@@ -1,6 +1,6 @@
 /**
  * The table of every public entry point: one row for each export of `kalends` (src/index.ts) and of the
- * `kalends/warehouse` subpath (src/warehouse/files.ts). surface.test.ts builds the list of exports from the modules
+ * `kalends/tzdata` and `kalends/warehouse` subpaths (src/tzdata/index.ts, src/warehouse/files.ts). surface.test.ts builds the list of exports from the modules
  * themselves and fails, naming the export, when one has no row here (or a row names no export).
  *
  * A function's row gives its parameters in order, each with its kind (kinds.ts: what a hostile value must give) and
@@ -15,6 +15,7 @@ import { mkdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import * as k from '../../src/index.js';
 import * as files from '../../src/warehouse/files.js';
+import * as tzdata from '../../src/tzdata/index.js';
 import {
   EITHER,
   anything,
@@ -227,6 +228,7 @@ const PROFILE_DEFINITION = (): k.ProfileDefinition =>
     calendars: { company: 'us-federal' },
     defaultCalendar: 'company',
     rules: { 'month-end-close': { kind: 'monthly', on: { businessDay: 'last' }, calendar: 'company', label: 'Month-end close' } },
+    hours: { desk: { calendar: 'company', week: { monday: [{ open: '08:00', close: '18:00' }], friday: [{ open: '08:00', close: '18:00' }] } } },
     labels: { locale: 'en-US', units: { 'fiscal-quarter': 'Q{index} FY{yearShort}' }, day: '{weekdayName}, {monthName} {day}, {year}' },
     warehouse: { start: '2026-01-01', end: '2026-01-15', zones: ['America/Chicago', 'Europe/Dublin'], calendar: 'company' },
   }) as unknown as k.ProfileDefinition;
@@ -727,6 +729,7 @@ const profile: Record<string, Row> = {
   unitOfProfile: fn([P('profile', profileKind, PROFILE), P('name', named({ label: 'name', names: ['fiscal-quarter', 'month'], unknownCodes: ['unknown-name'] }), 'fiscal-quarter')], R.object, { probe: (u) => (u as k.PeriodUnit).id }),
   calendarOfProfile: fn([P('profile', profileKind, PROFILE), P('name', named({ label: 'name', names: ['company'], unknownCodes: ['unknown-name'], optional: true }), 'company')], R.object, { probe: calendarProbe }),
   ruleOfProfile: fn([P('profile', profileKind, PROFILE), P('name', named({ label: 'name', names: ['month-end-close'], unknownCodes: ['unknown-name'] }), 'month-end-close')], R.object, { probe: ruleProbe }),
+  hoursOfProfile: fn([P('profile', profileKind, PROFILE), P('name', named({ label: 'name', names: ['desk'], unknownCodes: ['unknown-name'] }), 'desk')], R.object, { probe: (h) => k.isOpen(h as k.BusinessHours, T2025) }),
   formatLabelForPeople: fn([P('profile', profileKind, PROFILE), P('unitName', named({ label: 'unitName', names: ['fiscal-quarter', 'month'], unknownCodes: ['unknown-name'] }), 'fiscal-quarter'), P('ordinal', integer(-(2 ** 31), 2 ** 31, { outside: 'either', validMin: 8000, validMax: 8200 }), () => FISCAL_QUARTER().ordinalFromDayNumber(D2025))], R.string),
   formatDayForPeople: fn([P('profile', profileKind, PROFILE), P('dayNumber', dayNumbers(), D2025)], R.string),
 };
@@ -790,6 +793,20 @@ export const WAREHOUSE_TABLE: Readonly<Record<string, Row>> = {
   ),
 };
 
+/**
+ * The rows of `kalends/tzdata` (src/tzdata/index.ts). `pinnedZoneRules` answers undefined for any id the pinned data
+ * does not have (its TSDoc), a non-string too: it is a lookup, and `zoneFromId(id, { source })` checks the id first.
+ * Its check: a result is the rules of exactly the id asked for.
+ */
+export const TZDATA_TABLE: Readonly<Record<string, Row>> = {
+  TZDATA_RELEASE: CONSTANT,
+  PINNED_TZDATA: CONSTANT,
+  pinnedZoneIds: fn([], shape('sorted zone ids', (v) => Array.isArray(v) && v.length > 400 && v.every((x, i) => typeof x === 'string' && (i === 0 || v[i - 1] < x)))),
+  pinnedZoneRules: fn([P('id', anything({ valid: () => fc.constantFrom('Europe/Dublin', 'Asia/Kolkata', 'UTC', 'America/New_York') }), 'Europe/Dublin')], shape('zone rules or undefined', (v) => v === undefined || (typeof v === 'object' && v !== null)), {
+    check: (v, args) => (v === undefined || (v as { id?: unknown }).id === args[0] ? undefined : `returned the rules of ${String((v as { id?: unknown }).id)} for ${String(args[0])}`),
+  }),
+};
+
 /** A directory inside the sandbox (the suite never writes outside it): strings are refused by the sweep. */
 function sandboxPath(): Kind {
   return {
@@ -804,6 +821,7 @@ function sandboxPath(): Kind {
 /** The modules whose exports the table covers, by the name a user imports. */
 export const MODULES: readonly { readonly name: string; readonly exports: Readonly<Record<string, unknown>>; readonly table: Readonly<Record<string, Row>> }[] = [
   { name: 'kalends', exports: k as unknown as Record<string, unknown>, table: CORE_TABLE },
+  { name: 'kalends/tzdata', exports: tzdata as unknown as Record<string, unknown>, table: TZDATA_TABLE },
   { name: 'kalends/warehouse', exports: files as unknown as Record<string, unknown>, table: WAREHOUSE_TABLE },
 ];
 
