@@ -70,8 +70,6 @@ export interface FunctionRow {
   readonly mutates?: number;
   /** The definition is data but not JSON (typed arrays are fine in it): non-JSON values need not be refused. */
   readonly notJson?: boolean;
-  /** Runs per fuzz pass, when the default is too many for a slow entry. */
-  readonly runs?: number;
   /** Leave the sweep's catalogue out of these parameters (they would write files outside the sandbox). */
   readonly sandboxed?: readonly number[];
 }
@@ -725,7 +723,7 @@ const series: Record<string, Row> = {
 
 const profile: Record<string, Row> = {
   LABEL_FIELD_NAMES: CONSTANT,
-  defineProfile: fn([P('json', definition(PROFILE_DEFINITION, { strings: true }), PROFILE_DEFINITION)], R.object, { mutates: 0, probe: (p) => (p as k.Profile).id, runs: 100 }),
+  defineProfile: fn([P('json', definition(PROFILE_DEFINITION, { strings: true }), PROFILE_DEFINITION)], R.object, { mutates: 0, probe: (p) => (p as k.Profile).id }),
   unitOfProfile: fn([P('profile', profileKind, PROFILE), P('name', named({ label: 'name', names: ['fiscal-quarter', 'month'], unknownCodes: ['unknown-name'] }), 'fiscal-quarter')], R.object, { probe: (u) => (u as k.PeriodUnit).id }),
   calendarOfProfile: fn([P('profile', profileKind, PROFILE), P('name', named({ label: 'name', names: ['company'], unknownCodes: ['unknown-name'], optional: true }), 'company')], R.object, { probe: calendarProbe }),
   ruleOfProfile: fn([P('profile', profileKind, PROFILE), P('name', named({ label: 'name', names: ['month-end-close'], unknownCodes: ['unknown-name'] }), 'month-end-close')], R.object, { probe: ruleProbe }),
@@ -736,7 +734,7 @@ const profile: Record<string, Row> = {
 
 const RANGE = () => options({ start: nested(() => '2026-01-01', { optional: true }), end: nested(() => '2026-01-08', { optional: true }) });
 const warehouse: Record<string, Row> = {
-  dimensionTableFromProfile: fn([P('profile', profileKind, PROFILE), P('options', options({ start: nested(() => '2026-01-01', { optional: true }), end: nested(() => '2026-01-08', { optional: true }), calendar: named({ label: 'calendar', names: ['company'], unknownCodes: ['unknown-name'], optional: true }) }, { valid: () => ({ start: '2026-01-01', end: '2026-01-08' }) }), () => ({ start: '2026-01-01', end: '2026-01-08' }))], R.object, { runs: 100 }),
+  dimensionTableFromProfile: fn([P('profile', profileKind, PROFILE), P('options', options({ start: nested(() => '2026-01-01', { optional: true }), end: nested(() => '2026-01-08', { optional: true }), calendar: named({ label: 'calendar', names: ['company'], unknownCodes: ['unknown-name'], optional: true }) }, { valid: () => ({ start: '2026-01-01', end: '2026-01-08' }) }), () => ({ start: '2026-01-01', end: '2026-01-08' }))], R.object, {}),
   transitionTableFromZones: fn([P('zones', nested(() => ['Europe/Dublin', 'America/New_York']), () => ['Europe/Dublin', 'America/New_York']), P('startEpochMs', epochMs({ fraction: 'floor' }), T2025), P('endEpochMs', epochMs({ fraction: 'floor' }), T2025 + 400 * 86_400_000)], R.object),
   scheduleTableFromProfile: fn([P('profile', profileKind, PROFILE), P('options', RANGE(), () => ({ start: '2026-01-01', end: '2026-03-01' }))], R.object),
   formatTableCsv: fn([P('table', tableKind, DIMENSION)], R.string),
@@ -781,7 +779,7 @@ export const CORE_TABLE: Readonly<Record<string, Row>> = {
 /** The rows of `kalends/warehouse` (src/warehouse/files.ts). */
 export const WAREHOUSE_TABLE: Readonly<Record<string, Row>> = {
   parquetFromTable: fn([P('table', tableKind, DIMENSION)], R.typed(Uint8Array)),
-  writeFilesAtomically: fn([P('directory', sandboxPath(), () => join(SANDBOX(), 'atomic')), P('files', nested(() => [{ name: 'a.csv', content: () => 'x\n' }]), () => [{ name: 'a.csv', content: () => 'x\n' }])], R.array, { sandboxed: [0], runs: 60 }),
+  writeFilesAtomically: fn([P('directory', sandboxPath(), () => join(SANDBOX(), 'atomic')), P('files', nested(() => [{ name: 'a.csv', content: () => 'x\n' }]), () => [{ name: 'a.csv', content: () => 'x\n' }])], R.array, { sandboxed: [0] }),
   writeWarehouseExport: fn(
     [
       P('profile', profileKind, PROFILE),
@@ -789,7 +787,7 @@ export const WAREHOUSE_TABLE: Readonly<Record<string, Row>> = {
       P('options', options({ formats: nested(() => ['csv']), start: nested(() => '2026-01-01', { optional: true }), end: nested(() => '2026-01-03', { optional: true }), calendar: named({ label: 'calendar', names: ['company'], unknownCodes: ['unknown-name'], optional: true }), zones: nested(() => undefined, { optional: true }) }, { valid: () => ({ formats: ['csv'], start: '2026-01-01', end: '2026-01-03' }) }), () => ({ formats: ['csv'], start: '2026-01-01', end: '2026-01-03' })),
     ],
     R.array,
-    { sandboxed: [1], runs: 60 },
+    { sandboxed: [1] },
   ),
 };
 
