@@ -258,7 +258,7 @@ export function isBusinessDay(calendar: CalendarInput, dayNumber: number): boole
  */
 export function nextBusinessDay(calendar: CalendarInput, dayNumber: number): number {
   const e = engineOf(calendar);
-  return e.shift(requireDay(e, dayNumber, 'dayNumber'), 1);
+  return e.shift(requireDay(e, dayNumber, 'dayNumber'), 1, 'dayNumber');
 }
 
 /**
@@ -271,7 +271,7 @@ export function nextBusinessDay(calendar: CalendarInput, dayNumber: number): num
  */
 export function previousBusinessDay(calendar: CalendarInput, dayNumber: number): number {
   const e = engineOf(calendar);
-  return e.shift(requireDay(e, dayNumber, 'dayNumber'), -1);
+  return e.shift(requireDay(e, dayNumber, 'dayNumber'), -1, 'dayNumber');
 }
 
 /**

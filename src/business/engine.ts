@@ -186,17 +186,17 @@ export class Engine {
    * The business day n business days from dn: n > 0 counts business days strictly after dn, n < 0 strictly
    * before, n = 0 gives dn if it is a business day, else the next one.
    */
-  shift(dn: number, n: number): number {
+  shift(dn: number, n: number, name = 'n'): number {
     // A shift that must leave the supported years fails at once: there are at most as many business days as
     // days outside the weekend.
-    if (n > 0 && n > this.nonWeekendDays(dn + 1, this.endDay)) throw this.pastEnd(dn, n, 'last', this.lastYear);
-    if (n < 0 && -n > this.nonWeekendDays(this.firstDay, dn)) throw this.pastEnd(dn, n, 'first', this.firstYear);
-    if (n > LONG_SHIFT || n < -LONG_SHIFT) return this.shiftFar(dn, n);
-    return this.shiftNear(dn, n);
+    if (n > 0 && n > this.nonWeekendDays(dn + 1, this.endDay)) throw this.pastEnd(dn, n, 'last', this.lastYear, name);
+    if (n < 0 && -n > this.nonWeekendDays(this.firstDay, dn)) throw this.pastEnd(dn, n, 'first', this.firstYear, name);
+    if (n > LONG_SHIFT || n < -LONG_SHIFT) return this.shiftFar(dn, n, name);
+    return this.shiftNear(dn, n, name);
   }
 
   /** {@link shift} by growing the compiled window as far as the count needs. */
-  private shiftNear(dn: number, n: number): number {
+  private shiftNear(dn: number, n: number, name: string): number {
     const y = yearOfDayNumberUnchecked(dn);
     this.ensure(y, y);
     if (n > 0 || (n === 0 && !this.bit(dn))) {
@@ -204,7 +204,7 @@ export class Engine {
       let emptyYears = 0;
       while (k >= this.total) {
         const hi = this.lo + this.count - 1;
-        if (hi >= this.lastYear) throw this.pastEnd(dn, n, 'last', this.lastYear);
+        if (hi >= this.lastYear) throw this.pastEnd(dn, n, 'last', this.lastYear, name);
         const need = k - this.total + 1;
         const add = Math.min(this.lastYear - hi, Math.max(MARGIN_YEARS, Math.ceil(need / 366) + 1), MAX_WINDOW_YEARS);
         const before = this.total;
@@ -223,7 +223,7 @@ export class Engine {
     let k = this.rank(dn) + n;
     let emptyYears = 0;
     while (k < 0) {
-      if (this.lo <= this.firstYear) throw this.pastEnd(dn, n, 'first', this.firstYear);
+      if (this.lo <= this.firstYear) throw this.pastEnd(dn, n, 'first', this.firstYear, name);
       const add = Math.min(this.lo - this.firstYear, Math.max(MARGIN_YEARS, Math.ceil(-k / 366) + 1), MAX_WINDOW_YEARS);
       const hi = this.lo + this.count - 1;
       const before = this.total;
@@ -412,7 +412,7 @@ export class Engine {
    * {@link shift} for |n| > LONG_SHIFT: the business days left in dn's year, then whole years (whole 400-year
    * cycles where the years repeat), then the day within the year where the count ends.
    */
-  private shiftFar(dn: number, n: number): number {
+  private shiftFar(dn: number, n: number, name: string): number {
     const budget: YearBudget = { evaluated: 0, from: dn, to: dn };
     const years = this.years;
     let empty = 0;
@@ -421,7 +421,7 @@ export class Engine {
       let left = n - this.countInYear(dn + 1, dayNumberFromYmdUnchecked(y + 1, 1, 1));
       while (left > 0) {
         y++;
-        if (y > this.lastYear) throw this.pastEnd(dn, n, 'last', this.lastYear);
+        if (y > this.lastYear) throw this.pastEnd(dn, n, 'last', this.lastYear, name);
         const s = years.stretchOf(y);
         if (s) {
           const t = years.table(s[0]);
@@ -444,13 +444,13 @@ export class Engine {
         if (empty >= MAX_EMPTY_YEARS) throw this.noBusinessDay(dn, 'after');
       }
       // Only when n did not leave dn's year (not reached for |n| > LONG_SHIFT, kept for safety).
-      return this.shiftNear(dn, n);
+      return this.shiftNear(dn, n, name);
     }
     let y = yearOfDayNumberUnchecked(dn);
     let left = -n - this.countInYear(dayNumberFromYmdUnchecked(y, 1, 1), dn);
     while (left > 0) {
       y--;
-      if (y < this.firstYear) throw this.pastEnd(dn, n, 'first', this.firstYear);
+      if (y < this.firstYear) throw this.pastEnd(dn, n, 'first', this.firstYear, name);
       const s = years.stretchOf(y);
       if (s) {
         const t = years.table(s[0]);
@@ -472,10 +472,16 @@ export class Engine {
       empty = c === 0 ? empty + 1 : 0;
       if (empty >= MAX_EMPTY_YEARS) throw this.noBusinessDay(dn, 'before');
     }
-    return this.shiftNear(dn, n);
+    return this.shiftNear(dn, n, name);
   }
 
-  private pastEnd(dn: number, n: number, which: 'first' | 'last', year: number): KalendsRangeError {
+  private pastEnd(dn: number, n: number, which: 'first' | 'last', year: number, name: string): KalendsRangeError {
+    if (name !== 'n') {
+      return new KalendsRangeError(
+        `${name}: the business day ${n > 0 ? 'after' : 'before'} ${formatPlainDate(dn)} lies past the ${which} year (${year}) that calendar ${JSON.stringify(this.label)} supports; use a calendar whose years reach further`,
+        { code: 'out-of-range', received: dn },
+      );
+    }
     return new KalendsRangeError(
       `n: shifting ${formatPlainDate(dn)} by ${n} business days passes the ${which} year (${year}) that calendar ${JSON.stringify(this.label)} supports; use a smaller shift, or a calendar whose years reach further`,
       { code: 'out-of-range', received: n },

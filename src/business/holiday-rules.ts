@@ -283,7 +283,7 @@ export function readDatedEntries(v: unknown, path: string, issues: Issues): { da
       dayNumber = parsePlainDate(date);
     } catch (e) {
       // The parser's message quotes the text given; drop its function-name prefix, the path names the field.
-      issues.add(joinPath(p, 'date'), (e as Error).message.replace(/^parsePlainDate: /, ''));
+      issues.add(joinPath(p, 'date'), (e as Error).message.replace(/^text: /, ''));
       continue;
     }
     if (name !== undefined) out.push({ dayNumber, name, path: p });

@@ -8,9 +8,9 @@
  *
  * @module
  */
-import { requireInteger } from '../errors.js';
+import { KalendsRangeError, requireInteger } from '../errors.js';
 import { dayNumberFromYmdUnchecked } from './gregorian.js';
-import { MAX_YEAR } from '../bounds.js';
+import { MAX_DAY_NUMBER, MAX_YEAR } from '../bounds.js';
 
 /** First year for which the Gregorian computus is offered (the reform was promulgated in 1582). */
 export const EASTER_MIN_YEAR = 1583;
@@ -63,7 +63,16 @@ export function julianEasterDayNumberOfYear(year: number): number {
   const e = (2 * a + 4 * b - d + 34) % 7;
   const month = Math.floor((d + e + 114) / 31);
   const day = ((d + e + 114) % 31) + 1;
-  return julianCalendarToDayNumber(year, month, day);
+  const dn = julianCalendarToDayNumber(year, month, day);
+  // The Julian calendar runs days behind the Gregorian one (about 2,000 days by the last supported year), so the
+  // last years' Julian Easters fall after the last supported day.
+  if (dn > MAX_DAY_NUMBER) {
+    throw new KalendsRangeError(`year: the Julian Easter of ${year} falls after the last supported day (${MAX_YEAR}-12-31); expected a year whose Julian Easter is within the supported range`, {
+      code: 'out-of-range',
+      received: year,
+    });
+  }
+  return dn;
 }
 
 /**

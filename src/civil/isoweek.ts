@@ -81,13 +81,15 @@ export function isoWeekDateFromDayNumber(dayNumber: number): IsoWeekDate {
  * ```
  */
 export function dayNumberFromIsoWeekDate(weekYear: number, week: number, weekday: number): number {
-  requireYear(weekYear, 'weekYear');
+  // The week-years one beyond each end hold supported days too (-271821-01-01 is in week 53 of -271822), so that
+  // every day's ISO week date (isoWeekDateFromDayNumber) converts back.
+  requireInteger('weekYear', weekYear, MIN_YEAR - 1, MAX_YEAR + 1);
   requireInteger('week', week, 1, isoWeeksInYearUnchecked(weekYear));
   requireInteger('weekday', weekday, 1, 7);
   const dn = isoWeekOneMonday(weekYear) + (week - 1) * 7 + weekday - 1;
   if (dn < MIN_DAY_NUMBER || dn > MAX_DAY_NUMBER) {
     throw new KalendsRangeError(
-      `ISO week date ${weekYear}-W${week}-${weekday} falls outside the supported years ${MIN_YEAR}..${MAX_YEAR}`,
+      `weekYear: the ISO week date ${weekYear}-W${week}-${weekday} falls outside the supported days ${MIN_YEAR}-01-01..${MAX_YEAR}-12-31`,
       { code: 'out-of-range', received: { weekYear, week, weekday } },
     );
   }

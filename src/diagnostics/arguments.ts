@@ -8,20 +8,21 @@
  */
 import { MAX_DAY_NUMBER, MAX_EPOCH_MS, MIN_DAY_NUMBER, MIN_EPOCH_MS } from '../bounds.js';
 import { KalendsRangeError, KalendsTypeError, describeValue } from '../errors.js';
-import { hasOwn } from './issues.js';
+import { hasOwn, isPlainObject } from './issues.js';
 import { didYouMean, type SuggestOptions } from './suggest.js';
 
 const EMPTY: Readonly<Record<string, unknown>> = /* @__PURE__ */ Object.freeze({});
 
 /**
- * Reads an options object: `undefined` gives an empty object; anything but a plain object (including `null` and
- * arrays) is a KalendsTypeError; an own key outside `keys` is a KalendsTypeError with code `unknown-name` and a
+ * Reads an options object: `undefined` gives an empty object; anything but a plain object (`null`, an array, a
+ * `Date`, a `Map`, a typed array: objects whose prototype is not Object.prototype or null) is a KalendsTypeError; an own key outside `keys` is a KalendsTypeError with code `unknown-name` and a
  * spelling suggestion (a misspelled option must never be silently ignored).
  */
 export function readOptions(name: string, options: unknown, keys: readonly string[]): Readonly<Record<string, unknown>> {
   if (options === undefined) return EMPTY;
-  if (typeof options !== 'object' || options === null || Array.isArray(options)) {
-    throw new KalendsTypeError(`${name}: expected an options object or undefined, got ${describeValue(options)}`, {
+  if (!isPlainObject(options)) {
+    const hint = typeof options === 'object' && options !== null && !Array.isArray(options) ? '; options are a plain object such as { key: value }, whose own keys are read' : '';
+    throw new KalendsTypeError(`${name}: expected an options object or undefined, got ${describeValue(options)}${hint}`, {
       code: 'invalid-type',
       received: options,
     });

@@ -36,9 +36,23 @@ export function joinPath(path: string, key: string | number): string {
   return path === '' ? key : `${path}.${key}`;
 }
 
-/** True for a non-null object that is not an array. */
+/**
+ * True for a record of a definition: a plain object (JSON has no Dates, Maps or class instances, and their keys are
+ * not data: a Date where a record belongs is refused rather than read as an empty record).
+ */
 export function isRecord(v: unknown): v is Record<string, unknown> {
-  return typeof v === 'object' && v !== null && !Array.isArray(v);
+  return isPlainObject(v);
+}
+
+/**
+ * True for a plain object: one made by `{ ... }`, `JSON.parse` or `Object.create(null)`, whose prototype is
+ * Object.prototype or null. Dates, Maps, typed arrays and class instances are not (their keys are not data).
+ */
+export function isPlainObject(v: unknown): v is Record<string, unknown> {
+  if (typeof v !== 'object' || v === null) return false;
+  const proto = Object.getPrototypeOf(v) as object | null;
+  // Object.prototype of this realm or of another (an iframe's, a vm context's): a prototype without a prototype.
+  return proto === null || proto === Object.prototype || (Object.getPrototypeOf(proto) === null && !Array.isArray(v));
 }
 
 /** True when `key` is an own property of `obj` (never an inherited one such as `constructor`). */

@@ -4,7 +4,7 @@
  *
  * @module
  */
-import { KalendsRangeError, KalendsTypeError, describeValue } from '../errors.js';
+import { KalendsRangeError, KalendsSyntaxError, KalendsTypeError, describeValue } from '../errors.js';
 import { readOptions } from './arguments.js';
 
 /** A period range end as given: an ordinal or a label. */
@@ -20,7 +20,15 @@ export interface RangeUnitLike {
 }
 
 function readEnd(name: string, value: unknown, unit: RangeUnitLike): number {
-  if (typeof value === 'string') return unit.parseOrdinal(value);
+  if (typeof value === 'string') {
+    try {
+      return unit.parseOrdinal(value);
+    } catch (e) {
+      // The label parser names its own parameter (`text`); here the label is this range end.
+      if (!(e instanceof KalendsSyntaxError)) throw e;
+      throw new KalendsSyntaxError(`${name}: ${e.message.replace(/^text: /, '')}`, { code: e.code, received: value, position: e.position });
+    }
+  }
   if (typeof value !== 'number') {
     throw new KalendsTypeError(`${name}: expected a label of unit ${unit.id} or an ordinal, got ${describeValue(value)}`, {
       code: 'invalid-type',

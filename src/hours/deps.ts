@@ -6,7 +6,8 @@
  */
 import { DefinitionError, KalendsTypeError, describeValue } from '../errors.js';
 import { yearOfDayNumberUnchecked } from '../civil/gregorian.js';
-import { type Duration, exactMsOfDuration, formatInstant, formatPlainDate, parseDuration, parsePlainDate } from '../instant/index.js';
+import { type Duration, exactMsOfDuration, formatInstant, formatPlainDate, parsePlainDate } from '../instant/index.js';
+import { readDuration } from '../instant/duration.js';
 import {
   type Disambiguation,
   type Zone,
@@ -30,7 +31,7 @@ import {
 } from '../business/index.js';
 
 export type { BusinessCalendar, CalendarDefinition, Disambiguation, Duration, Holiday, Zone };
-export { exactMsOfDuration, formatInstant, formatPlainDate, parseDuration, parsePlainDate, toZone };
+export { exactMsOfDuration, formatInstant, formatPlainDate, parsePlainDate, readDuration, toZone };
 
 /** Disambiguation words (Temporal's), in the order messages list them. */
 export const DISAMBIGUATIONS: readonly Disambiguation[] = ['compatible', 'earlier', 'later', 'reject'];

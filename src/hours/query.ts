@@ -11,7 +11,7 @@ import { yearOfDayNumberUnchecked } from '../civil/gregorian.js';
 import { KalendsRangeError, KalendsTypeError, describeValue } from '../errors.js';
 import { didYouMean, optionOf, readOptions, requireBoolean, requireDayNumberArgument, requireEpochMs, requireWhole } from '../diagnostics/index.js';
 import { type HoursEngine, NO_DAY, type Table } from './compile.js';
-import { type Duration, exactMsOfDuration, formatInstant, formatPlainDate, localDayNumber, localYear, parseDuration } from './deps.js';
+import { type Duration, exactMsOfDuration, formatInstant, formatPlainDate, localDayNumber, localYear, readDuration } from './deps.js';
 import { type BusinessHours, NoSessionError, engineOfHours } from './hours.js';
 
 /** One session: a stretch of time in which the hours are open. */
@@ -143,7 +143,7 @@ export function businessDurationMs(duration: unknown, name = 'duration'): number
     return duration;
   }
   let d: Duration;
-  if (typeof duration === 'string') d = parseDuration(duration);
+  if (typeof duration === 'string') d = readDuration(duration, name);
   else if (typeof duration === 'object' && duration !== null && typeof (duration as Duration).sign === 'number') d = duration as Duration;
   else {
     throw new KalendsTypeError(`${name}: expected an ISO 8601 duration of elapsed time ("PT8H"), a Duration from parseDuration, or milliseconds, got ${describeValue(duration)}`, {

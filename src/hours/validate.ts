@@ -372,7 +372,7 @@ export function normalizeHours(def: unknown, issues: Issues): NormHours | undefi
           dayNumber = Number.NaN;
         }
       } catch (e) {
-        issues.add(joinPath(path, 'date'), e instanceof Error ? e.message.replace(/^parsePlainDate: /, '') : String(e));
+        issues.add(joinPath(path, 'date'), e instanceof Error ? e.message.replace(/^text: /, '') : String(e));
       }
       if (has('offset')) issues.add(joinPath(path, 'offset'), 'an offset goes with "holiday" only; a dated special day names its date');
     } else {

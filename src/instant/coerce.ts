@@ -10,7 +10,7 @@ import { MAX_DAY_NUMBER, MAX_EPOCH_MS, MIN_DAY_NUMBER, MIN_EPOCH_MS, MS_PER_DAY 
 import { KalendsRangeError, KalendsTypeError, describeValue, requireInteger } from '../errors.js';
 import { dayNumberFromYmd, requireDayNumber, ymdFromDayNumber } from '../civil/gregorian.js';
 import { optionOf, readOptions, requireEnum, requireEpochMs } from '../diagnostics/index.js';
-import { parseInstant, parsePlainDate, parsePlainDateTime } from './text.js';
+import { readInstant, readPlainDate, readPlainDateTime } from './text.js';
 import { requireWallMs } from './format.js';
 
 /** The name of a value's kind for messages: Temporal objects by their tag (`Temporal.PlainDate`), others as usual. */
@@ -64,7 +64,7 @@ function checkEpochMs(fn: string, ms: number, received: unknown): number {
  * ```
  */
 export function toEpochMs(value: unknown): number {
-  if (typeof value === 'string') return parseInstant(value).epochMs;
+  if (typeof value === 'string') return readInstant(value, undefined, 'value').epochMs;
   if (typeof value === 'number') {
     if (!Number.isFinite(value)) {
       throw new KalendsRangeError(`value: expected a finite number of epoch milliseconds, got ${describeValue(value)}`, { code: 'out-of-range', received: value });
@@ -163,7 +163,7 @@ function ymdObjectToDayNumber(fn: string, value: object, tag: string | undefined
 export function toDayNumber(value: unknown, options?: ToDayNumberOptions): number {
   const o = readOptions('options', options, ['dateFields']);
   const dateFields = optionOf(o, 'dateFields') === undefined ? undefined : requireEnum('options.dateFields', optionOf(o, 'dateFields'), DATE_FIELDS);
-  if (typeof value === 'string') return parsePlainDate(value);
+  if (typeof value === 'string') return readPlainDate(value, 'value');
   if (typeof value === 'number') {
     if (Number.isInteger(value) && (value > MAX_DAY_NUMBER || value < MIN_DAY_NUMBER)) {
       throw new KalendsRangeError(
@@ -171,7 +171,7 @@ export function toDayNumber(value: unknown, options?: ToDayNumberOptions): numbe
         { code: 'out-of-range', received: value },
       );
     }
-    return requireDayNumber(value === 0 ? 0 : value);
+    return requireDayNumber(value === 0 ? 0 : value, 'value');
   }
   if (value instanceof Date) {
     const mode = dateFields;
@@ -216,8 +216,8 @@ export function toDayNumber(value: unknown, options?: ToDayNumberOptions): numbe
 export function toWallMs(value: unknown): number {
   const min = MIN_DAY_NUMBER * MS_PER_DAY;
   const max = MAX_DAY_NUMBER * MS_PER_DAY + MS_PER_DAY - 1;
-  if (typeof value === 'string') return parsePlainDateTime(value);
-  if (typeof value === 'number') return requireWallMs('wallMs', value === 0 ? 0 : value, min, max);
+  if (typeof value === 'string') return readPlainDateTime(value, undefined, 'value');
+  if (typeof value === 'number') return requireWallMs('value', value === 0 ? 0 : value, min, max);
   if (typeof value === 'object' && value !== null && !(value instanceof Date)) {
     const tag = temporalTag(value);
     const dn = ymdObjectToDayNumber('value', value, tag);

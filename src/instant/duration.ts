@@ -9,7 +9,7 @@ import { MAX_DAY_NUMBER, MAX_DURATION_CALENDAR_FIELD, MAX_YEAR, MIN_DAY_NUMBER, 
 import { KalendsRangeError, KalendsTypeError, describeValue, requireInteger } from '../errors.js';
 import { dayCountOfMonthUnchecked, dayNumberFromYmdUnchecked, dayOfPacked, monthIndexOfPacked, packedYmdUnchecked, requireDayNumber } from '../civil/gregorian.js';
 import { monthOfMonthIndex, yearOfMonthIndex } from '../civil/names.js';
-import { didYouMean, isRecord, optionOf, readOptions, requireEnum } from '../diagnostics/index.js';
+import { didYouMean, optionOf, readOptions, requireEnum } from '../diagnostics/index.js';
 import { Scanner } from './scan.js';
 import { formatDayNumberUnchecked, formatPlainDateTime, requireWallMs } from './format.js';
 
@@ -60,7 +60,8 @@ const MS_PER_MINUTE = 60_000;
  * ```
  */
 export function durationFromFields(fields: DurationFields): Duration {
-  if (!isRecord(fields)) {
+  // Any object, not only a plain one: a Temporal.Duration (from any implementation) is read by its getters.
+  if (typeof fields !== 'object' || fields === null || Array.isArray(fields)) {
     throw new KalendsTypeError(`fields: expected an object of duration fields (${FIELD_NAMES.join(', ')}), got ${describeValue(fields)}`, {
       code: 'invalid-type',
       received: fields,
@@ -172,13 +173,19 @@ const DURATION_GRAMMAR = 'an ISO 8601 duration (e.g. P1Y2M10DT2H30M, P3W, -PT1.5
  * ```
  */
 export function parseDuration(text: string): Duration {
-  if (typeof text !== 'string') {
-    throw new KalendsTypeError(`parseDuration: expected an ISO 8601 duration as a string, got ${describeValue(text)}`, {
+  return readDuration(text, 'text');
+}
+
+/** @internal {@link parseDuration}, with the name of the parameter that held the text (for messages). */
+export function readDuration(input: unknown, name: string): Duration {
+  if (typeof input !== 'string') {
+    throw new KalendsTypeError(`${name}: expected an ISO 8601 duration as a string, got ${describeValue(input)}`, {
       code: 'invalid-type',
-      received: text,
+      received: input,
     });
   }
-  const sc: Scanner = new Scanner(text, 'parseDuration', DURATION_GRAMMAR);
+  const text = input;
+  const sc: Scanner = new Scanner(text, name, DURATION_GRAMMAR);
   let sign = 1;
   const c0 = sc.peek();
   if (c0 === 45 || c0 === 43) {
@@ -257,7 +264,7 @@ export function parseDuration(text: string): Duration {
   try {
     return durationFromFields(signed);
   } catch (e) {
-    throw new KalendsRangeError(`parseDuration: ${describeValue(text)} is outside the supported range: ${(e as Error).message}`, {
+    throw new KalendsRangeError(`${name}: ${describeValue(text)} is outside the supported range: ${(e as Error).message}`, {
       code: 'out-of-range',
       received: text,
     });

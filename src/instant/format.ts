@@ -231,7 +231,7 @@ function checkAnnotationText(fn: string, path: string, value: unknown, candidate
     if (!sc.done || (zone && f.zoneId === undefined) || (!zone && f.annotations.length !== 1)) throw new Error('x');
   } catch {
     throw new KalendsRangeError(
-      `${fn}: ${path}: ${describeValue(zone ? value : candidate)} is not a valid RFC 9557 ${zone ? 'zone annotation (an IANA name such as Europe/Dublin, or ±HH:MM)' : 'suffix tag (a lower-case key, "=", alphanumeric values joined by "-")'}`,
+      `${path}: ${describeValue(zone ? value : candidate)} is not a valid RFC 9557 ${zone ? 'zone annotation (an IANA name such as Europe/Dublin, or ±HH:MM)' : 'suffix tag (a lower-case key, "=", alphanumeric values joined by "-")'}`,
       { code: 'out-of-range', received: value, path },
     );
   }

@@ -80,9 +80,9 @@ function readUnderstoodKeys(value: unknown): readonly string[] {
  * ```
  */
 export function parseExtendedDateTime(text: string, options?: ParseDateTimeOptions): ExtendedDateTime {
-  requireString('parseExtendedDateTime', text, 'a date-time');
+  requireString('text', text, 'a date-time');
   const { leapSecond, understood } = readParseOptions(options);
-  const sc: Scanner = new Scanner(text, 'parseExtendedDateTime', DATE_TIME_GRAMMAR);
+  const sc: Scanner = new Scanner(text, 'text', DATE_TIME_GRAMMAR);
   const f = readFields(sc, understood);
   const leap = checkLeapSecond(sc, f, leapSecond);
   return Object.freeze({
@@ -122,16 +122,21 @@ export function parseExtendedDateTime(text: string, options?: ParseDateTimeOptio
  * ```
  */
 export function parseInstant(text: string, options?: ParseDateTimeOptions): ParsedInstant {
-  requireString('parseInstant', text, 'an RFC 3339 date-time with an offset');
+  return readInstant(text, options, 'text');
+}
+
+/** @internal {@link parseInstant}, with the name of the parameter that held the text (for messages). */
+export function readInstant(input: unknown, options: unknown, name: string): ParsedInstant {
+  const text = requireString(name, input, 'an RFC 3339 date-time with an offset');
   const { leapSecond, understood } = readParseOptions(options);
-  const sc: Scanner = new Scanner(text, 'parseInstant', INSTANT_GRAMMAR);
+  const sc: Scanner = new Scanner(text, name, INSTANT_GRAMMAR);
   const f = readFields(sc, understood);
   if (!f.hasTime) {
     sc.fail('it is a date without a time and offset; an instant needs both (e.g. 2025-02-14T09:30:00Z). To read a calendar date use parsePlainDate instead', text.length);
   }
   if (f.offsetSeconds === undefined) {
     throw syntaxError(
-      'parseInstant',
+      name,
       text,
       INSTANT_GRAMMAR,
       'the UTC offset is missing; an instant needs "Z" or ±HH:MM after the time. To read it as a local date-time use parsePlainDateTime instead',
@@ -142,7 +147,7 @@ export function parseInstant(text: string, options?: ParseDateTimeOptions): Pars
   const epochMs = f.dayNumber * MS_PER_DAY + f.msOfDay - f.offsetSeconds * 1000;
   if (epochMs < MIN_EPOCH_MS || epochMs > MAX_EPOCH_MS || (epochMs === MAX_EPOCH_MS && f.ns % 1e6 !== 0)) {
     throw new KalendsRangeError(
-      `parseInstant: ${describeValue(text)} is outside the supported range of instants, ${MIN_EPOCH_MS} to ${MAX_EPOCH_MS} epoch ms (-271821-04-20T00:00Z to +275760-09-13T00:00Z)`,
+      `${name}: ${describeValue(text)} is outside the supported range of instants, ${MIN_EPOCH_MS} to ${MAX_EPOCH_MS} epoch ms (-271821-04-20T00:00Z to +275760-09-13T00:00Z)`,
       { code: 'out-of-range', received: text },
     );
   }
@@ -172,18 +177,23 @@ export interface ParsePlainDateTimeOptions extends ParseDateTimeOptions {
  * ```
  */
 export function parsePlainDateTime(text: string, options?: ParsePlainDateTimeOptions): number {
-  requireString('parsePlainDateTime', text, 'a local date-time');
+  return readPlainDateTime(text, options, 'text');
+}
+
+/** @internal {@link parsePlainDateTime}, with the name of the parameter that held the text (for messages). */
+export function readPlainDateTime(input: unknown, options: unknown, name: string): number {
+  const text = requireString(name, input, 'a local date-time');
   const { record, leapSecond, understood } = readParseOptions(options, ['offset']);
   const offset = requireEnum('options.offset', optionOf(record, 'offset'), PLAIN_OFFSET_HANDLING, 'reject');
-  const sc: Scanner = new Scanner(text, 'parsePlainDateTime', 'a local ISO 8601 date-time');
+  const sc: Scanner = new Scanner(text, name, 'a local ISO 8601 date-time');
   const f = readFields(sc, understood);
   if (f.zuluPos >= 0) {
-    throw syntaxError('parsePlainDateTime', text, 'a local ISO 8601 date-time', '"Z" gives a time in UTC, not a local time; use parseInstant instead', f.zuluPos);
+    throw syntaxError(name, text, 'a local ISO 8601 date-time', '"Z" gives a time in UTC, not a local time; use parseInstant instead', f.zuluPos);
   }
   if (offset === 'reject') {
     if (f.offsetSeconds !== undefined) {
       throw syntaxError(
-        'parsePlainDateTime',
+        name,
         text,
         'a local ISO 8601 date-time',
         'it has a UTC offset, so it names an instant; use parseInstant, or pass { offset: "ignore" } to keep only the wall-clock fields',
@@ -192,7 +202,7 @@ export function parsePlainDateTime(text: string, options?: ParsePlainDateTimeOpt
     }
     if (f.zoneId !== undefined) {
       throw syntaxError(
-        'parsePlainDateTime',
+        name,
         text,
         'a local ISO 8601 date-time',
         'it has a zone annotation, so it names a zoned time; pass { offset: "ignore" } to keep only the wall-clock fields',
@@ -218,8 +228,13 @@ export function parsePlainDateTime(text: string, options?: ParsePlainDateTimeOpt
  * ```
  */
 export function parsePlainDate(text: string): number {
-  requireString('parsePlainDate', text, 'an ISO 8601 date');
-  const sc: Scanner = new Scanner(text, 'parsePlainDate', 'an ISO 8601 date (YYYY-MM-DD, YYYY-Www-D or YYYY-DDD)');
+  return readPlainDate(text, 'text');
+}
+
+/** @internal {@link parsePlainDate}, with the name of the parameter that held the text (for messages). */
+export function readPlainDate(input: unknown, name: string): number {
+  const text = requireString(name, input, 'an ISO 8601 date');
+  const sc: Scanner = new Scanner(text, name, 'an ISO 8601 date (YYYY-MM-DD, YYYY-Www-D or YYYY-DDD)');
   const start = sc.pos;
   const year = sc.year();
   sc.expectChar(45, 'a "-" after the year');
@@ -253,7 +268,7 @@ export function parsePlainDate(text: string): number {
     sc.fail(`unexpected ${sc.here()} after the date`);
   }
   if (dn < MIN_DAY_NUMBER || dn > MAX_DAY_NUMBER) {
-    throw new KalendsRangeError(`parsePlainDate: ${describeValue(text)} falls outside the supported day numbers ${MIN_DAY_NUMBER} to ${MAX_DAY_NUMBER}`, {
+    throw new KalendsRangeError(`${name}: ${describeValue(text)} falls outside the supported day numbers ${MIN_DAY_NUMBER} to ${MAX_DAY_NUMBER}`, {
       code: 'out-of-range',
       received: text,
     });

@@ -17,12 +17,12 @@ import { dayNumberFromYmdUnchecked } from '../civil/gregorian.js';
 export { formatYear as formatYearLabel, pad2, formatDayNumberUnchecked as formatDayLabel };
 
 /**
- * @internal A scanner over a label: `form` says what the label should be (`an ISO 8601 month YYYY-MM, e.g.
+ * @internal A scanner over a label (the parameter `text` of parsePeriod and of a unit's parseOrdinal): `form` says what the label should be (`an ISO 8601 month YYYY-MM, e.g.
  * "2025-03"`); years may reach `yearSlack` years past each end of the supported range (the first and last periods
  * of a unit may start or end outside it).
  */
 export function labelScanner(text: string, form: string, yearSlack = 1): Scanner {
-  return new Scanner(text, 'label', form, 'syntax', yearSlack);
+  return new Scanner(text, 'text', form, 'syntax', yearSlack);
 }
 
 /** @internal Reads the exact characters `literal` at the cursor. */

@@ -102,7 +102,7 @@ function compile(u: NormalizedUnit): PeriodUnit {
     },
     parseOrdinal(text: string): number {
       if (typeof text !== 'string') {
-        throw new KalendsTypeError(`label: expected a string such as ${core.labelForm.replace(/^.*e\.g\. /, '')}, got ${describeValue(text)}`, {
+        throw new KalendsTypeError(`text: expected a string such as ${core.labelForm.replace(/^.*e\.g\. /, '')}, got ${describeValue(text)}`, {
           code: 'invalid-type',
           received: text,
         });
@@ -110,7 +110,7 @@ function compile(u: NormalizedUnit): PeriodUnit {
       const o = core.parse(text);
       if (o < minOrdinal || o > maxOrdinal) {
         throw new KalendsSyntaxError(
-          `label: ${describeValue(text)} is outside the supported range of unit ${id}; expected a label from ${core.format(minOrdinal)} to ${core.format(maxOrdinal)}`,
+          `text: ${describeValue(text)} is outside the supported range of unit ${id}; expected a label from ${core.format(minOrdinal)} to ${core.format(maxOrdinal)}`,
           { code: 'out-of-range', received: text, position: 0 },
         );
       }
@@ -168,6 +168,9 @@ export type UnitInput = PeriodUnit | UnitDefinition | CalendarUnitName;
  * ```
  */
 export function toUnit(input: UnitInput, name = 'unit'): PeriodUnit {
+  if (typeof name !== 'string' || name === '') {
+    throw new KalendsTypeError(`name: expected the parameter name to use in messages (a non-empty string), got ${describeValue(name)}`, { code: 'invalid-type', received: name });
+  }
   if (coreOf(input)) return input as PeriodUnit;
   if (typeof input === 'object' && input !== null && 'unit' in input && 'ordinal' in input) {
     throw new KalendsTypeError(`${name}: expected a unit, got a period (${describeValue(input)}); pass its unit, p.unit`, { code: 'invalid-type', received: input });

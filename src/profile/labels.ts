@@ -12,7 +12,7 @@ import { requireWhole } from '../diagnostics/index.js';
 import { MAX_DAY_NUMBER, MIN_DAY_NUMBER } from '../bounds.js';
 import { type PeriodUnit, dayNumberFromYmd, formatPlainDate, isoWeekDateFromDayNumber, weekdayOfDayNumber, ymdFromDayNumber } from './deps.js';
 import type { LabelFieldName } from './document.js';
-import { type Profile, requireProfile, unitOfProfile } from './profile.js';
+import { type Profile, requireProfile, unitNamed } from './profile.js';
 
 /** Where a period sits: the year its labels name and its 1-based position in that year. */
 export interface PeriodPlace {
@@ -162,7 +162,7 @@ export function templateOfUnit(profile: Profile, name: string): string | undefin
 export function formatLabelForPeople(profile: Profile, unitName: string, ordinal: number): string {
   const p = requireProfile(profile);
   const labels = labelsOf(p);
-  const unit = unitOfProfile(p, unitName);
+  const unit = unitNamed(p, unitName, 'unitName');
   requireWhole('ordinal', ordinal, unit.minOrdinal, unit.maxOrdinal);
   const label = unit.formatOrdinal(ordinal);
   const template = templateOfUnit(p, unitName);

@@ -405,7 +405,7 @@ function compileWarehouse(ctx: Context, zone: Zone | undefined): ProfileWarehous
   if (calendar !== undefined && !hasOwn(isRecord(ctx.doc['calendars']) ? ctx.doc['calendars'] : {}, calendar)) {
     ctx.issues.add('warehouse.calendar', unknownName('calendar', calendar, Object.keys(isRecord(ctx.doc['calendars']) ? ctx.doc['calendars'] : {})));
   }
-  const cal = calName !== undefined ? ctx.calendars[calName] : undefined;
+  const cal = calName !== undefined && hasOwn(ctx.calendars, calName) ? ctx.calendars[calName] : undefined;
   if (cal) {
     const firstYear = cal.firstYear;
     const lastYear = cal.lastYear;
@@ -479,12 +479,13 @@ export function defineProfile(json: ProfileDefinition | string): Profile {
   const ctx: Context = {
     doc: doc as Record<string, unknown>,
     issues,
-    fiscalYears: {},
-    units: {},
-    unitFiscalYears: {},
-    calendars: {},
-    rules: {},
-    hours: {},
+    // Tables without a prototype: a name such as "constructor" is never found in them unless it was defined.
+    fiscalYears: Object.create(null) as Context['fiscalYears'],
+    units: Object.create(null) as Context['units'],
+    unitFiscalYears: Object.create(null) as Context['unitFiscalYears'],
+    calendars: Object.create(null) as Context['calendars'],
+    rules: Object.create(null) as Context['rules'],
+    hours: Object.create(null) as Context['hours'],
   };
   const zone = compileZone(ctx);
   const week = compileWeek(ctx);
@@ -527,13 +528,13 @@ export function requireProfile(value: unknown, name = 'profile'): Profile {
   });
 }
 
-function lookup<T>(profile: Profile, table: Readonly<Record<string, T>>, what: string, name: unknown, extra: readonly string[] = []): T {
+function lookup<T>(profile: Profile, table: Readonly<Record<string, T>>, what: string, name: unknown, param: string, extra: readonly string[] = []): T {
   if (typeof name !== 'string') {
-    throw new KalendsTypeError(`name: expected the name of one of the profile's ${what}s, got ${describeValue(name)}`, { code: 'invalid-type', received: name });
+    throw new KalendsTypeError(`${param}: expected the name of one of the profile's ${what}s, got ${describeValue(name)}`, { code: 'invalid-type', received: name });
   }
   if (hasOwn(table, name)) return table[name]!;
   const names = [...Object.keys(table), ...extra];
-  throw new KalendsRangeError(`name: ${unknownName(what, name, names).replace(' in this profile', ` in profile ${JSON.stringify(profile.id)}`)}`, {
+  throw new KalendsRangeError(`${param}: ${unknownName(what, name, names).replace(' in this profile', ` in profile ${JSON.stringify(profile.id)}`)}`, {
     code: 'unknown-name',
     received: name,
   });
@@ -550,9 +551,13 @@ function lookup<T>(profile: Profile, table: Readonly<Record<string, T>>, what: s
  * ```
  */
 export function unitOfProfile(profile: Profile, name: string): PeriodUnit {
-  const p = requireProfile(profile);
+  return unitNamed(requireProfile(profile), name, 'name');
+}
+
+/** @internal The profile's unit `name`, where `param` is the parameter that named it (for messages). */
+export function unitNamed(p: Profile, name: unknown, param: string): PeriodUnit {
   if (name === 'week') return p.week;
-  return lookup(p, p.units, 'unit', name, ['week']);
+  return lookup(p, p.units, 'unit', name, param, ['week']);
 }
 
 /**
@@ -575,7 +580,12 @@ export function calendarOfProfile(profile: Profile, name?: string): BusinessCale
     }
     return p.calendars[p.defaultCalendarName]!;
   }
-  return lookup(p, p.calendars, 'calendar', name);
+  return calendarNamed(p, name, 'name');
+}
+
+/** @internal The profile's calendar `name`, where `param` is the parameter that named it (for messages). */
+export function calendarNamed(p: Profile, name: unknown, param: string): BusinessCalendar {
+  return lookup(p, p.calendars, 'calendar', name, param);
 }
 
 /**
@@ -589,7 +599,7 @@ export function calendarOfProfile(profile: Profile, name?: string): BusinessCale
  */
 export function ruleOfProfile(profile: Profile, name: string): Rule {
   const p = requireProfile(profile);
-  return lookup(p, p.rules, 'rule', name);
+  return lookup(p, p.rules, 'rule', name, 'name');
 }
 
 /**
@@ -605,5 +615,5 @@ export function ruleOfProfile(profile: Profile, name: string): Rule {
  */
 export function hoursOfProfile(profile: Profile, name: string): BusinessHours {
   const p = requireProfile(profile);
-  return lookup(p, p.hours, 'hours definition', name);
+  return lookup(p, p.hours, 'hours definition', name, 'name');
 }

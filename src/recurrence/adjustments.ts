@@ -147,7 +147,7 @@ export function adjustmentOfOccurrence(rule: Rule, dayNumber: number): Occurrenc
     return Object.freeze({ dayNumber: d, unadjustedDayNumbers: Object.freeze([d]), moves: Object.freeze([]), reason: '' });
   }
   const cal = c.business;
-  const [mLo, mHi] = adjustmentMargin(c, d, d + 1);
+  const [mLo, mHi] = adjustmentMargin(c, d, d + 1, ['dayNumber', 'dayNumber']);
   const raw = new Sink(16);
   c.engine.fill(Math.max(d - mLo, c.rawStart), Math.min(d + 1 + mHi, c.rawEnd), raw);
   const unadjusted: number[] = [];

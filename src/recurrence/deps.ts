@@ -24,6 +24,7 @@ const MAX_TRANSITIONS_WALKED = 100_000;
 import { type PeriodUnit, toUnit } from '../period/index.js';
 import {
   type BusinessCalendar,
+  UnknownCalendarError,
   adjustDayNumber,
   calendarFromName,
   countBusinessDays,
@@ -32,7 +33,6 @@ import {
   listHolidays,
   nthBusinessDayOfRange,
   shiftBusinessDays,
-  UnknownCalendarError,
 } from '../business/index.js';
 import { appendBusinessDaysUnchecked, nthBusinessDayInRangeUnchecked } from '../business/calendar.js';
 export { type DayCountConvention, type YearFraction, DAY_COUNT_TRADE_NAMES, NEEDED_OPTIONS } from '../daycount/conventions.js';

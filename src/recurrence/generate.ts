@@ -46,7 +46,7 @@ const KINDS: readonly RuleKind[] = [
  */
 export function defineRule(definition: RuleDefinition): Rule {
   if (!isRecord(definition)) {
-    throw new DefinitionError([{ path: '', message: `expected a rule definition object with a "kind", got ${describeValue(definition)}` }], definition);
+    throw new DefinitionError([{ path: 'definition', message: `expected a rule definition object with a "kind", got ${describeValue(definition)}` }], definition);
   }
   const kind = ownField(definition as unknown as Record<string, unknown>, 'kind');
   if (typeof kind !== 'string' || !(KINDS as readonly string[]).includes(kind)) {
@@ -60,7 +60,7 @@ export function defineRule(definition: RuleDefinition): Rule {
   const compiled =
     kind === 'intraday' ? compileIntraday(copy, issues) : kind === 'rfc5545' ? compileRfc5545(copy, issues) : compileCivilRule(copy, issues);
   issues.throwIfAny(definition);
-  if (!compiled) throw new DefinitionError([{ path: '', message: 'could not compile the rule' }], definition);
+  if (!compiled) throw new DefinitionError([{ path: 'definition', message: 'could not compile the rule' }], definition);
   if (compiled.count !== undefined) locateCount(compiled, definition);
   const rule: Rule = Object.freeze({ kind: kind as RuleKind, values: compiled.values, definition: deepFreeze(copy) as unknown as RuleDefinition });
   compiledRules.set(rule, compiled);
@@ -79,9 +79,17 @@ export function compiledOf(rule: unknown, name = 'rule'): Compiled {
   return c;
 }
 
-/** @internal Margin (days) around [lo, hi) that holds every raw date adjusted into it. */
-export function adjustmentMargin(c: Compiled, lo: number, hi: number): [number, number] {
+/** @internal Margin (days) around [lo, hi) that holds every raw date adjusted into it; `names` name the range's parameters in messages. */
+export function adjustmentMargin(c: Compiled, lo: number, hi: number, names: readonly [string, string]): [number, number] {
   const cal = c.business!;
+  // Raw dates outside the calendar's years cannot be adjusted: say so by the range's own parameter.
+  if (lo < cal.firstDay || hi > cal.endDay) {
+    const [name, day] = lo < cal.firstDay ? [names[0], lo] : [names[1], hi - 1];
+    throw new KalendsRangeError(
+      `${name}: the rule's dates near ${formatPlainDate(day)} move by a business-day convention, and its calendar ${JSON.stringify(cal.id)} answers only for ${formatPlainDate(cal.firstDay)} to ${formatPlainDate(cal.endDay - 1)}; narrow the range to those years, or give the rule a calendar whose years cover it`,
+      { code: 'out-of-range', received: day },
+    );
+  }
   let before = 8;
   while (before <= MAX_ADJUSTMENT_DAYS && lo - before > cal.firstDay && cal.adjust(lo - before, c.convention) >= lo) before *= 2;
   let after = 8;
@@ -101,7 +109,7 @@ const scratchSink = /* @__PURE__ */ new Sink(256);
  * @internal Appends the occurrences in [lo, hi) to `out`, in strictly increasing order: raw dates within the
  * rule's bounds (start, end and count), adjusted, de-duplicated, with exclusions removed.
  */
-export function fillOccurrences(c: Compiled, lo: number, hi: number, out: Sink): void {
+export function fillOccurrences(c: Compiled, lo: number, hi: number, out: Sink, names: readonly [string, string] = ['start', 'end']): void {
   lo = Math.max(lo, VALUE_MIN[c.values]);
   hi = Math.min(hi, VALUE_END[c.values]);
   if (lo >= hi) return;
@@ -109,7 +117,11 @@ export function fillOccurrences(c: Compiled, lo: number, hi: number, out: Sink):
   if (c.convention === 'none' || !c.business) {
     c.engine.fill(Math.max(lo, c.rawStart), Math.min(hi, c.rawEnd), out);
   } else {
-    const [mLo, mHi] = adjustmentMargin(c, lo, hi);
+    // Adjusted dates lie within MAX_ADJUSTMENT_DAYS of the rule's raw dates: no business day is asked outside.
+    lo = Math.max(lo, occurrenceFloor(c));
+    hi = Math.min(hi, occurrenceCeiling(c));
+    if (lo >= hi) return;
+    const [mLo, mHi] = adjustmentMargin(c, lo, hi, names);
     const raw = scratchSink;
     raw.clear();
     c.engine.fill(Math.max(lo - mLo, c.rawStart), Math.min(hi + mHi, c.rawEnd), raw);
@@ -159,6 +171,8 @@ function occurrenceFloor(c: Compiled): number {
   return Math.max(VALUE_MIN[c.values], c.rawStart - adjMargin);
 }
 
+const FROM = ['from', 'from'] as const;
+
 /** @internal First occurrence >= from, or undefined. */
 export function firstAtOrAfter(c: Compiled, from: number): number | undefined {
   const ceiling = occurrenceCeiling(c);
@@ -171,9 +185,10 @@ export function firstAtOrAfter(c: Compiled, from: number): number | undefined {
   while (lo < ceiling) {
     const hi = Math.min(lo + width, ceiling);
     out.clear();
-    fillOccurrences(c, lo, hi, out);
+    fillOccurrences(c, lo, hi, out, FROM);
     if (out.length > 0) return out.data[0]!;
-    if (hi - origin > limit) throw limitError(c, from, 'on or after');
+    // Past the rule's last raw date only adjusted dates remain, within MAX_ADJUSTMENT_DAYS: the search ends there.
+    if (hi - origin > limit && hi < c.rawEnd) throw limitError(c, from, 'on or after');
     lo = hi;
     width *= 2;
   }
@@ -191,9 +206,9 @@ export function lastBefore(c: Compiled, before: number): number | undefined {
   while (hi > floor) {
     const lo = Math.max(hi - width, floor);
     out.clear();
-    fillOccurrences(c, lo, hi, out);
+    fillOccurrences(c, lo, hi, out, FROM);
     if (out.length > 0) return out.data[out.length - 1]!;
-    if (origin - lo > limit) throw limitError(c, before, 'before');
+    if (origin - lo > limit && lo > c.rawStart) throw limitError(c, before, 'before');
     hi = lo;
     width *= 2;
   }

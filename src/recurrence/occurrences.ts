@@ -72,7 +72,8 @@ function compiledIn(rule: unknown, unit: Unit, form: keyof typeof FORMS): Compil
 }
 
 /** Reads a range argument (a date or an instant, as the rule's values are). */
-function valueOf(c: Compiled, v: unknown, name: string): number {
+/** @internal A date (day number) or an instant (epoch ms) as the rule's values are, from what a user holds. */
+export function valueOf(c: Compiled, v: unknown, name: string): number {
   // Numbers are taken as they are (instants may carry a fraction of a millisecond, docs/design.md "Input rules").
   if (typeof v === 'number') return c.values === 'dates' ? requireDayNumberArgument(name, v) : requireEpochMs(name, v);
   try {
@@ -340,9 +341,9 @@ export function previousOccurrenceEpochMs(rule: Rule, from: unknown, options?: S
   return lastBefore(c, inclusive ? Math.floor(v) + 1 : Math.ceil(v)) ?? null;
 }
 
-function occursAt(c: Compiled, v: number): boolean {
+function occursAt(c: Compiled, v: number, name: string): boolean {
   const out = new Sink(4);
-  fillOccurrences(c, v, v + 1, out);
+  fillOccurrences(c, v, v + 1, out, [name, name]);
   return out.length > 0;
 }
 
@@ -357,7 +358,7 @@ function occursAt(c: Compiled, v: number): boolean {
  */
 export function isOccurrenceDayNumber(rule: Rule, dayNumber: number): boolean {
   const c = compiledIn(rule, 'dates', 'is');
-  return occursAt(c, requireDayNumberArgument('dayNumber', dayNumber));
+  return occursAt(c, requireDayNumberArgument('dayNumber', dayNumber), 'dayNumber');
 }
 
 /**
@@ -372,5 +373,5 @@ export function isOccurrenceDayNumber(rule: Rule, dayNumber: number): boolean {
  */
 export function isOccurrenceEpochMs(rule: Rule, epochMs: number): boolean {
   const c = compiledIn(rule, 'instants', 'is');
-  return occursAt(c, Math.floor(requireEpochMs('epochMs', epochMs)));
+  return occursAt(c, Math.floor(requireEpochMs('epochMs', epochMs)), 'epochMs');
 }

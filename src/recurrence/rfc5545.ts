@@ -15,13 +15,14 @@ import { dayCountOfMonthUnchecked, packedYmdUnchecked } from '../civil/gregorian
 import { WEEKDAY_NAMES, dayCountOfMonthIndex, dayOfPacked, monthIndexOfPacked, weekdayFromName } from '../civil/names.js';
 import { defineRule, compiledOf, firstAtOrAfter } from './generate.js';
 import { resolveWall } from './engine-instants.js';
-import { formatInstant, formatPlainDate, formatPlainDateTime, parsePlainDateTime, toDayNumber, toEpochMs } from './deps.js';
+import { valueOf } from './occurrences.js';
+import { formatInstant, formatPlainDate, formatPlainDateTime, parsePlainDateTime, toDayNumber } from './deps.js';
 import type { Rfc5545Frequency, Rfc5545RuleDefinition, Rfc5545WeekdayNum, Rule, WeekdayName } from './types.js';
 
 const WEEKDAY_CODES = ['MO', 'TU', 'WE', 'TH', 'FR', 'SA', 'SU'] as const;
 
 function syntax(message: string, text: string, position: number, code: 'malformed' | 'unsupported' | 'out-of-range' = 'malformed'): KalendsSyntaxError {
-  return new KalendsSyntaxError(`parseRecurrenceRule: ${message} (at position ${position})`, { code, received: text, position });
+  return new KalendsSyntaxError(`text: ${message} (at position ${position})`, { code, received: text, position });
 }
 
 /** Options of {@link parseRecurrenceRule}. */
@@ -354,7 +355,7 @@ function rfcDefinitionOf(rule: Rule, origin?: unknown): Rfc5545RuleDefinition {
   if (rule.kind === 'business-days') throw unsupported('a rule of business days');
   if (rule.kind === 'periods') throw unsupported('a rule on the periods of a unit (fiscal periods)');
   let from: number;
-  if (origin !== undefined) from = c.values === 'dates' ? toDayNumber(origin) : toEpochMs(origin);
+  if (origin !== undefined) from = valueOf(c, origin, 'options.start');
   else if (d['start'] !== undefined) from = c.rawStart;
   else if (d['anchor'] !== undefined) {
     from = rule.kind === 'intraday' ? resolveWall(c.zone!, parsePlainDateTime(d['anchor'] as string)).earlier : toDayNumber(d['anchor']);

@@ -127,18 +127,18 @@ function monthRoller(rollDate: number, keepMonthEnd: boolean): (months: number) 
 function stepOf(step: unknown): { unit: 'months' | 'days'; n: number } | Rule {
   if (isRecord(step)) {
     if (ownField(step, 'kind') !== undefined && 'definition' in step) {
-      compiledOf(step, 'step');
+      compiledOf(step, 'options.step');
       return step as unknown as Rule;
     }
-    const s = readOptions('step', step, ['months', 'weeks', 'days']);
+    const s = readOptions('options.step', step, ['months', 'weeks', 'days']);
     const keys = ['months', 'weeks', 'days'].filter((k) => s[k] !== undefined);
     if (keys.length === 1) {
       const k = keys[0]!;
-      const n = requireWhole(`step.${k}`, s[k], 1, MAX_RULE_EVERY);
+      const n = requireWhole(`options.step.${k}`, s[k], 1, MAX_RULE_EVERY);
       return k === 'months' ? { unit: 'months', n } : { unit: 'days', n: k === 'weeks' ? 7 * n : n };
     }
   }
-  throw new KalendsTypeError(`step: expected one of { months: n }, { weeks: n }, { days: n }, or a date rule from defineRule, got ${describeValue(step)}`, {
+  throw new KalendsTypeError(`options.step: expected one of { months: n }, { weeks: n }, { days: n }, or a date rule from defineRule, got ${describeValue(step)}`, {
     code: 'invalid-type',
     received: step,
   });
@@ -252,19 +252,19 @@ export function defineSchedule(options: ScheduleOptions): Schedule {
     for (const d of interior) dates.push(d);
     dates.push(end);
   } else {
-    const c = compiledOf(step, 'step');
-    if (c.values !== 'dates') throw new KalendsTypeError(`step: expected a rule of dates, got a rule of instants (kind ${JSON.stringify(step.kind)}); a schedule steps by dates`, { code: 'invalid-type', received: step });
+    const c = compiledOf(step, 'options.step');
+    if (c.values !== 'dates') throw new KalendsTypeError(`options.step: expected a rule of dates, got a rule of instants (kind ${JSON.stringify(step.kind)}); a schedule steps by dates`, { code: 'invalid-type', received: step });
     if (Number.isFinite(c.engine.maxGap) && c.convention === 'none' && (Math.min(end, c.rawEnd) - Math.max(start, c.rawStart)) / c.engine.maxGap > MAX_SCHEDULE_PERIODS + 1) {
       throw tooManyPeriods(step);
     }
     const out = new Sink(64);
-    fillOccurrences(c, start + 1, end, out);
+    fillOccurrences(c, start + 1, end, out, ['options.start', 'options.end']);
     if (out.length > MAX_SCHEDULE_PERIODS) throw tooManyPeriods(step);
     dates.push(start);
     for (let i = 0; i < out.length; i++) dates.push(out.data[i]!);
     dates.push(end);
     const edge = new Sink(4);
-    fillOccurrences(c, front ? start : end, (front ? start : end) + 1, edge);
+    fillOccurrences(c, front ? start : end, (front ? start : end) + 1, edge, ['options.start', 'options.end']);
     irregular = edge.length === 0;
   }
   let stubSide: 'front' | 'back' | undefined = irregular ? (front ? 'front' : 'back') : undefined;

@@ -218,7 +218,9 @@ export function compileAggregations(
   const out: CompiledAggregation[] = [];
   const names = new Set<string>();
   let rowsOnly: Float64Array | undefined;
-  items.forEach((item, i) => {
+  // A loop, not forEach: forEach skips the holes of a sparse array, and a hole is refused like any non-name.
+  for (let i = 0; i < items.length; i++) {
+    const item = items[i];
     const p = Array.isArray(list) ? `${path}[${i}]` : path;
     let spec: OptionRecord;
     if (typeof item === 'string') spec = { kind: item };
@@ -263,7 +265,7 @@ export function compileAggregations(
     }
     names.add(name);
     out.push({ name, kind, column, values, q, ddof: estimator === 'sample' ? 1 : 0, method });
-  });
+  }
   return out;
 }
 

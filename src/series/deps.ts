@@ -19,11 +19,11 @@ export {
   exactMsOfDuration,
   formatDuration,
   negateDuration,
-  parseDuration,
   shiftDayNumber,
   shiftWallMs,
   toEpochMs,
 } from '../instant/index.js';
+export { readDuration } from '../instant/duration.js';
 export { dayNumberFromEpochMsBulk, epochMsFromWallMs, firstEpochMsOfDayNumber, wallMsFromEpochMsBulk } from '../zone/index.js';
 export { ordinalFromEpochMsBulk, shiftPeriodYears } from '../period/index.js';
 export { isBusinessDay, nextBusinessDay, previousBusinessDay, shiftBusinessDays } from '../business/index.js';

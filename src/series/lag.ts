@@ -336,7 +336,7 @@ export function periodChangeFromBuckets(table: BucketTable, options?: PeriodChan
   const value = colName !== undefined && hasOwn(table.columns, colName) ? table.columns[colName] : undefined;
   if (value === undefined) {
     throw new KalendsRangeError(`options.column: no column ${describeValue(colName)}; valid columns are ${table.columnNames.map((c) => JSON.stringify(c)).join(', ') || '(none)'}`, {
-      code: 'out-of-range',
+      code: 'unknown-name',
       received: colName,
       path: 'options.column',
     });

@@ -23,8 +23,8 @@ import {
   formatDuration,
   isBusinessDay,
   negateDuration,
-  parseDuration,
   previousBusinessDay,
+  readDuration,
   resolveCalendar,
   resolveZone,
   shiftBusinessDays,
@@ -90,7 +90,7 @@ const WINDOW_KINDS = {
 export function readSpan(span: unknown, path: string): Duration {
   let d: Duration;
   try {
-    if (typeof span === 'string') d = parseDuration(span);
+    if (typeof span === 'string') d = readDuration(span, path);
     else if (span !== null && typeof span === 'object') {
       d = 'sign' in span ? durationFromFields(Object.fromEntries(Object.entries(span).filter(([k]) => k !== 'sign'))) : durationFromFields(span as DurationFields);
     } else {

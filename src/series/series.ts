@@ -185,7 +185,8 @@ export function seriesFromRecords(records: readonly object[], options?: RecordOp
   const atField = optionOf(o, 'at') === undefined ? 'at' : requireColumnName('options.at', optionOf(o, 'at'));
   const spec = optionOf(o, 'columns') ?? ['value'];
   let pairs: [string, string][];
-  if (Array.isArray(spec)) pairs = spec.map((f: unknown, i) => [requireColumnName(`options.columns[${i}]`, f), f as string]);
+  // Array.from, not map: map skips the holes of a sparse array, and a hole is refused like any non-name.
+  if (Array.isArray(spec)) pairs = Array.from(spec as unknown[], (f: unknown, i) => [requireColumnName(`options.columns[${i}]`, f), f as string]);
   else if (isRecord(spec)) pairs = Object.keys(spec).map((k) => [k, requireColumnName(`options.columns.${k}`, spec[k])]);
   else {
     throw new KalendsTypeError(`options.columns: expected a list of field names or a map from column name to field name, got ${describeValue(spec)}`, {
@@ -320,7 +321,7 @@ export function makeSeries(times: Float64Array, names: readonly string[], cols: 
 }
 
 /**
- * The values of one column. Without `name`, the first column. An unknown name throws, listing the valid ones; a
+ * The values of one column. Without `column`, the first column. An unknown name throws, listing the valid ones; a
  * series of instants alone (no value column) says so.
  *
  * @example
@@ -328,10 +329,10 @@ export function makeSeries(times: Float64Array, names: readonly string[], cols: 
  * columnOfSeries(seriesFromPairs([[0, 1]]), 'value'); // Float64Array [1]
  * ```
  */
-export function columnOfSeries(series: Series, name?: string): Float64Array {
+export function columnOfSeries(series: Series, column?: string): Float64Array {
   requireSeries(series, 'series');
-  if (name !== undefined) requireColumnName('column', name);
-  return columnNamed(series, name, 'column');
+  if (column !== undefined) requireColumnName('column', column);
+  return columnNamed(series, column, 'column');
 }
 
 /**
@@ -350,7 +351,7 @@ export function columnNamed(series: Series, name: string | undefined, parameter:
   if (col === undefined) {
     const valid = series.columnNames.map((c) => JSON.stringify(c)).join(', ') || '(none)';
     throw new KalendsRangeError(`${parameter}: no column named ${describeValue(key)}; valid columns are ${valid}${didYouMean(key, series.columnNames)}`, {
-      code: 'out-of-range',
+      code: 'unknown-name',
       received: key,
       path: parameter,
     });

@@ -14,4 +14,4 @@ export { type Rule, type RuleDefinition, adjustmentOfOccurrence, defineRule, lis
 export { reasonOfMove } from '../recurrence/adjustments.js';
 export { type Profile, calendarOfProfile, unitOfProfile } from '../profile/index.js';
 export { placeOfPeriod, fillTemplate, templateOfUnit, formatDayForPeople } from '../profile/labels.js';
-export { requireProfile } from '../profile/profile.js';
+export { calendarNamed, requireProfile } from '../profile/profile.js';

@@ -12,7 +12,7 @@ import {
   type PeriodUnit,
   type Profile,
   MAX_DIMENSION_DAYS,
-  calendarOfProfile,
+  calendarNamed,
   dayNumberFromYmd,
   fillTemplate,
   formatDayForPeople,
@@ -81,12 +81,9 @@ export function exportRange(profile: Profile, options: Readonly<Record<string, u
 
 /** @internal The calendar of an export, or undefined when the profile has none. */
 export function exportCalendar(profile: Profile, name: unknown): { name: string; calendar: BusinessCalendar } | undefined {
-  const chosen = name ?? profile.warehouse?.calendarName ?? profile.defaultCalendarName;
+  const chosen = name !== undefined ? name : (profile.warehouse?.calendarName ?? profile.defaultCalendarName);
   if (chosen === undefined) return undefined;
-  if (typeof chosen !== 'string') {
-    throw new KalendsRangeError(`options.calendar: expected the name of one of the profile's calendars, got ${describeValue(chosen)}`, { code: 'out-of-range', received: chosen });
-  }
-  return { name: chosen, calendar: calendarOfProfile(profile, chosen) };
+  return { name: chosen as string, calendar: calendarNamed(profile, chosen, 'options.calendar') };
 }
 
 /** @internal Refuses a range outside a calendar's years, naming them. */

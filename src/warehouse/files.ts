@@ -16,6 +16,7 @@ import {
   type Profile,
   type WarehouseColumn,
   type WarehouseTable,
+  type Zone,
   type ZoneInput,
   KalendsRangeError,
   KalendsTypeError,
@@ -26,8 +27,31 @@ import {
   formatTableCsv,
   formatTableJsonLines,
   scheduleTableFromProfile,
+  toZone,
   transitionTableFromZones,
 } from 'kalends';
+
+/**
+ * A received value in a message, as the core's messages show it (strings quoted, other kinds named). This module
+ * uses the public surface only, so it keeps its own small copy.
+ */
+function describe(value: unknown): string {
+  if (typeof value === 'string') return JSON.stringify(value.length > 80 ? `${value.slice(0, 77)}...` : value);
+  if (typeof value === 'number') return Object.is(value, -0) ? '-0' : String(value);
+  if (typeof value === 'bigint') return `${value}n`;
+  if (value === null || value === undefined || typeof value === 'boolean') return String(value);
+  if (typeof value === 'function') return 'a function';
+  if (typeof value === 'symbol') return value.toString();
+  if (Array.isArray(value)) return `an array of length ${value.length}`;
+  const name = (Object.getPrototypeOf(value) as { constructor?: { name?: string } } | null)?.constructor?.name;
+  return name && name !== 'Object' ? `a ${name}` : 'an object';
+}
+
+function isPlainObject(v: unknown): v is Record<string, unknown> {
+  if (typeof v !== 'object' || v === null || Array.isArray(v)) return false;
+  const proto = Object.getPrototypeOf(v) as object | null;
+  return proto === null || Object.getPrototypeOf(proto) === null;
+}
 
 /** The file formats of an export. */
 export type WarehouseFileFormat = 'csv' | 'jsonl' | 'parquet';
@@ -74,7 +98,10 @@ function parquetColumn(c: WarehouseColumn): { element: ParquetSchemaElement; dat
  */
 export function parquetFromTable(table: WarehouseTable): Uint8Array {
   if (typeof table !== 'object' || table === null || !Array.isArray(table.columns)) {
-    throw new KalendsTypeError(`table: expected a warehouse table, got ${String(table)}`, { code: 'invalid-type', received: table });
+    throw new KalendsTypeError(`table: expected a warehouse table (from dimensionTableFromProfile, transitionTableFromZones or scheduleTableFromProfile), got ${describe(table)}`, {
+      code: 'invalid-type',
+      received: table,
+    });
   }
   const columns = table.columns.map(parquetColumn);
   const schema = [{ name: 'root', num_children: columns.length }, ...columns.map((c) => c.element)];
@@ -106,8 +133,19 @@ export interface ExportFile {
  * ```
  */
 export function writeFilesAtomically(directory: string, files: readonly ExportFile[]): string[] {
-  if (typeof directory !== 'string' || directory === '') {
-    throw new KalendsTypeError(`directory: expected a directory path, got ${JSON.stringify(directory)}`, { code: 'invalid-type', received: directory });
+  requireDirectory(directory);
+  if (!Array.isArray(files)) {
+    throw new KalendsTypeError(`files: expected an array of { name, content } files, got ${describe(files)}`, { code: 'invalid-type', received: files });
+  }
+  for (let i = 0; i < files.length; i++) {
+    const f: unknown = files[i];
+    const name = isPlainObject(f) ? f['name'] : undefined;
+    if (!isPlainObject(f) || typeof f['content'] !== 'function') {
+      throw new KalendsTypeError(`files[${i}]: expected { name, content } with content a function that makes the file, got ${describe(f)}`, { code: 'invalid-type', received: f });
+    }
+    if (typeof name !== 'string' || !/^[^/\\\0]+$/.test(name) || name === '.' || name === '..') {
+      throw new KalendsTypeError(`files[${i}].name: expected a file name (no directory part), got ${describe(name)}`, { code: 'invalid-type', received: name });
+    }
   }
   mkdirSync(directory, { recursive: true });
   const staged: { temp: string; final: string }[] = [];
@@ -116,7 +154,13 @@ export function writeFilesAtomically(directory: string, files: readonly ExportFi
       const final = join(directory, f.name);
       const temp = join(directory, `.${f.name}.partial-${process.pid}`);
       staged.push({ temp, final });
-      const content = f.content();
+      const content: unknown = f.content();
+      if (typeof content !== 'string' && !(content instanceof Uint8Array)) {
+        throw new KalendsTypeError(`files[${staged.length - 1}].content: expected a function that returns a string or a Uint8Array, got one that returned ${describe(content)}`, {
+          code: 'invalid-type',
+          received: content,
+        });
+      }
       const fd = openSync(temp, 'w');
       try {
         const bytes = typeof content === 'string' ? Buffer.from(content, 'utf8') : content;
@@ -135,6 +179,8 @@ export function writeFilesAtomically(directory: string, files: readonly ExportFi
         removed.push(s.temp);
       }
     }
+    // A refused value (a kalends error) is the caller's to fix, and stays what it is.
+    if (e instanceof KalendsTypeError || e instanceof KalendsRangeError) throw e;
     const why = e instanceof Error ? e.message : String(e);
     const error = new Error(
       `the export to ${directory} failed and wrote nothing under its final names: ${why}${removed.length ? `; removed the partial files ${removed.join(', ')}` : ''}`,
@@ -162,6 +208,22 @@ export interface WarehouseExportOptions {
 
 const EXPORT_OPTIONS = ['formats', 'start', 'end', 'calendar', 'zones'];
 
+/** The zones of options.zones, each checked under its own name (`options.zones[1]`). */
+function exportZones(zones: unknown): Zone[] {
+  if (!Array.isArray(zones) || zones.length === 0) {
+    throw new KalendsTypeError(`options.zones: expected a non-empty array of zones or zone ids, got ${describe(zones)}`, { code: 'invalid-type', received: zones });
+  }
+  const out: Zone[] = [];
+  for (let i = 0; i < zones.length; i++) out.push(toZone(zones[i] as ZoneInput, `options.zones[${i}]`));
+  return out;
+}
+
+function requireDirectory(directory: unknown): asserts directory is string {
+  if (typeof directory !== 'string' || directory === '' || directory.includes('\0')) {
+    throw new KalendsTypeError(`directory: expected a directory path (a non-empty string), got ${describe(directory)}`, { code: 'invalid-type', received: directory });
+  }
+}
+
 /**
  * Exports a profile for SQL engines into `directory`: `calendar_day`, `zone_offset_period` and
  * `schedule_occurrence` in each format, `load.duckdb.sql` (from Parquet when written, else CSV),
@@ -176,9 +238,10 @@ const EXPORT_OPTIONS = ['formats', 'start', 'end', 'calendar', 'zones'];
  * ```
  */
 export function writeWarehouseExport(profile: Profile, directory: string, options: WarehouseExportOptions = {}): string[] {
-  if (typeof options !== 'object' || options === null || Array.isArray(options)) {
-    throw new KalendsTypeError(`options: expected an options object or undefined, got ${String(options)}`, { code: 'invalid-type', received: options });
+  if (!isPlainObject(options as unknown)) {
+    throw new KalendsTypeError(`options: expected an options object or undefined, got ${describe(options)}`, { code: 'invalid-type', received: options });
   }
+  requireDirectory(directory);
   for (const key of Object.keys(options)) {
     if (!EXPORT_OPTIONS.includes(key)) {
       throw new KalendsTypeError(`options.${key}: unknown option; valid options are ${EXPORT_OPTIONS.map((k) => JSON.stringify(k)).join(', ')}`, {
@@ -190,11 +253,15 @@ export function writeWarehouseExport(profile: Profile, directory: string, option
   }
   const formats = options.formats ?? ['csv', 'parquet'];
   if (!Array.isArray(formats) || formats.length === 0) {
-    throw new KalendsTypeError(`options.formats: expected a non-empty array of formats (${FORMATS.join(', ')}), got ${String(formats)}`, { code: 'invalid-type', received: formats });
+    throw new KalendsTypeError(`options.formats: expected a non-empty array of formats (${FORMATS.join(', ')}), got ${describe(formats)}`, { code: 'invalid-type', received: formats });
   }
-  for (const f of formats) {
-    if (!FORMATS.includes(f)) {
-      throw new KalendsRangeError(`options.formats: expected formats among ${FORMATS.join(', ')}, got ${JSON.stringify(f)}`, { code: 'unknown-name', received: f });
+  for (let i = 0; i < formats.length; i++) {
+    const f: unknown = formats[i];
+    if (typeof f !== 'string') {
+      throw new KalendsTypeError(`options.formats[${i}]: expected one of ${FORMATS.map((x) => JSON.stringify(x)).join(', ')}, got ${describe(f)}`, { code: 'invalid-type', received: f });
+    }
+    if (!(FORMATS as readonly string[]).includes(f)) {
+      throw new KalendsRangeError(`options.formats[${i}]: expected one of ${FORMATS.map((x) => JSON.stringify(x)).join(', ')}, got ${describe(f)}`, { code: 'unknown-name', received: f });
     }
   }
   const range = { ...(options.start !== undefined ? { start: options.start } : {}), ...(options.end !== undefined ? { end: options.end } : {}) };
@@ -203,7 +270,7 @@ export function writeWarehouseExport(profile: Profile, directory: string, option
   const days = dimension.columns[0]!.values as Int32Array;
   const first = days[0]!;
   const end = days[days.length - 1]! + 1;
-  const zones = options.zones ?? profile.warehouse?.zones ?? [profile.zone];
+  const zones = options.zones === undefined ? (profile.warehouse?.zones ?? [profile.zone]) : exportZones(options.zones);
   // Two days' margin: local days start up to 26 hours from UTC midnight in the zones of the tz database.
   const startMs = firstEpochMsOfDayNumber('UTC', first) - 86_400_000 * 2;
   const endMs = firstEpochMsOfDayNumber('UTC', end) + 86_400_000 * 2;

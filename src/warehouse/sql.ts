@@ -121,12 +121,15 @@ export function formatExampleQueriesSql(dimension: WarehouseTable, options?: Exa
   const o = readOptions('options', options, ['labelColumns', 'groupBy']);
   const names = d.columns.map((c) => c.name);
   const given = o['labelColumns'];
-  if (given !== undefined && (!Array.isArray(given) || given.some((l) => typeof l !== 'string'))) {
+  if (given !== undefined && (!Array.isArray(given) || Array.from(given as unknown[]).some((l) => typeof l !== 'string'))) {
     throw new KalendsTypeError(`options.labelColumns: expected an array of column names, got ${describeValue(given)}`, { code: 'invalid-type', received: given });
   }
   const labels = (given as readonly string[] | undefined) ?? names.filter((n) => n.endsWith('_label'));
   for (const l of labels) {
     if (!names.includes(l)) throw new KalendsRangeError(`options.labelColumns: the dimension has no column ${JSON.stringify(l)}`, { code: 'unknown-name', received: l });
+  }
+  if (o['groupBy'] !== undefined && typeof o['groupBy'] !== 'string') {
+    throw new KalendsTypeError(`options.groupBy: expected a column name of the dimension, got ${describeValue(o['groupBy'])}`, { code: 'invalid-type', received: o['groupBy'] });
   }
   const groupBy = (o['groupBy'] as string | undefined) ?? labels[0] ?? 'calendar_date';
   if (!names.includes(groupBy)) throw new KalendsRangeError(`options.groupBy: the dimension has no column ${JSON.stringify(groupBy)}`, { code: 'unknown-name', received: groupBy });

@@ -92,12 +92,16 @@ export function transitionTableFromZones(zones: readonly ZoneInput[], startEpoch
   if (!Array.isArray(zones) || zones.length === 0) {
     throw new KalendsTypeError(`zones: expected a non-empty array of zones or zone ids, got ${describeValue(zones)}`, { code: 'invalid-type', received: zones });
   }
-  requireEpochMs('startEpochMs', startEpochMs);
-  requireEpochMs('endEpochMs', endEpochMs);
+  // The columns hold whole milliseconds (int64): an instant is that of its millisecond, Math.floor(t), as in
+  // listTransitions (docs/design.md, "Input rules").
+  startEpochMs = Math.floor(requireEpochMs('startEpochMs', startEpochMs));
+  endEpochMs = Math.floor(requireEpochMs('endEpochMs', endEpochMs));
   if (!(endEpochMs > startEpochMs)) {
     throw new KalendsRangeError(`endEpochMs: expected an instant after startEpochMs (${startEpochMs}), got ${endEpochMs}`, { code: 'out-of-range', received: endEpochMs });
   }
-  const compiled = zones.map((z, i) => toZone(z, `zones[${i}]`));
+  // A loop, not map: map skips the holes of a sparse array, and a hole is refused like any other non-zone.
+  const compiled: Zone[] = [];
+  for (let i = 0; i < zones.length; i++) compiled.push(toZone(zones[i]!, `zones[${i}]`));
   const zoneCol: string[] = [];
   const from: number[] = [];
   const to: number[] = [];

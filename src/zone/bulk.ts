@@ -92,7 +92,7 @@ export function dayNumbersOfCheckedInstants(zone: ZoneInput, src: Input, result:
     const off = e.offsetSeconds * 1000;
     for (let i = 0; i < n; i++) {
       const t = src[i] as number;
-      if (t >= MIN_EPOCH_MS && t <= MAX_EPOCH_MS) result[i] = Math.floor((t + off) / MS_PER_DAY);
+      if (t >= MIN_EPOCH_MS && t <= MAX_EPOCH_MS) result[i] = Math.floor((Math.floor(t) + off) / MS_PER_DAY);
       else if (sentinel) result[i] = INVALID_DAY_NUMBER;
       else invalidInstant('epochMs', i, t);
     }

@@ -11,9 +11,10 @@
  * (NaN, infinities, out of range) fail the table's range test and are handled outside the hot loop; in 'throw'
  * mode, elements before the first invalid one have been written to `out`.
  *
- * Fractional instants (docs/design.md, "Input rules") need nothing here: an instant t and Math.floor(t) fall on
- * the same UTC day and the same side of every transition (transitions and midnights are whole milliseconds), so
- * the day numbers are those of Math.floor(t), and wall times keep the fraction.
+ * Fractional instants (docs/design.md, "Input rules"): an instant t and Math.floor(t) fall on the same side of every
+ * transition and midnight (both are whole milliseconds), so the day numbers are those of Math.floor(t), and wall
+ * times keep the fraction; only a tiny negative t (a subnormal such as -5e-324) would vanish in the scaling to days,
+ * so the kernel that can meet negative instants floors them first (the one for days after 1970 cannot).
  *
  * @module
  */
@@ -183,7 +184,8 @@ function tableCovering(e: Engine, values: Input, from: number, current: RangedTa
 function dayNumbersKernel(src: Input, dst: Int32Array, i: number, n: number, tab: RangedTable): number {
   const { dayOffsets, d0, days, changeIndex, changeAt, changeBefore, changeAfter } = tab;
   for (; i < n; i++) {
-    const t = src[i] as number;
+    // Floored first: a tiny negative fraction (-5e-324) times 1 / 86,400,000 underflows to -0, on day 0, not -1.
+    const t = Math.floor(src[i] as number);
     const k = Math.floor(t * 1.1574074074074074e-8) - d0;
     if (!(k >= 0 && k < days)) return i;
     let off = dayOffsets[k]!;
@@ -334,7 +336,7 @@ export function fillFromDayTable<T extends Int32Array | Float64Array, C, A>(
 export const DAY_NUMBERS: Conversion<Int32Array, undefined, undefined> = {
   prepare: () => undefined,
   run: (src, dst, i, n, tab) => Reflect.apply(tab.d0 >= 1 ? dayNumbersKernelAfterEpoch : dayNumbersKernel, undefined, [src, dst, i, n, tab]) as number,
-  local: (t, offsetMs) => Math.floor((t + offsetMs) / MS_PER_DAY),
+  local: (t, offsetMs) => Math.floor((Math.floor(t) + offsetMs) / MS_PER_DAY),
 };
 
 export const WALL_MS: Conversion<Float64Array, undefined, undefined> = {

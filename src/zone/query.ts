@@ -186,7 +186,8 @@ export function wallMsFromEpochMs(zone: ZoneInput, epochMs: number): number {
 export function dayNumberFromEpochMs(zone: ZoneInput, epochMs: number): number {
   const e = engineOf(toZone(zone));
   requireEpochMs('epochMs', epochMs);
-  return Math.floor((epochMs + e.offsetAt(epochMs) * 1000) / MS_PER_DAY);
+  // Math.floor(t) first: a tiny negative fraction (-5e-324) would vanish in the division and give day 0.
+  return Math.floor((Math.floor(epochMs) + e.offsetAt(epochMs) * 1000) / MS_PER_DAY);
 }
 
 /**
@@ -297,12 +298,12 @@ function requireDisambiguation(value: unknown, name = 'disambiguation'): Disambi
   return requireEnum(name, value, DISAMBIGUATIONS, 'compatible');
 }
 
-function pick(z: Zone, r: WallResolution, wall: number, d: Disambiguation): number {
+function pick(z: Zone, r: WallResolution, wall: number, d: Disambiguation, name: string): number {
   if (r.kind === 'unique') return r.epochMs;
   if (r.kind === 'overlap') {
     if (d === 'reject') {
       throw new WallTimeRejectedError(
-        `wallMs: ${formatWallUnchecked(wall)} happened twice in ${z.id} (at offsets ${formatOffsetUnchecked(r.offsetBeforeSeconds)} and ${formatOffsetUnchecked(r.offsetAfterSeconds)}); use disambiguation 'earlier', 'later' or 'compatible' instead of 'reject'`,
+        `${name}: ${formatWallUnchecked(wall)} happened twice in ${z.id} (at offsets ${formatOffsetUnchecked(r.offsetBeforeSeconds)} and ${formatOffsetUnchecked(r.offsetAfterSeconds)}); use disambiguation 'earlier', 'later' or 'compatible' instead of 'reject'`,
         'overlap',
         z.id,
         wall,
@@ -312,7 +313,7 @@ function pick(z: Zone, r: WallResolution, wall: number, d: Disambiguation): numb
   }
   if (d === 'reject') {
     throw new WallTimeRejectedError(
-      `wallMs: ${formatWallUnchecked(wall)} does not exist in ${z.id}: the clocks went from ${formatWallUnchecked(r.startWallMs)} to ${formatWallUnchecked(r.endWallMs)} (offset ${formatOffsetUnchecked(r.offsetBeforeSeconds)} to ${formatOffsetUnchecked(r.offsetAfterSeconds)}); use disambiguation 'compatible', 'earlier' or 'later' instead of 'reject'`,
+      `${name}: ${formatWallUnchecked(wall)} does not exist in ${z.id}: the clocks went from ${formatWallUnchecked(r.startWallMs)} to ${formatWallUnchecked(r.endWallMs)} (offset ${formatOffsetUnchecked(r.offsetBeforeSeconds)} to ${formatOffsetUnchecked(r.offsetAfterSeconds)}); use disambiguation 'compatible', 'earlier' or 'later' instead of 'reject'`,
       'gap',
       z.id,
       wall,
@@ -338,7 +339,7 @@ export function epochMsFromWallMs(zone: ZoneInput, wallMs: number, disambiguatio
   const z = toZone(zone);
   requireWallMs('wallMs', wallMs);
   const d = requireDisambiguation(disambiguation);
-  return checkResult(pick(z, resolveOn(engineOf(z), wallMs), wallMs, d), 'wallMs', wallMs);
+  return checkResult(pick(z, resolveOn(engineOf(z), wallMs), wallMs, d, 'wallMs'), 'wallMs', wallMs);
 }
 
 /**
@@ -362,7 +363,9 @@ export function epochMsFromWallFields(zone: ZoneInput, fields: WallFieldsInput, 
   const second = requireInteger('fields.second', fields.second ?? 0, 0, 59);
   const millisecond = requireInteger('fields.millisecond', fields.millisecond ?? 0, 0, 999);
   const wall = dayNumberFromYmdUnchecked(year, month, day) * MS_PER_DAY + hour * 3_600_000 + minute * 60_000 + second * 1000 + millisecond;
-  return epochMsFromWallMs(zone, wall, disambiguation);
+  const z = toZone(zone);
+  const d = requireDisambiguation(disambiguation);
+  return checkResult(pick(z, resolveOn(engineOf(z), wall), wall, d, 'fields'), 'fields', fields);
 }
 
 /** Days in the 400-year Gregorian cycle: a whole number of weeks, so yearly rules repeat exactly after it. */

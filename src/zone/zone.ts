@@ -6,7 +6,7 @@
  */
 import { MAX_OFFSET_SECONDS, ZONE_CACHE_LIMIT } from '../bounds.js';
 import { KalendsRangeError, KalendsTypeError, describeValue } from '../errors.js';
-import { Issues, isRecord, optionOf, readOptions } from '../diagnostics/index.js';
+import { Issues, checkKeys, isRecord, optionOf, readOptions } from '../diagnostics/index.js';
 import { formatOffsetUnchecked } from '../instant/format.js';
 import { parseOffsetText } from '../instant/text.js';
 import { Engine, FixedEngine, IntlEngine, TableEngine } from './engine.js';
@@ -130,19 +130,24 @@ function looksLikeOffset(id: string): boolean {
  * ```
  */
 export function zoneFromOffset(offset: string | number): Zone {
+  return offsetZone(offset, 'offset');
+}
+
+/** {@link zoneFromOffset}, with the name of the parameter that held the offset (for messages). */
+function offsetZone(offset: unknown, name: string): Zone {
   let seconds: number;
   if (typeof offset === 'number') {
     if (!Number.isInteger(offset) || Math.abs(offset) > MAX_OFFSET_SECONDS) {
       throw new KalendsRangeError(
-        `offset: expected an integer number of seconds from -${MAX_OFFSET_SECONDS} to ${MAX_OFFSET_SECONDS}, got ${describeValue(offset)}`,
+        `${name}: expected an integer number of seconds from -${MAX_OFFSET_SECONDS} to ${MAX_OFFSET_SECONDS}, got ${describeValue(offset)}`,
         { code: 'out-of-range', received: offset },
       );
     }
     seconds = offset;
   } else if (typeof offset === 'string') {
-    seconds = parseOffsetText('offset', offset);
+    seconds = parseOffsetText(name, offset);
   } else {
-    throw new KalendsTypeError(`offset: expected a string like "+05:30" or a number of seconds, got ${describeValue(offset)}`, {
+    throw new KalendsTypeError(`${name}: expected a string like "+05:30" or a number of seconds, got ${describeValue(offset)}`, {
       code: 'invalid-type',
       received: offset,
     });
@@ -166,9 +171,10 @@ export function zoneFromOffset(offset: string | number): Zone {
  */
 export function zoneFromRules(data: ZoneRulesData): Zone {
   if (!isRecord(data)) {
-    throw new KalendsTypeError(`rules: expected a ZoneRulesData object, got ${describeValue(data)}`, { code: 'invalid-type', received: data });
+    throw new KalendsTypeError(`data: expected a ZoneRulesData object, got ${describeValue(data)}`, { code: 'invalid-type', received: data });
   }
   const issues = new Issues();
+  checkKeys(data, ['id', 'tzRelease', 'initialOffsetSeconds', 'transitionsSeconds', 'offsetsSeconds', 'tailRule'], '', issues);
   const off = (path: string, v: unknown): void => {
     if (typeof v !== 'number' || !Number.isInteger(v) || Math.abs(v) > MAX_OFFSET_SECONDS) {
       issues.add(path, `expected an integer offset in seconds within ±${MAX_OFFSET_SECONDS}, got ${describeValue(v)}`);
@@ -299,7 +305,7 @@ export function zoneCacheSize(): number {
 
 const sourceIds = new WeakMap<ZoneRulesSource, Map<string, string>>();
 
-function fromSource(id: string, source: ZoneRulesSource): Zone {
+function fromSource(id: string, source: ZoneRulesSource, name: string): Zone {
   let lower = sourceIds.get(source);
   if (!lower) {
     lower = new Map(source.ids.map((x) => [x.toLowerCase(), x]));
@@ -308,18 +314,18 @@ function fromSource(id: string, source: ZoneRulesSource): Zone {
   const exact = lower.get(id.toLowerCase());
   const data = exact === undefined ? undefined : source.rulesOf(exact);
   if (exact === undefined || data === undefined) {
-    throw new UnknownZoneError('id', id, suggestZoneIds(id, source.ids), `the pinned tz data ${source.tzRelease}`);
+    throw new UnknownZoneError(name, id, suggestZoneIds(id, source.ids), `the pinned tz data ${source.tzRelease}`);
   }
   const z = zoneFromRules(data);
   // Keep the source's release and mark the origin as TZif data.
   return makeZone({ ...z, source: 'tzif', tzRelease: data.tzRelease ?? source.tzRelease }, engineOf(z));
 }
 
-function fromIntl(id: string): Zone {
+function fromIntl(id: string, name: string): Zone {
   if (/^utc$/i.test(id)) return UTC_ZONE;
-  if (looksLikeOffset(id)) return zoneFromOffset(id);
+  if (looksLikeOffset(id)) return offsetZone(id, name);
   const format = id === '' ? undefined : probeFormatter(id);
-  if (!format) throw new UnknownZoneError('id', id, suggestZoneIds(id, runtimeZoneIds()));
+  if (!format) throw new UnknownZoneError(name, id, suggestZoneIds(id, runtimeZoneIds()));
   const canonicalId = format.resolvedOptions().timeZone ?? id;
   const listed = listedIdIgnoringCase(id);
   const normalized = listed ?? (canonicalId.toLowerCase() === id.toLowerCase() ? canonicalId : id);
@@ -348,19 +354,24 @@ function fromIntl(id: string): Zone {
  * ```
  */
 export function zoneFromId(id: string, options?: ZoneFromIdOptions): Zone {
+  return zoneNamed(id, options, 'id');
+}
+
+/** {@link zoneFromId}, with the name of the parameter that held the id (for messages). */
+function zoneNamed(id: unknown, options: unknown, name: string): Zone {
   if (typeof id !== 'string') {
-    throw new KalendsTypeError(`id: expected a time zone id string, got ${describeValue(id)}`, { code: 'invalid-type', received: id });
+    throw new KalendsTypeError(`${name}: expected a time zone id string, got ${describeValue(id)}`, { code: 'invalid-type', received: id });
   }
   const source = optionOf(readOptions('options', options, ['source']), 'source');
   if (source !== undefined) {
     requireRulesSource(source);
     if (/^utc$/i.test(id)) return UTC_ZONE;
-    if (looksLikeOffset(id)) return zoneFromOffset(id);
-    return fromSource(id, source);
+    if (looksLikeOffset(id)) return offsetZone(id, name);
+    return fromSource(id, source, name);
   }
   const hit = cacheGet(id);
   if (hit) return hit;
-  const z = fromIntl(id);
+  const z = fromIntl(id, name);
   cachePut(id, z);
   return z;
 }
@@ -385,15 +396,12 @@ function requireRulesSource(source: unknown): asserts source is ZoneRulesSource 
  * ```
  */
 export function toZone(input: ZoneInput, name = 'zone'): Zone {
+  if (typeof name !== 'string' || name === '') {
+    throw new KalendsTypeError(`name: expected the parameter name to use in messages (a non-empty string), got ${describeValue(name)}`, { code: 'invalid-type', received: name });
+  }
   if (typeof input === 'string') {
     const hit = cacheGet(input);
-    if (hit) return hit;
-    try {
-      return zoneFromId(input);
-    } catch (e) {
-      if (e instanceof UnknownZoneError && name !== 'id') throw new UnknownZoneError(name, input, e.suggestions);
-      throw e;
-    }
+    return hit ?? zoneNamed(input, undefined, name);
   }
   if (isZone(input)) return input;
   throw new KalendsTypeError(`${name}: expected a Zone or a time zone id string, got ${describeValue(input)}`, {

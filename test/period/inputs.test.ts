@@ -90,7 +90,7 @@ describe('labels: every fault is a KalendsSyntaxError with its position', () => 
       expect(e).toBeInstanceOf(KalendsSyntaxError);
       expect(e.code).toBe(code);
       expect(e.position).toBe(position);
-      expect(e.message.startsWith(`label: "${label}"`)).toBe(true);
+      expect(e.message.startsWith(`text: "${label}"`)).toBe(true);
     });
   }
 });
