@@ -21,6 +21,7 @@ export type {
   Rfc5545Frequency,
   Rfc5545WeekdayNum,
   Rfc5545RuleDefinition,
+  Rfc5545RuleParts,
   RuleDefinition,
   RuleKind,
   Rule,
