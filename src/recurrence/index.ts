@@ -54,3 +54,4 @@ export {
   defineSchedule,
 } from './schedule.js';
 export { describeRule } from './describe.js';
+export { type CalendarEvent, type FormatCalendarOptions, formatCalendar } from './icalendar.js';

@@ -170,13 +170,15 @@ export function parseRecurrenceRule(text: string, options?: ParseRecurrenceOptio
         throw syntax(`${line.name} is not part of a recurrence rule: only DTSTART, RRULE, RDATE and EXDATE are read`, text, line.at, 'unsupported');
     }
   }
-  if (rrules.length === 0) throw syntax('expected an RRULE line (or a rule starting with FREQ=)', text, 0);
+  if (rrules.length === 0 && rdates.length === 0 && !dtstart) throw syntax('expected an RRULE line (or a rule starting with FREQ=), or DTSTART with RDATE lines', text, 0);
   if (!dtstart && givenStart !== undefined) {
     dtstart = { iso: givenStart, utc: false, dated: !givenStart.includes('T'), tzid: undefined };
   }
   if (!dtstart) throw syntax('expected a DTSTART line (or options.start): the rule takes its first occurrence and missing parts from it', text, 0);
 
-  const def: Record<string, unknown> = { kind: 'rfc5545', ...readRuleParts(rrules[0]!, text) };
+  // Without an RRULE the set is DTSTART and any RDATE values (section 3.8.5.3): a rule of DTSTART alone.
+  const first = rrules.length > 0 ? readRuleParts(rrules[0]!, text) : { frequency: 'yearly', count: 1 };
+  const def: Record<string, unknown> = { kind: 'rfc5545', ...first };
   if (rrules.length > 1) def['additionalRules'] = rrules.slice(1).map((line) => readRuleParts(line, text));
   def['start'] = dtstart.iso.replace(/Z$/, '');
   if (dtstart.utc) def['zone'] = 'UTC';
