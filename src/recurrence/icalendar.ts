@@ -7,7 +7,7 @@
  * @module
  */
 import { KalendsTypeError, describeValue } from '../errors.js';
-import { isRecord, readOptions, requireEnum } from '../diagnostics/index.js';
+import { isRecord, readOptions, requireDayNumberArgument, requireEnum } from '../diagnostics/index.js';
 import { listTransitions, offsetSecondsFromEpochMs } from '../zone/index.js';
 import { MS_PER_DAY } from '../bounds.js';
 import { compiledOf } from './generate.js';
@@ -16,10 +16,15 @@ import { foldContentLine, formatRecurrenceRule } from './rfc5545.js';
 import { formatInstant, formatPlainDate, formatPlainDateTime, toEpochMs } from './deps.js';
 import type { Rule } from './types.js';
 
-/** One event of a calendar: a rule, its title, and a unique id. */
+/**
+ * One event of a calendar: a rule (or a list of dates, such as the payment dates of a `defineSchedule` schedule),
+ * its title, and a unique id.
+ */
 export interface CalendarEvent {
   /** The rule whose occurrences the event has (from `defineRule`, `parseRecurrenceRule` or `ruleOfProfile`). */
-  readonly rule: Rule;
+  readonly rule?: Rule;
+  /** Instead of a rule: the event's dates as day numbers (e.g. `schedule.periods.map((p) => p.adjustedEnd)`). */
+  readonly dates?: readonly number[];
   /** SUMMARY: the event's title. */
   readonly summary: string;
   /** UID: unique and stable across versions of the file, so that a subscribed calendar updates in place. */
@@ -106,6 +111,16 @@ function timezoneLines(zone: string, from: number, to: number): string[] {
   return lines;
 }
 
+/** Sorted, distinct day numbers of an event's `dates`, or a typed error naming the path. */
+function datesOf(v: unknown, path: string): number[] {
+  if (!Array.isArray(v) || v.length === 0) {
+    throw new KalendsTypeError(`${path}: expected a rule or a non-empty list of dates (day numbers), got dates ${describeValue(v)}`, { code: 'invalid-type', received: v });
+  }
+  const days = v.map((d, k) => requireDayNumberArgument(`${path}.dates[${k}]`, d));
+  days.sort((a, b) => a - b);
+  return days.filter((d, k) => k === 0 || d !== days[k - 1]);
+}
+
 /** An instant option, with its name in the error. */
 function instantOption(path: string, v: unknown): number {
   try {
@@ -119,8 +134,9 @@ function instantOption(path: string, v: unknown): number {
 }
 
 /**
- * Writes rules as an RFC 5545 iCalendar object (a VCALENDAR), ready to save as a `.ics` file or to serve for
- * subscription. With `form: 'rule'` each event carries its rule as DTSTART, RRULE, RDATE and EXDATE (a rule
+ * Writes rules (or lists of dates, such as a schedule's payment dates) as an RFC 5545 iCalendar object (a
+ * VCALENDAR), ready to save as a `.ics` file or to serve for subscription. An event of `dates` is one VEVENT with
+ * DTSTART and RDATE in the rule form, and one VEVENT per date in [from, to) in the occurrences form. With `form: 'rule'` each event carries its rule as DTSTART, RRULE, RDATE and EXDATE (a rule
  * with no RFC 5545 form, such as one on business days, is a `KalendsRangeError` `'unsupported'`: use
  * `'occurrences'`); with `form: 'occurrences'` each occurrence in [from, to) is its own VEVENT (UID
  * `uid/date`). Occurrences of dates are all-day events (DTSTART;VALUE=DATE); instants carry a TZID and a
@@ -147,18 +163,32 @@ export function formatCalendar(events: readonly CalendarEvent[], options: Format
   const body: string[] = [];
   events.forEach((e, i) => {
     if (!isRecord(e)) throw new KalendsTypeError(`events[${i}]: expected { rule, summary, uid }, got ${describeValue(e)}`, { code: 'invalid-type', received: e });
-    const c = compiledOf(e.rule, `events[${i}].rule`);
-    const rule = e.rule as Rule;
     const summary = requireText(`events[${i}].summary`, e.summary);
     const uid = requireText(`events[${i}].uid`, e.uid);
     const description = e.description === undefined ? undefined : requireText(`events[${i}].description`, e.description);
-    const zone = c.values === 'instants' && c.zone && c.zone.id !== 'UTC' ? c.zone.id : undefined;
-    if (zone) zones.add(zone);
     const head = (id: string): string[] => {
       const l = ['BEGIN:VEVENT', `UID:${escapeText(id)}`, `DTSTAMP:${stamp}`, `SUMMARY:${escapeText(summary)}`];
       if (description !== undefined) l.push(`DESCRIPTION:${escapeText(description)}`);
       return l;
     };
+    if (e.rule === undefined) {
+      const days = datesOf(e.dates, `events[${i}]`);
+      const values = days.map((d) => formatPlainDate(d).replace(/-/g, ''));
+      if (form === 'rule') {
+        body.push(...head(uid), `DTSTART;VALUE=DATE:${values[0]}`);
+        if (values.length > 1) body.push(`RDATE;VALUE=DATE:${values.slice(1).join(',')}`);
+        body.push('END:VEVENT');
+      } else {
+        days.forEach((d, k) => {
+          if (d >= Math.floor(from / MS_PER_DAY) && d < Math.ceil(to / MS_PER_DAY)) body.push(...head(`${uid}/${values[k]}`), `DTSTART;VALUE=DATE:${values[k]}`, 'END:VEVENT');
+        });
+      }
+      return;
+    }
+    const c = compiledOf(e.rule, `events[${i}].rule`);
+    const rule = e.rule as Rule;
+    const zone = c.values === 'instants' && c.zone && c.zone.id !== 'UTC' ? c.zone.id : undefined;
+    if (zone) zones.add(zone);
     if (form === 'rule') {
       const text = formatRecurrenceRule(rule, { start: c.values === 'dates' ? formatPlainDate(Math.floor(from / MS_PER_DAY)) : formatInstant(from) });
       body.push(...head(uid), ...text.replace(/\n /g, '').split('\n'), 'END:VEVENT');

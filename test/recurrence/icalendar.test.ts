@@ -159,3 +159,30 @@ describe('VTIMEZONE parts, expanded by our own engine, reproduce the zone (RFC 5
     });
   }
 });
+
+describe('formatCalendar: a list of dates (the payment dates of a finance schedule)', () => {
+  it('rule form: one VEVENT with DTSTART and RDATE; occurrences form: one per date; both read back', async () => {
+    const { defineSchedule } = await import('../../src/index.js');
+    const schedule = defineSchedule({ start: '2025-01-15', end: '2026-01-15', step: { months: 3 } } as never);
+    const dates = schedule.periods.map((p) => p.adjustedEnd);
+    const event = { dates, summary: 'Coupon', uid: 'coupon@otterbrook.example' };
+    const ruleForm = formatCalendar([event], { stamp: FROM, from: FROM, to: TO });
+    expect(validateCalendar(ruleForm)).toEqual([]);
+    const [v] = components(ruleForm, 'VEVENT');
+    expect(listOccurrenceDayNumbers(parseRecurrenceRule(recurrenceLines(v!)), '2025-01-01', '2027-01-01')).toEqual(dates);
+    // Quarterly from 2025-01-15 to 2026-01-15: April, July, October, January (Temporal month arithmetic).
+    expect(dates.map(formatPlainDate)).toEqual([1, 2, 3, 4].map((k) => Temporal.PlainDate.from('2025-01-15').add({ months: 3 * k }).toString()));
+    const each = formatCalendar([event], { stamp: FROM, from: FROM, to: '2026-01-01T00:00:00Z', form: 'occurrences' });
+    expect(validateCalendar(each)).toEqual([]);
+    expect(components(each, 'VEVENT')).toHaveLength(3);
+  });
+
+  it('folds at 75 octets without splitting a character (RFC 5545 section 3.1)', () => {
+    const text = formatCalendar([{ dates: [20_000], summary: '🦦é'.repeat(40), uid: 'u' }], { stamp: FROM, from: FROM, to: TO });
+    for (const line of text.split('\r\n')) {
+      expect(new TextEncoder().encode(line).length).toBeLessThanOrEqual(75);
+      expect(line).not.toMatch(/[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/);
+    }
+    expect(text.replace(/\r\n /g, '')).toContain(`SUMMARY:${'🦦é'.repeat(40)}`);
+  });
+});
