@@ -1,6 +1,7 @@
 /**
  * @internal Expansion of RFC 5545 recurrence rules (section 3.3.10) for the date-level frequencies (DAILY,
- * WEEKLY, MONTHLY, YEARLY) and fixed steps for HOURLY and MINUTELY.
+ * WEEKLY, MONTHLY, YEARLY), fixed steps for HOURLY, MINUTELY and SECONDLY, and the recurrence set of several
+ * RRULEs and RDATE values; rules with time parts expand in ./rfc5545-times.ts.
  *
  * Each period of the frequency (a year, month, week or day, every INTERVAL-th one counted from DTSTART's) is
  * expanded to the days that satisfy every BYxxx part at once; this intersection is what the RFC's table of
