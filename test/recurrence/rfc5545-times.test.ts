@@ -9,7 +9,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { Temporal } from '@js-temporal/polyfill';
-import { DefinitionError, KalendsRangeError, KalendsSyntaxError, formatRecurrenceRule, iterateOccurrenceEpochMs, listOccurrenceEpochMs, listOccurrenceDayNumbers, formatPlainDate, parseRecurrenceRule } from '../../src/index.js';
+import { DefinitionError, KalendsRangeError, KalendsSyntaxError, describeRule, formatRecurrenceRule, iterateOccurrenceEpochMs, listOccurrenceEpochMs, listOccurrenceDayNumbers, formatPlainDate, parseRecurrenceRule } from '../../src/index.js';
 
 const SEED = 20261204;
 const NY = 'America/New_York';
@@ -33,6 +33,12 @@ describe('time parts (RFC 5545 section 3.3.10)', () => {
     const got = Array.from(iterateOccurrenceEpochMs(rule, ms('2025-01-01T00:00Z'), { limit: 100 }));
     const want = ['06:15:00', '06:15:30', '06:45:00', '06:45:30', '18:15:00', '18:15:30', '18:45:00', '18:45:30'].map((t) => ms(`2025-01-01T${t}Z`));
     expect(got).toEqual(want);
+  });
+
+  it('the plain-words description names the time parts, RDATE and further RRULEs', () => {
+    const rule = parseRecurrenceRule('DTSTART:20250106T090000Z\nRRULE:FREQ=WEEKLY;BYHOUR=9,15;BYMINUTE=30\nRRULE:FREQ=SECONDLY;COUNT=2\nRDATE:20250110T120000Z');
+    const text = describeRule(rule);
+    for (const part of ['at hour 9', '15', 'at minute 30', 'every second', 'also 2025-01-10T12:00:00']) expect(text).toContain(part);
   });
 
   it('missing time parts come from DTSTART (section 3.3.10: "the same as DTSTART")', () => {
