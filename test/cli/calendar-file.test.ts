@@ -37,6 +37,8 @@ describe('kalends calendar-file', () => {
     const bad = await cli(['calendar-file', 'month-end-close', '--profile', PROFILE, '--from', '2026-01-01', '--to', '2027-01-01', '--stamp', '2025-12-01T00:00:00Z']);
     expect(bad.code).toBe(1);
     expect(bad.err).toContain('no RFC 5545 form');
+    const json = await cli(['calendar-file', 'month-end-close', '--profile', PROFILE, '--from', '2026-01-01', '--to', '2026-03-01', '--occurrences', '--stamp', '2025-12-01T00:00:00Z', '--json']);
+    expect(validateCalendar((JSON.parse(json.out) as { calendar: string }).calendar)).toEqual([]);
     const usage = await cli(['calendar-file', 'month-end-close', '--profile', PROFILE, '--from', '2026-01-01']);
     expect(usage.code).toBe(2);
     expect(usage.err).toContain('--to');

@@ -191,12 +191,12 @@ function instantOption(args: ParsedArgs, name: string): number {
 const calendarFileCommand: Command = {
   name: 'calendar-file',
   summary: 'Write rules as an iCalendar (.ics) file to subscribe to (RFC 5545)',
-  usage: ['<rule>... --from <when> --to <when> [--occurrences] [--title <text>] [--domain <name>] [--stamp <instant>]'],
+  usage: ['<rule>... --from <when> --to <when> [--occurrences] [--title <text>] [--domain <name>] [--stamp <instant>] [--json]'],
   description: `Writes an RFC 5545 VCALENDAR to standard output (redirect it to a .ics file): one event per rule, carrying
 its RRULE, or with --occurrences one event per occurrence in [--from, --to). Rules with a time of day get a
 VTIMEZONE for their zone covering [--from, --to). Rules on business days (a profile's close, a payroll) have no
 RFC 5545 form: give --occurrences. With --profile, each <rule> may be the name of one of the profile's rules;
-otherwise give one rule.
+otherwise give one rule. With --json, one JSON object { calendar } holding the file's text.
 
 ${RULE_TEXT}`,
   options: [
@@ -208,6 +208,7 @@ ${RULE_TEXT}`,
     { name: 'stamp', value: '<instant>', text: 'when the file was made (DTSTAMP), RFC 3339; default: now' },
     START_OPTION,
     ZONE_OPTION,
+    JSON_OPTION,
   ],
   examples: [
     'kalends calendar-file month-end-close --profile examples/otterbrook.profile.json --from 2026-01-01 --to 2027-01-01 --occurrences > close.ics',
@@ -238,7 +239,8 @@ ${RULE_TEXT}`,
       throw new InputError(shellMessage(e, { 'options.form': '--occurrences' }));
     }
     const out = new Output(io);
-    await out.write(text);
+    // With --json: one JSON object holding the file's text (for programs that pass it on).
+    await out.write(optionFlag(args, 'json') ? `${JSON.stringify({ calendar: text })}\n` : text);
     await out.flush();
     return 0;
   },
