@@ -190,7 +190,10 @@ export function formatCalendar(events: readonly CalendarEvent[], options: Format
     const zone = c.values === 'instants' && c.zone && c.zone.id !== 'UTC' ? c.zone.id : undefined;
     if (zone) zones.add(zone);
     if (form === 'rule') {
-      const text = formatRecurrenceRule(rule, { start: c.values === 'dates' ? formatPlainDate(Math.floor(from / MS_PER_DAY)) : formatInstant(from) });
+      // A rule with its own start or anchor keeps it (its COUNT counts from there); one without starts at `from`.
+      const d = rule.definition as unknown as Record<string, unknown>;
+      const own = d['start'] !== undefined || d['anchor'] !== undefined;
+      const text = formatRecurrenceRule(rule, own ? undefined : { start: c.values === 'dates' ? formatPlainDate(Math.floor(from / MS_PER_DAY)) : formatInstant(from) });
       body.push(...head(uid), ...text.replace(/\n /g, '').split('\n'), 'END:VEVENT');
       return;
     }
