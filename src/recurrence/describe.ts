@@ -135,9 +135,21 @@ function describeCommon(d: Loose, rule: Rule): string {
 }
 
 function describeRfc(d: Loose): string {
+  const main = describeRfcParts(d);
+  const more = Array.isArray(d['additionalRules']) ? (d['additionalRules'] as Loose[]).map((r) => `; and ${describeRfcParts(r)}`).join('') : '';
+  const extra: string[] = [];
+  const start = String(d['start']);
+  const zone = d['zone'] === undefined ? (start.includes('T') ? ' (floating time, read as UTC)' : '') : ` ${String(d['zone'])}`;
+  extra.push(`starting ${start}${zone}`);
+  if (Array.isArray(d['include'])) extra.push(`also ${list((d['include'] as string[]).map(String))}`);
+  if (Array.isArray(d['exclude'])) extra.push(`except ${list((d['exclude'] as string[]).map(String))}`);
+  return `${main}${more}; ${extra.join(', ')}`;
+}
+
+function describeRfcParts(d: Loose): string {
   const freq = String(d['frequency']);
   const n = (d['interval'] as number | undefined) ?? 1;
-  const unit = { yearly: 'year', monthly: 'month', weekly: 'week', daily: 'day', hourly: 'hour', minutely: 'minute' }[freq] ?? freq;
+  const unit = { yearly: 'year', monthly: 'month', weekly: 'week', daily: 'day', hourly: 'hour', minutely: 'minute', secondly: 'second' }[freq] ?? freq;
   const parts = [n === 1 ? `every ${unit}` : `every ${n} ${unit}s`];
   if (Array.isArray(d['byMonth'])) parts.push(`in ${list((d['byMonth'] as number[]).map((m) => MONTHS[m - 1]!))}`);
   if (Array.isArray(d['byWeekNo'])) parts.push(`in week ${list((d['byWeekNo'] as number[]).map(String))} of the year`);
@@ -152,13 +164,12 @@ function describeRfc(d: Loose): string {
       )}`,
     );
   }
+  if (Array.isArray(d['byHour'])) parts.push(`at hour ${list((d['byHour'] as number[]).map(String))}`);
+  if (Array.isArray(d['byMinute'])) parts.push(`at minute ${list((d['byMinute'] as number[]).map(String))}`);
+  if (Array.isArray(d['bySecond'])) parts.push(`at second ${list((d['bySecond'] as number[]).map(String))}`);
   if (Array.isArray(d['bySetPos'])) parts.push(`keeping position ${list((d['bySetPos'] as number[]).map(String))} of each ${unit}'s set`);
-  const start = String(d['start']);
-  const zone = d['zone'] === undefined ? (start.includes('T') ? ' (floating time, read as UTC)' : '') : ` ${String(d['zone'])}`;
-  parts.push(`starting ${start}${zone}`);
   if (d['count'] !== undefined) parts.push(`${String(d['count'])} times`);
   if (d['until'] !== undefined) parts.push(`until ${String(d['until'])} inclusive`);
-  if (Array.isArray(d['exclude'])) parts.push(`except ${list((d['exclude'] as string[]).map(String))}`);
   if (d['weekStart'] !== undefined && d['weekStart'] !== 'monday') parts.push(`weeks start on ${weekdayOf(d['weekStart'])}`);
   return parts.join(', ');
 }

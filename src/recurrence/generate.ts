@@ -221,7 +221,7 @@ export function lastBefore(c: Compiled, before: number): number | undefined {
  * (RFC 5545 section 3.8.5.1: the recurrence set is generated, then the excluded dates removed). Engines whose
  * occurrences repeat locate it at a cost independent of the count; the others list up to MAX_LISTED_COUNT.
  */
-function locateCount(c: Compiled, definition: unknown): void {
+export function locateCount(c: Compiled, definition: unknown): void {
   const k = c.count! - 1;
   let nth: number | undefined;
   try {

@@ -21,6 +21,7 @@ export type {
   Rfc5545Frequency,
   Rfc5545WeekdayNum,
   Rfc5545RuleDefinition,
+  Rfc5545RuleParts,
   RuleDefinition,
   RuleKind,
   Rule,
@@ -58,3 +59,4 @@ export {
 export { describeRule } from './describe.js';
 export { type ClosedDay, type DateMove, type OccurrenceAdjustment, adjustmentOfOccurrence } from './adjustments.js';
 export { IMM_DATES, CREDIT_ROLL_DATES, MONTH_END_DATES } from './rolls.js';
+export { type CalendarEvent, type FormatCalendarOptions, formatCalendar } from './icalendar.js';

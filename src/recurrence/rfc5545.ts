@@ -1,10 +1,10 @@
 /**
- * RFC 5545 text: `parseRecurrenceRule` reads a recurrence rule (an RRULE with its DTSTART, and EXDATE lines)
- * into an `rfc5545` rule definition; `formatRecurrenceRule` writes a rule back as text. Supported parts: FREQ
- * (YEARLY, MONTHLY, WEEKLY, DAILY, HOURLY, MINUTELY), INTERVAL, COUNT, UNTIL, BYMONTH, BYWEEKNO, BYYEARDAY,
- * BYMONTHDAY, BYDAY (with ordinals), BYSETPOS, WKST; DTSTART with VALUE=DATE or TZID. Unsupported parts
- * (FREQ=SECONDLY, BYHOUR, BYMINUTE, BYSECOND, RDATE, EXRULE, RFC 7529 RSCALE/SKIP) give a `KalendsSyntaxError`
- * with code `'unsupported'` that names the part.
+ * RFC 5545 text: `parseRecurrenceRule` reads a recurrence rule (DTSTART, one or more RRULE lines, RDATE and
+ * EXDATE lines) into an `rfc5545` rule definition; `formatRecurrenceRule` writes a rule back as text. Supported
+ * parts: every part of section 3.3.10 (FREQ from SECONDLY to YEARLY, INTERVAL, COUNT, UNTIL, BYSECOND, BYMINUTE,
+ * BYHOUR, BYDAY with ordinals, BYMONTHDAY, BYYEARDAY, BYWEEKNO, BYMONTH, BYSETPOS, WKST); DTSTART with
+ * VALUE=DATE or TZID. EXRULE (removed by RFC 5545, Appendix A), RDATE;VALUE=PERIOD and RFC 7529 RSCALE/SKIP give
+ * a `KalendsSyntaxError` with code `'unsupported'` that names the part.
  *
  * @module
  */
@@ -16,8 +16,8 @@ import { WEEKDAY_NAMES, dayCountOfMonthIndex, dayOfPacked, monthIndexOfPacked, w
 import { defineRule, compiledOf, firstAtOrAfter } from './generate.js';
 import { resolveWall } from './engine-instants.js';
 import { valueOf } from './occurrences.js';
-import { formatInstant, formatPlainDate, formatPlainDateTime, parsePlainDateTime, toDayNumber } from './deps.js';
-import type { Rfc5545Frequency, Rfc5545RuleDefinition, Rfc5545WeekdayNum, Rule, WeekdayName } from './types.js';
+import { formatInstant, formatPlainDate, formatPlainDateTime, parsePlainDateTime, toDayNumber, toEpochMs } from './deps.js';
+import type { Rfc5545Frequency, Rfc5545RuleDefinition, Rfc5545RuleParts, Rfc5545WeekdayNum, Rule, WeekdayName } from './types.js';
 
 const WEEKDAY_CODES = ['MO', 'TU', 'WE', 'TH', 'FR', 'SA', 'SU'] as const;
 
@@ -110,9 +110,6 @@ function readWeekdayCode(code: string, part: string, text: string, at: number): 
 }
 
 const UNSUPPORTED_PARTS: Record<string, string> = {
-  BYSECOND: 'BYSECOND is not supported: occurrences carry the time of DTSTART',
-  BYMINUTE: 'BYMINUTE is not supported: occurrences carry the time of DTSTART (use an intraday rule for steps within a day)',
-  BYHOUR: 'BYHOUR is not supported: occurrences carry the time of DTSTART (use an intraday rule for steps within a day)',
   RSCALE: 'RSCALE (RFC 7529, non-Gregorian calendars) is not supported',
   SKIP: 'SKIP (RFC 7529) is not supported',
 };
@@ -139,8 +136,9 @@ export function parseRecurrenceRule(text: string, options?: ParseRecurrenceOptio
   const givenStart = optionalText('options.start', o['start']);
   const givenZone = optionalText('options.zone', o['zone']);
   let dtstart: { iso: string; utc: boolean; dated: boolean; tzid: string | undefined } | undefined;
-  let rrule: Line | undefined;
+  const rrules: Line[] = [];
   const exdates: string[] = [];
+  const rdates: string[] = [];
   for (const line of contentLines(text)) {
     switch (line.name) {
       case 'DTSTART': {
@@ -154,31 +152,47 @@ export function parseRecurrenceRule(text: string, options?: ParseRecurrenceOptio
         break;
       }
       case 'RRULE':
-        if (rrule) throw syntax('more than one RRULE: the recurrence set of several RRULE properties is undefined (RFC 5545 section 3.8.5.3)', text, line.at, 'unsupported');
-        rrule = line;
+        // Several RRULEs: RFC 5545 section 3.8.5.3 joins their sets (Appendix A deprecates this; we read it).
+        rrules.push(line);
         break;
-      case 'EXDATE': {
+      case 'EXDATE':
+      case 'RDATE': {
+        if (line.params.get('VALUE') === 'PERIOD') throw syntax('RDATE;VALUE=PERIOD is not supported: list the start of each period as a DATE-TIME', text, line.at, 'unsupported');
         let partAt = line.valueAt;
         for (const part of line.value.split(',')) {
-          exdates.push(readDateValue(part, text, partAt, 'EXDATE').iso);
+          (line.name === 'EXDATE' ? exdates : rdates).push(readDateValue(part, text, partAt, line.name).iso);
           partAt += part.length + 1;
         }
         break;
       }
-      case 'RDATE':
       case 'EXRULE':
-        throw syntax(`${line.name} is not supported: only RRULE, DTSTART and EXDATE are read`, text, line.at, 'unsupported');
+        throw syntax('EXRULE is not supported: RFC 5545 removed it (Appendix A); list the excluded values in EXDATE', text, line.at, 'unsupported');
       default:
-        throw syntax(`${line.name} is not part of a recurrence rule: only RRULE, DTSTART and EXDATE are read`, text, line.at, 'unsupported');
+        throw syntax(`${line.name} is not part of a recurrence rule: only DTSTART, RRULE, RDATE and EXDATE are read`, text, line.at, 'unsupported');
     }
   }
-  if (!rrule) throw syntax('expected an RRULE line (or a rule starting with FREQ=)', text, 0);
+  if (rrules.length === 0 && rdates.length === 0 && !dtstart) throw syntax('expected an RRULE line (or a rule starting with FREQ=), or DTSTART with RDATE lines', text, 0);
   if (!dtstart && givenStart !== undefined) {
     dtstart = { iso: givenStart, utc: false, dated: !givenStart.includes('T'), tzid: undefined };
   }
   if (!dtstart) throw syntax('expected a DTSTART line (or options.start): the rule takes its first occurrence and missing parts from it', text, 0);
 
-  const def: Record<string, unknown> = { kind: 'rfc5545' };
+  // Without an RRULE the set is DTSTART and any RDATE values (section 3.8.5.3): a rule of DTSTART alone.
+  const first = rrules.length > 0 ? readRuleParts(rrules[0]!, text) : { frequency: 'yearly', count: 1 };
+  const def: Record<string, unknown> = { kind: 'rfc5545', ...first };
+  if (rrules.length > 1) def['additionalRules'] = rrules.slice(1).map((line) => readRuleParts(line, text));
+  def['start'] = dtstart.iso.replace(/Z$/, '');
+  if (dtstart.utc) def['zone'] = 'UTC';
+  else if (dtstart.tzid !== undefined) def['zone'] = dtstart.tzid;
+  else if (!dtstart.dated && givenZone !== undefined) def['zone'] = givenZone;
+  if (exdates.length > 0) def['exclude'] = exdates.map((x) => x.replace(/Z$/, ''));
+  if (rdates.length > 0) def['include'] = rdates.map((x) => x.replace(/Z$/, ''));
+  return defineRule(def as unknown as Rfc5545RuleDefinition);
+}
+
+/** The parts of one RRULE value (RFC 5545 section 3.3.10), in our spelling. */
+function readRuleParts(rrule: Line, text: string): Record<string, unknown> {
+  const def: Record<string, unknown> = {};
   const seen = new Set<string>();
   let at = rrule.valueAt;
   for (const part of rrule.value.split(';')) {
@@ -193,8 +207,7 @@ export function parseRecurrenceRule(text: string, options?: ParseRecurrenceOptio
     switch (name) {
       case 'FREQ': {
         const f = value.toUpperCase();
-        if (f === 'SECONDLY') throw syntax('FREQ=SECONDLY is not supported: the finest step is MINUTELY', text, at, 'unsupported');
-        if (!['YEARLY', 'MONTHLY', 'WEEKLY', 'DAILY', 'HOURLY', 'MINUTELY'].includes(f)) {
+        if (!['YEARLY', 'MONTHLY', 'WEEKLY', 'DAILY', 'HOURLY', 'MINUTELY', 'SECONDLY'].includes(f)) {
           throw syntax(`FREQ: expected SECONDLY, MINUTELY, HOURLY, DAILY, WEEKLY, MONTHLY or YEARLY, got ${describeValue(value)}`, text, at);
         }
         def['frequency'] = f.toLowerCase() as Rfc5545Frequency;
@@ -229,6 +242,15 @@ export function parseRecurrenceRule(text: string, options?: ParseRecurrenceOptio
       case 'BYMONTHDAY':
         def['byMonthDay'] = readIntList(value, name, 1, 31, true, text, at);
         break;
+      case 'BYHOUR':
+        def['byHour'] = readIntList(value, name, 0, 23, false, text, at);
+        break;
+      case 'BYMINUTE':
+        def['byMinute'] = readIntList(value, name, 0, 59, false, text, at);
+        break;
+      case 'BYSECOND':
+        def['bySecond'] = readIntList(value, name, 0, 60, false, text, at);
+        break;
       case 'BYSETPOS':
         def['bySetPos'] = readIntList(value, name, 1, 366, true, text, at);
         break;
@@ -252,13 +274,11 @@ export function parseRecurrenceRule(text: string, options?: ParseRecurrenceOptio
     at += part.length + 1;
   }
   if (!seen.has('FREQ')) throw syntax('the FREQ rule part is required (RFC 5545 section 3.3.10)', text, rrule.valueAt);
-  if (seen.has('COUNT') && seen.has('UNTIL')) throw syntax('UNTIL and COUNT must not both occur in one rule (RFC 5545 section 3.3.10)', text, rrule.valueAt);
-  def['start'] = dtstart.iso.replace(/Z$/, '');
-  if (dtstart.utc) def['zone'] = 'UTC';
-  else if (dtstart.tzid !== undefined) def['zone'] = dtstart.tzid;
-  else if (!dtstart.dated && givenZone !== undefined) def['zone'] = givenZone;
-  if (exdates.length > 0) def['exclude'] = exdates.map((x) => x.replace(/Z$/, ''));
-  return defineRule(def as unknown as Rfc5545RuleDefinition);
+  if (seen.has('COUNT') && seen.has('UNTIL')) {
+    const raw = (n: string): string => JSON.stringify(rrule.value.split(';').find((x) => x.toUpperCase().startsWith(`${n}=`))!.slice(n.length + 1));
+    throw syntax(`UNTIL and COUNT must not both occur in one rule (RFC 5545 section 3.3.10), got COUNT=${raw('COUNT')} and UNTIL=${raw('UNTIL')}; keep one of them`, text, rrule.valueAt);
+  }
+  return def;
 }
 
 /** An optional string option. */
@@ -271,13 +291,36 @@ function compact(iso: string): string {
   return iso.replace(/[-:]/g, '').replace(/\.\d+/, '');
 }
 
-/** Folds a content line at 75 octets (RFC 5545 section 3.1). */
-function fold(line: string): string {
-  if (line.length <= 75) return line;
-  const parts = [line.slice(0, 75)];
-  for (let i = 75; i < line.length; i += 74) parts.push(` ${line.slice(i, i + 74)}`);
-  return parts.join('\n');
+/** UTF-8 length of the code point starting at `s[i]` (a surrogate pair is one 4-octet character). */
+function octetsAt(s: string, i: number): number {
+  const c = s.charCodeAt(i);
+  return c < 0x80 ? 1 : c < 0x800 ? 2 : c >= 0xd800 && c <= 0xdbff ? 4 : 3;
 }
+
+/**
+ * @internal Folds a content line into lines of at most 75 octets of UTF-8 (RFC 5545 section 3.1), each
+ * continuation starting with a space, never splitting a character. Joined with `newline`.
+ */
+export function foldContentLine(line: string, newline = '\n'): string {
+  const out: string[] = [];
+  let start = 0;
+  let octets = 0;
+  let limit = 75;
+  for (let i = 0; i < line.length; ) {
+    const n = octetsAt(line, i);
+    if (octets + n > limit) {
+      out.push(line.slice(start, i));
+      start = i;
+      octets = 0;
+      limit = 74; // a continuation line begins with one space
+    }
+    octets += n;
+    i += n === 4 ? 2 : 1;
+  }
+  out.push(line.slice(start));
+  return out.map((l, i) => (i === 0 ? l : ` ${l}`)).join(newline);
+}
+const fold = (line: string): string => foldContentLine(line);
 
 function unsupported(what: string): KalendsRangeError {
   return new KalendsRangeError(`rule: ${what} has no RFC 5545 form; list its occurrences instead of writing it as RFC 5545 text`, { code: 'unsupported', received: what });
@@ -315,6 +358,22 @@ export function formatRecurrenceRule(rule: Rule, options?: FormatRecurrenceOptio
   else if (def.zone === 'UTC') lines.push(`DTSTART:${startValue}Z`);
   else if (def.zone !== undefined) lines.push(`DTSTART;TZID=${def.zone}:${startValue}`);
   else lines.push(`DTSTART:${startValue}`);
+  lines.push(`RRULE:${ruleValue(def)}`);
+  for (const more of def.additionalRules ?? []) lines.push(`RRULE:${ruleValue(more)}`);
+  const listLine = (name: string, values: readonly string[] | undefined): void => {
+    if (!values || values.length === 0) return;
+    if (dated) lines.push(`${name};VALUE=DATE:${values.map(compact).join(',')}`);
+    else if (def.zone === 'UTC') lines.push(`${name}:${values.map((x) => `${compact(x)}Z`).join(',')}`);
+    else if (def.zone !== undefined) lines.push(`${name};TZID=${def.zone}:${values.map(compact).join(',')}`);
+    else lines.push(`${name}:${values.map(compact).join(',')}`);
+  };
+  listLine('RDATE', def.include);
+  listLine('EXDATE', def.exclude);
+  return lines.map(fold).join(newline);
+}
+
+/** The value of an RRULE line (RFC 5545 section 3.3.10 `recur`) for the given parts. */
+function ruleValue(def: Rfc5545RuleParts): string {
   const parts = [`FREQ=${def.frequency.toUpperCase()}`];
   if (def.interval !== undefined && def.interval !== 1) parts.push(`INTERVAL=${def.interval}`);
   if (def.count !== undefined) parts.push(`COUNT=${def.count}`);
@@ -324,17 +383,12 @@ export function formatRecurrenceRule(rule: Rule, options?: FormatRecurrenceOptio
   if (def.byYearDay) parts.push(`BYYEARDAY=${def.byYearDay.join(',')}`);
   if (def.byMonthDay) parts.push(`BYMONTHDAY=${def.byMonthDay.join(',')}`);
   if (def.byDay) parts.push(`BYDAY=${def.byDay.map((e) => `${e.nth ?? ''}${WEEKDAY_CODES[weekdayFromName(e.weekday) - 1]}`).join(',')}`);
+  if (def.byHour) parts.push(`BYHOUR=${def.byHour.join(',')}`);
+  if (def.byMinute) parts.push(`BYMINUTE=${def.byMinute.join(',')}`);
+  if (def.bySecond) parts.push(`BYSECOND=${def.bySecond.join(',')}`);
   if (def.bySetPos) parts.push(`BYSETPOS=${def.bySetPos.join(',')}`);
   if (def.weekStart !== undefined && def.weekStart !== 'monday') parts.push(`WKST=${WEEKDAY_CODES[weekdayFromName(def.weekStart) - 1]}`);
-  lines.push(`RRULE:${parts.join(';')}`);
-  if (def.exclude && def.exclude.length > 0) {
-    const values = def.exclude.map(compact).join(',');
-    if (dated) lines.push(`EXDATE;VALUE=DATE:${values}`);
-    else if (def.zone === 'UTC') lines.push(`EXDATE:${def.exclude.map((x) => `${compact(x)}Z`).join(',')}`);
-    else if (def.zone !== undefined) lines.push(`EXDATE;TZID=${def.zone}:${values}`);
-    else lines.push(`EXDATE:${values}`);
-  }
-  return lines.map(fold).join(newline);
+  return parts.join(';');
 }
 
 function weekdayName(v: unknown): WeekdayName {

@@ -232,7 +232,7 @@ export interface IntradayRuleDefinition {
 }
 
 /** RFC 5545 frequency (the FREQ rule part), in lower case. */
-export type Rfc5545Frequency = 'yearly' | 'monthly' | 'weekly' | 'daily' | 'hourly' | 'minutely';
+export type Rfc5545Frequency = 'yearly' | 'monthly' | 'weekly' | 'daily' | 'hourly' | 'minutely' | 'secondly';
 
 /** One BYDAY entry: a weekday, with an optional ordinal (RFC 5545 `weekdaynum`, e.g. `-1SU`). */
 export interface Rfc5545WeekdayNum {
@@ -243,18 +243,12 @@ export interface Rfc5545WeekdayNum {
 }
 
 /**
- * An RFC 5545 recurrence rule (section 3.3.10) with its DTSTART, as data. `parseRecurrenceRule` produces this;
- * the fields are the rule parts in our spelling.
+ * The rule parts of one RFC 5545 RRULE (section 3.3.10) in our spelling: the parts a second or later RRULE of
+ * the same text carries (`additionalRules` of {@link Rfc5545RuleDefinition}); it shares DTSTART and its zone.
  */
-export interface Rfc5545RuleDefinition {
-  /** Selects this kind of rule. */
-  readonly kind: 'rfc5545';
+export interface Rfc5545RuleParts {
   /** FREQ. */
   readonly frequency: Rfc5545Frequency;
-  /** DTSTART: a date (`"1997-09-02"`) or a local date-time (`"1997-09-02T09:00:00"`). */
-  readonly start: string;
-  /** TZID of DTSTART (an IANA id), `"UTC"` for a DTSTART in UTC; absent for a date or a floating time. */
-  readonly zone?: string;
   /** INTERVAL (default 1). */
   readonly interval?: number;
   /** COUNT: at most this many occurrences, DTSTART included. */
@@ -271,10 +265,33 @@ export interface Rfc5545RuleDefinition {
   readonly byMonthDay?: readonly number[];
   /** BYDAY. */
   readonly byDay?: readonly Rfc5545WeekdayNum[];
+  /** BYHOUR: hours 0 to 23 of the local time. */
+  readonly byHour?: readonly number[];
+  /** BYMINUTE: minutes 0 to 59. */
+  readonly byMinute?: readonly number[];
+  /** BYSECOND: seconds 0 to 60 (60, a leap second, is read as 59: instants here have no leap seconds). */
+  readonly bySecond?: readonly number[];
   /** BYSETPOS (1..366 or -366..-1). */
   readonly bySetPos?: readonly number[];
   /** WKST (default monday). */
   readonly weekStart?: WeekdayName;
+}
+
+/**
+ * An RFC 5545 recurrence rule (section 3.3.10) with its DTSTART, as data. `parseRecurrenceRule` produces this;
+ * the fields are the rule parts in our spelling.
+ */
+export interface Rfc5545RuleDefinition extends Rfc5545RuleParts {
+  /** Selects this kind of rule. */
+  readonly kind: 'rfc5545';
+  /** DTSTART: a date (`"1997-09-02"`) or a local date-time (`"1997-09-02T09:00:00"`). */
+  readonly start: string;
+  /** TZID of DTSTART (an IANA id), `"UTC"` for a DTSTART in UTC; absent for a date or a floating time. */
+  readonly zone?: string;
+  /** RDATE values: dates or local date-times in the same form as `start`, added to the set. */
+  readonly include?: readonly string[];
+  /** Further RRULE lines of the same text (RFC 5545 Appendix A deprecates several RRULEs in one component). */
+  readonly additionalRules?: readonly Rfc5545RuleParts[];
   /** EXDATE values: dates or local date-times in the same form as `start`. */
   readonly exclude?: readonly string[];
   /** A free label shown by `describeRule` and the CLI. */

@@ -570,6 +570,27 @@ const recurrence: Record<string, Row> = {
     R.object,
   ),
   describeRule: fn([P('rule', ruleKind, DATE_RULE)], R.string),
+  formatCalendar: fn(
+    [
+      P('events', nested(() => [{ rule: DATE_RULE(), summary: 'Supplier payments', uid: 'payments@example.invalid' }]), () => [{ rule: DATE_RULE(), summary: 'Supplier payments', uid: 'payments@example.invalid' }]),
+      P(
+        'options',
+        options(
+          {
+            // Instants in any form toEpochMs takes (epoch ms, RFC 3339 text, Date, Temporal.Instant).
+            stamp: anything({ valid: () => fc.constantFrom('2025-01-01T00:00:00Z', 1_735_689_600_000) }),
+            from: anything({ valid: () => fc.constantFrom('2025-01-01T00:00:00Z', 1_735_689_600_000) }),
+            to: anything({ valid: () => fc.constantFrom('2026-01-01T00:00:00Z', 1_767_225_600_000) }),
+            form: enumOf(['rule', 'occurrences'], { optional: true }),
+            productId: free({ optional: true }),
+          },
+          { optional: false, valid: () => ({ stamp: '2025-01-01T00:00:00Z', from: '2025-01-01T00:00:00Z', to: '2026-01-01T00:00:00Z', form: 'occurrences' }) },
+        ),
+        () => ({ stamp: '2025-01-01T00:00:00Z', from: '2025-01-01T00:00:00Z', to: '2026-01-01T00:00:00Z', form: 'occurrences' }),
+      ),
+    ],
+    R.string,
+  ),
   adjustmentOfOccurrence: fn([P('rule', ruleKind, DATE_RULE), P('dayNumber', dayNumbers(), D2025 + 14)], R.object),
   IMM_DATES: CONSTANT,
   CREDIT_ROLL_DATES: CONSTANT,

@@ -44,9 +44,10 @@ describe('kalends schedule', () => {
     const usage = await cli(['schedule', '{"kind":"days"}', '--from', '2025-01-01']);
     expect(usage.code).toBe(2);
     expect(usage.err).toContain('--to');
-    const unsupported = await cli(['schedule', 'DTSTART:19970902T090000Z\\nRRULE:FREQ=DAILY;BYHOUR=9', '--from', '1997-01-01T00:00Z', '--count', '1']);
+    const unsupported = await cli(['schedule', 'DTSTART:19970902T090000Z\\nRRULE:FREQ=DAILY;BYHOUR=24', '--from', '1997-01-01T00:00Z', '--count', '1']);
     expect(unsupported.code).toBe(1);
     expect(unsupported.err).toContain('BYHOUR');
+    expect(unsupported.err).toContain('"24"');
   });
 });
 

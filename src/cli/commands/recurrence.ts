@@ -11,12 +11,14 @@ import {
   adjustmentOfOccurrence,
   defineRule,
   describeRule,
+  formatCalendar,
   formatInstant,
   formatPlainDate,
   formatRecurrenceRule,
   iterateOccurrenceDayNumbers,
   iterateOccurrenceEpochMs,
   parseRecurrenceRule,
+  ruleOfProfile,
   toDayNumber,
   toEpochMs,
 } from '../../index.js';
@@ -38,7 +40,7 @@ import {
   shellMessage,
   weekdayTitle,
 } from '../kit.js';
-import { ruleFromProfileOption } from '../profile.js';
+import { profileOfArgs, ruleFromProfileOption } from '../profile.js';
 
 const RULE_TEXT = `<rule> is a JSON rule definition ('{"kind":"monthly","on":{"day":15}}'), RFC 5545 text
 ('DTSTART;VALUE=DATE:20250101\\nRRULE:FREQ=WEEKLY;BYDAY=FR', or a bare 'FREQ=...' with --start),
@@ -189,5 +191,74 @@ ${RULE_TEXT}`,
   },
 };
 
+/** An instant from a date (its midnight UTC) or an RFC 3339 instant. */
+function instantOption(args: ParsedArgs, name: string): number {
+  const text = optionString(args, name);
+  if (text === undefined) throw new UsageError(`--${name} is required: a date YYYY-MM-DD or an RFC 3339 instant`);
+  try {
+    return toEpochMs(/^[+-]?\d{4,6}-\d{2}-\d{2}$/.test(text) ? `${text}T00:00:00Z` : text);
+  } catch (e) {
+    throw new UsageError(`--${name}: ${shellMessage(e)}`);
+  }
+}
+
+const calendarFileCommand: Command = {
+  name: 'calendar-file',
+  summary: 'Write rules as an iCalendar (.ics) file to subscribe to (RFC 5545)',
+  usage: ['<rule>... --from <when> --to <when> [--occurrences] [--title <text>] [--domain <name>] [--stamp <instant>] [--json]'],
+  description: `Writes an RFC 5545 VCALENDAR to standard output (redirect it to a .ics file): one event per rule, carrying
+its RRULE, or with --occurrences one event per occurrence in [--from, --to). Rules with a time of day get a
+VTIMEZONE for their zone covering [--from, --to). Rules on business days (a profile's close, a payroll) have no
+RFC 5545 form: give --occurrences. With --profile, each <rule> may be the name of one of the profile's rules;
+otherwise give one rule. With --json, one JSON object { calendar } holding the file's text.
+
+${RULE_TEXT}`,
+  options: [
+    { name: 'from', value: '<when>', text: 'start of the span the file covers: a date (midnight UTC) or an RFC 3339 instant. Required.' },
+    { name: 'to', value: '<when>', text: 'end of the span, exclusive. Required.' },
+    { name: 'occurrences', text: 'one event per occurrence in the span instead of one event per rule' },
+    { name: 'title', value: '<text>', text: "the events' title (SUMMARY) for a single rule; default: the rule's label or name" },
+    { name: 'domain', value: '<name>', text: 'domain that makes the event ids (UID) unique, e.g. your company domain (default calendar.invalid)' },
+    { name: 'stamp', value: '<instant>', text: 'when the file was made (DTSTAMP), RFC 3339; default: now' },
+    START_OPTION,
+    ZONE_OPTION,
+    JSON_OPTION,
+  ],
+  examples: [
+    'kalends calendar-file month-end-close --profile examples/otterbrook.profile.json --from 2026-01-01 --to 2027-01-01 --occurrences > close.ics',
+    `kalends calendar-file 'DTSTART;TZID=America/New_York:20260105T090000\\nRRULE:FREQ=WEEKLY;BYDAY=MO;BYHOUR=9,15' --from 2026-01-01 --to 2027-01-01 --title 'Stand-up'`,
+  ],
+  async run(args, io) {
+    const from = instantOption(args, 'from');
+    const to = instantOption(args, 'to');
+    if (to <= from) throw new UsageError(`--to ${optionString(args, 'to')} is not after --from ${optionString(args, 'from')}`);
+    const stampText = optionString(args, 'stamp');
+    const stamp = stampText === undefined ? Date.now() : instantOption(args, 'stamp');
+    const domain = optionString(args, 'domain') ?? 'calendar.invalid';
+    const title = optionString(args, 'title');
+    const profile = profileOfArgs(args);
+    const named = profile !== undefined && args.positionals.length > 0 && args.positionals.every((n) => Object.prototype.hasOwnProperty.call(profile.rules, n));
+    const rules: { rule: Rule; name: string }[] = named
+      ? args.positionals.map((n) => ({ rule: ruleOfProfile(profile, n), name: n }))
+      : [{ rule: await ruleArgument(args, io), name: 'rule' }];
+    if (title !== undefined && rules.length > 1) throw new UsageError('--title names the events of a single rule; with several rules each takes its label or name');
+    const events = rules.map(({ rule, name }) => {
+      const label = (rule.definition as { label?: unknown }).label;
+      return { rule, summary: title ?? (typeof label === 'string' && label !== '' ? label : name), uid: `${name}@${domain}` };
+    });
+    let text: string;
+    try {
+      text = formatCalendar(events, { stamp, from, to, form: optionFlag(args, 'occurrences') ? 'occurrences' : 'rule' });
+    } catch (e) {
+      throw new InputError(shellMessage(e, { 'options.form': '--occurrences' }));
+    }
+    const out = new Output(io);
+    // With --json: one JSON object holding the file's text (for programs that pass it on).
+    await out.write(optionFlag(args, 'json') ? `${JSON.stringify({ calendar: text })}\n` : text);
+    await out.flush();
+    return 0;
+  },
+};
+
 /** Commands of this layer. */
-export const commands: readonly Command[] = [scheduleCommand, explainCommand];
+export const commands: readonly Command[] = [scheduleCommand, explainCommand, calendarFileCommand];
