@@ -54,41 +54,80 @@ function tableFor(e: Engine, lo: number, hi: number): DayTable | undefined {
   return hi - lo <= MAX_DAY_TABLE_DAYS ? e.dayTable(lo, hi) : undefined;
 }
 
-// ---- kernels: no checks, no allocation ------------------------------------------------------------------------
+// ---- kernels: no checks but the table's bounds, no allocation -------------------------------------------------
+//
+// Each kernel reads day numbers as offsets into a table of `days` days and stops at the first offset outside it,
+// returning -1 - its index (the caller then checks the input in full, which names the bad element, or builds a
+// table over the input's days). Offsets are compared unsigned (`x >>> 0`): a negative one is huge. Called with
+// Int32Array inputs only (integers by construction), or after a full check.
 
-function testKernel(rank: Int32Array, base: number, d: ArrayLike<number>, o: Uint8Array, len: number): void {
+function testKernel(rank: Int32Array, days: number, base: number, d: ArrayLike<number>, o: Uint8Array, len: number): number {
   for (let i = 0; i < len; i++) {
     const x = d[i]! - base;
+    if (x >>> 0 >= days) return -1 - i;
     o[i] = rank[x + 1]! - rank[x]!;
   }
+  return 0;
 }
 
-function countKernel(rank: Int32Array, base: number, a: ArrayLike<number>, b: ArrayLike<number>, o: Int32Array, len: number): void {
-  for (let i = 0; i < len; i++) o[i] = rank[b[i]! - base]! - rank[a[i]! - base]!;
+function countKernel(rank: Int32Array, days: number, base: number, a: ArrayLike<number>, b: ArrayLike<number>, o: Int32Array, len: number): number {
+  for (let i = 0; i < len; i++) {
+    const x = a[i]! - base;
+    const y = b[i]! - base;
+    if (x >>> 0 > days || y >>> 0 > days) return -1 - i;
+    o[i] = rank[y]! - rank[x]!;
+  }
+  return 0;
 }
 
-function shiftKernel(rank: Int32Array, days: Int32Array, base: number, d: ArrayLike<number>, n: ArrayLike<number>, o: Int32Array, len: number): void {
-  const total = days.length;
+/** Shifts by n[i]; returns the number of answers outside the table (written as NOT_IN_TABLE), or -1 - index. */
+function shiftKernel(rank: Int32Array, businessDays: Int32Array, days: number, base: number, d: ArrayLike<number>, n: ArrayLike<number>, o: Int32Array, len: number): number {
+  const total = businessDays.length;
+  let missed = 0;
   for (let i = 0; i < len; i++) {
     const x = d[i]! - base;
+    if (x >>> 0 >= days) return -1 - i;
     const m = n[i]!;
     const k = m > 0 ? rank[x + 1]! + m - 1 : rank[x]! + m;
-    o[i] = k >= 0 && k < total ? days[k]! : -2147483648;
+    if (k >= 0 && k < total) o[i] = businessDays[k]!;
+    else {
+      o[i] = -2147483648;
+      missed++;
+    }
   }
+  return missed;
 }
 
-function shiftByKernel(rank: Int32Array, days: Int32Array, base: number, d: ArrayLike<number>, m: number, o: Int32Array, len: number): void {
-  const total = days.length;
+function shiftByKernel(rank: Int32Array, businessDays: Int32Array, days: number, base: number, d: ArrayLike<number>, m: number, o: Int32Array, len: number): number {
+  const total = businessDays.length;
   const step = m > 0 ? 1 : 0;
   const add = m > 0 ? m - 1 : m;
+  let missed = 0;
   for (let i = 0; i < len; i++) {
-    const k = rank[d[i]! - base + step]! + add;
-    o[i] = k >= 0 && k < total ? days[k]! : -2147483648;
+    const x = d[i]! - base;
+    if (x >>> 0 >= days) return -1 - i;
+    const k = rank[x + step]! + add;
+    if (k >= 0 && k < total) o[i] = businessDays[k]!;
+    else {
+      o[i] = -2147483648;
+      missed++;
+    }
   }
+  return missed;
 }
 
-function lookupKernel(table: Int32Array, base: number, d: ArrayLike<number>, o: Int32Array, len: number): void {
-  for (let i = 0; i < len; i++) o[i] = table[d[i]! - base]!;
+/** One load per element from a per-day table; returns the number of NOT_IN_TABLE answers, or -1 - index. */
+function lookupKernel(table: Int32Array, base: number, d: ArrayLike<number>, o: Int32Array, len: number): number {
+  const days = table.length;
+  let missed = 0;
+  for (let i = 0; i < len; i++) {
+    const x = d[i]! - base;
+    if (x >>> 0 >= days) return -1 - i;
+    const v = table[x]!;
+    o[i] = v;
+    if (v === -2147483648) missed++;
+  }
+  return missed;
 }
 
 /** The adjusted day of every day of the table by one convention (NOT_IN_TABLE where it lies outside the table or the scalar form throws). */
@@ -127,6 +166,15 @@ function adjustedTable(t: DayTable, convention: BusinessDayConvention): Int32Arr
 // ---- public functions ---------------------------------------------------------------------------------------
 
 /**
+ * The cached table, when every array is an Int32Array (integers by construction): the kernels then check each
+ * day against the table's bounds as they go, and the input needs no pass of its own.
+ */
+function fastTable(e: Engine, ...arrays: ArrayLike<number>[]): DayTable | undefined {
+  for (const a of arrays) if (!(a instanceof Int32Array)) return undefined;
+  return e.cachedDayTable;
+}
+
+/**
  * {@link isBusinessDay} over many day numbers: 1 where the day is a business day, 0 where it is not. `out`, when
  * given, must be a Uint8Array at least as long as `dayNumbers`.
  *
@@ -141,9 +189,11 @@ export function isBusinessDayBulk(calendar: CalendarInput, dayNumbers: ArrayLike
   const len = d.length;
   const o = requireOutArray('out', out, Uint8Array, len);
   if (len === 0) return o;
+  const fast = fastTable(e, d);
+  if (fast && Reflect.apply(testKernel, undefined, [fast.rank, fast.days, fast.base, d, o, len]) === 0) return o;
   const { min, max } = scanDays(e, 'dayNumbers', d, len, 0);
   const t = tableFor(e, min, max + 1);
-  if (t) Reflect.apply(testKernel, undefined, [t.rank, t.base, d, o, len]);
+  if (t) Reflect.apply(testKernel, undefined, [t.rank, t.days, t.base, d, o, len]);
   else for (let i = 0; i < len; i++) o[i] = e.isBusinessDay(d[i]!) ? 1 : 0;
   return o;
 }
@@ -166,6 +216,8 @@ export function countBusinessDaysBulk(calendar: CalendarInput, start: ArrayLike<
   requireSameLength('end', b, len, 'start');
   const o = requireOutArray('out', out, Int32Array, len);
   if (len === 0) return o;
+  const fast = fastTable(e, a, b);
+  if (fast && Reflect.apply(countKernel, undefined, [fast.rank, fast.days, fast.base, a, b, o, len]) === 0) return o;
   const sa = scanDays(e, 'start', a, len, 1);
   const sb = scanDays(e, 'end', b, len, 1);
   const lo = Math.min(sa.min, sb.min);
@@ -173,7 +225,7 @@ export function countBusinessDaysBulk(calendar: CalendarInput, start: ArrayLike<
   // A table over [lo, hi) holds the rank of hi too (its last entry).
   const t = hi > lo ? tableFor(e, lo, hi) : undefined;
   if (hi === lo) o.fill(0, 0, len);
-  else if (t) Reflect.apply(countKernel, undefined, [t.rank, t.base, a, b, o, len]);
+  else if (t) Reflect.apply(countKernel, undefined, [t.rank, t.days, t.base, a, b, o, len]);
   else for (let i = 0; i < len; i++) o[i] = a[i]! <= b[i]! ? e.countBetween(a[i]!, b[i]!) : -e.countBetween(b[i]!, a[i]!);
   return o;
 }
@@ -198,33 +250,37 @@ export function shiftBusinessDaysBulk(calendar: CalendarInput, dayNumbers: Array
   const d = requireNumberArray('dayNumbers', dayNumbers);
   const len = d.length;
   let each: ArrayLike<number> | undefined;
-  let amounts: Span;
-  if (typeof n === 'number') {
-    requireWhole('n', n, -Number.MAX_SAFE_INTEGER, Number.MAX_SAFE_INTEGER);
-    amounts = { min: n, max: n };
-  } else {
+  if (typeof n === 'number') requireWhole('n', n, -Number.MAX_SAFE_INTEGER, Number.MAX_SAFE_INTEGER);
+  else {
     each = requireNumberArray('n', n);
     requireSameLength('n', each, len, 'dayNumbers');
-    amounts = len === 0 ? { min: 0, max: 0 } : scanAmounts(each, len);
   }
   const o = requireOutArray('out', out, Int32Array, len);
   if (len === 0) return o;
-  const { min, max } = scanDays(e, 'dayNumbers', d, len, 0);
-  // The input's days, and as much room for the shifts on each side as a table allows.
-  const core = max + 1 - min;
-  let t: DayTable | undefined;
-  if (core <= MAX_DAY_TABLE_DAYS) {
-    const room = MAX_DAY_TABLE_DAYS - core;
-    const before = Math.min(reachOf(e, -amounts.min), room >> 1, min - e.firstDay);
-    const after = Math.min(reachOf(e, Math.max(amounts.max, 1)), room - before, e.endDay - max - 1);
-    t = e.dayTable(min - before, max + 1 + after);
+  const run = (t: DayTable): number =>
+    each
+      ? Reflect.apply(shiftKernel, undefined, [t.rank, t.businessDays, t.days, t.base, d, each, o, len])
+      : Reflect.apply(shiftByKernel, undefined, [t.rank, t.businessDays, t.days, t.base, d, n, o, len]);
+  const fast = each ? fastTable(e, d, each) : fastTable(e, d);
+  // The cached table, unless a day lies outside it or more than one answer in 64 does.
+  let missed = fast ? run(fast) : -1;
+  if (missed < 0 || missed > len >> 6) {
+    const amounts = each ? scanAmounts(each, len) : { min: n as number, max: n as number };
+    const { min, max } = scanDays(e, 'dayNumbers', d, len, 0);
+    // The input's days, and as much room for the shifts on each side as a table allows.
+    const core = max + 1 - min;
+    if (core <= MAX_DAY_TABLE_DAYS) {
+      const room = MAX_DAY_TABLE_DAYS - core;
+      const before = Math.min(reachOf(e, -amounts.min), room >> 1, min - e.firstDay);
+      const after = Math.min(reachOf(e, Math.max(amounts.max, 1)), room - before, e.endDay - max - 1);
+      missed = run(e.dayTable(min - before, max + 1 + after));
+    } else {
+      o.fill(NOT_IN_TABLE, 0, len);
+      missed = len;
+    }
   }
-  if (t) {
-    if (each) Reflect.apply(shiftKernel, undefined, [t.rank, t.businessDays, t.base, d, each, o, len]);
-    else Reflect.apply(shiftByKernel, undefined, [t.rank, t.businessDays, t.base, d, n, o, len]);
-  } else o.fill(NOT_IN_TABLE, 0, len);
   // Answers outside the table: the scalar path, which also throws what the single form throws.
-  for (let i = 0; i < len; i++) if (o[i] === NOT_IN_TABLE) o[i] = e.shift(d[i]!, each ? each[i]! : (n as number));
+  if (missed > 0) for (let i = 0; i < len; i++) if (o[i] === NOT_IN_TABLE) o[i] = e.shift(d[i]!, each ? each[i]! : (n as number));
   return o;
 }
 
@@ -244,11 +300,18 @@ export function adjustDayNumberBulk(calendar: CalendarInput, dayNumbers: ArrayLi
   const len = d.length;
   const o = requireOutArray('out', out, Int32Array, len);
   if (len === 0) return o;
-  const { min, max } = scanDays(e, 'dayNumbers', d, len, 0);
-  const t = tableFor(e, min, max + 1);
-  if (t) Reflect.apply(lookupKernel, undefined, [adjustedTable(t, convention), t.base, d, o, len]);
-  else o.fill(NOT_IN_TABLE, 0, len);
+  const fast = fastTable(e, d);
+  let missed = fast ? Reflect.apply(lookupKernel, undefined, [adjustedTable(fast, convention), fast.base, d, o, len]) : -1;
+  if (missed < 0) {
+    const { min, max } = scanDays(e, 'dayNumbers', d, len, 0);
+    const t = tableFor(e, min, max + 1);
+    if (t) missed = Reflect.apply(lookupKernel, undefined, [adjustedTable(t, convention), t.base, d, o, len]);
+    else {
+      o.fill(NOT_IN_TABLE, 0, len);
+      missed = len;
+    }
+  }
   // Days whose answer lies outside the table, or that the single form refuses: the single form.
-  for (let i = 0; i < len; i++) if (o[i] === NOT_IN_TABLE) o[i] = adjustDayNumber(calendar, d[i]!, convention);
+  if (missed > 0) for (let i = 0; i < len; i++) if (o[i] === NOT_IN_TABLE) o[i] = adjustDayNumber(calendar, d[i]!, convention);
   return o;
 }

@@ -359,6 +359,11 @@ export class Engine {
    * the cached one when it covers the range, else a new one over the range widened by up to a year on each side
    * (so that nearby calls reuse it), which replaces the cache.
    */
+  /** @internal The table kept from the last call that built one, if any. */
+  get cachedDayTable(): DayTable | undefined {
+    return this.table;
+  }
+
   dayTable(lo: number, hi: number, widen = 366): DayTable {
     const t = this.table;
     if (t && lo >= t.base && hi <= t.base + t.days) return t;
