@@ -128,6 +128,36 @@ export function rollingFloorLoop(t: Float64Array, v: Float64Array, lengthMs: num
   return out[n - 1]!;
 }
 
+/**
+ * The least a compensated rolling mean can cost: {@link rollingFloorLoop} with each add and subtract compensated
+ * (Neumaier's variant of Kahan summation: one TwoSum-like correction term per operation, no re-basing). It is a
+ * bound for the compensated kernel, not a replacement: its error still grows with the series' length.
+ */
+export function rollingCompensatedBoundLoop(t: Float64Array, v: Float64Array, lengthMs: number, out: Float64Array, n: number): number {
+  let lo = 0;
+  let hi = 0;
+  let sum = 0;
+  let c = 0;
+  for (let i = 0; i < n; i++) {
+    const x = t[i]!;
+    while (hi < n && t[hi]! <= x) {
+      const a = v[hi++]!;
+      const s = sum + a;
+      c += Math.abs(sum) >= Math.abs(a) ? sum - s + a : a - s + sum;
+      sum = s;
+    }
+    const start = x - lengthMs;
+    while (t[lo]! <= start) {
+      const a = -v[lo++]!;
+      const s = sum + a;
+      c += Math.abs(sum) >= Math.abs(a) ? sum - s + a : a - s + sum;
+      sum = s;
+    }
+    out[i] = (sum + c) / (hi - lo);
+  }
+  return out[n - 1]!;
+}
+
 /** Days from 1970-01-01 of a proleptic Gregorian date, by integer math (for the lean Temporal baselines). */
 export function daysFromCivil(y: number, m: number, d: number): number {
   const yy = m <= 2 ? y - 1 : y;

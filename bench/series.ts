@@ -1,7 +1,7 @@
 import { bucketSeries, rollBulk, rollSeries, seriesFromColumns, type Series } from '../src/index.js';
 import { type Benchmark, seededRandom } from './harness.js';
 import { windowStartBound } from './window-bound.js';
-import { bucketFloorLoop, rollingFloorLoop, sameOutput } from './floors.js';
+import { bucketFloorLoop, rollingCompensatedBoundLoop, rollingFloorLoop, sameOutput } from './floors.js';
 import { Temporal } from 'temporal-polyfill';
 
 const N = 10_000_000;
@@ -126,6 +126,7 @@ function rolling30Days(): Benchmark {
   const out = new Float64Array(N);
   const window = { lengthMs: 30 * 86_400_000 };
   const floorOut = new Float64Array(N);
+  const boundOut = new Float64Array(N);
   const floor = rollingFloorCase(s, window.lengthMs, floorOut);
   floor.run();
   sameOutput('rolling floor', rollBulk(s.epochMs, s.columns.amount!, { window, aggregation: 'mean' }, out), floorOut, N, 1e-9);
@@ -146,6 +147,10 @@ function rolling30Days(): Benchmark {
     },
     baselines: [
       floor,
+      {
+        name: 'bound: the floor loop with compensated (Neumaier) adds and subtracts',
+        run: () => Reflect.apply(rollingCompensatedBoundLoop, undefined, [s.epochMs, s.columns.amount!, window.lengthMs, boundOut, N]) as number,
+      },
       {
         name: 'rollSeries (allocates its output)',
         run: () => rollSeries(s, { window, aggregations: ['mean'] }).columns.mean![N - 1]!,
