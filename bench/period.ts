@@ -2,6 +2,7 @@ import { Temporal } from 'temporal-polyfill';
 import { dayNumberFromEpochMsBulk } from '../src/zone/index.js';
 import { defineUnit, ordinalFromDayNumberBulk, ordinalFromEpochMsBulk, type PeriodUnit } from '../src/period/index.js';
 import { type Benchmark, seededRandom } from './harness.js';
+import { keyFloorLoop, sameOutput, zoneDayFloorTable } from './floors.js';
 
 const N = 1_000_000;
 const SAMPLE = 20_000;
@@ -30,15 +31,18 @@ function retailYearEnd(year: number): Temporal.PlainDate {
  * drifting speed (this virtual machine's moves by up to 2x over seconds) falls on both alike; the per-element
  * Temporal sample, which takes most of a second, runs last.
  */
-function baselines(data: Float64Array, out: Int32Array, perElement: (ms: number) => number): Benchmark['baselines'] {
+function baselines(data: Float64Array, out: Int32Array, unit: PeriodUnit, perElement: (ms: number) => number): Benchmark['baselines'] {
+  // The floor: the local day from a precomputed per-UTC-day offset table (temporal-polyfill's transitions), then
+  // the key from a precomputed per-day key table (the unit's ordinal of every day 1999..2040).
+  const zt = zoneDayFloorTable(ZONE, Date.UTC(2000, 0, 1), Date.UTC(2040, 0, 1));
+  const keyBase = Math.floor(Date.UTC(1999, 11, 1) / 86_400_000);
+  const allDays = Int32Array.from({ length: Math.floor(Date.UTC(2040, 1, 1) / 86_400_000) - keyBase }, (_, i) => keyBase + i);
+  const keys = ordinalFromDayNumberBulk(unit, allDays);
+  const runFloor = (): number => Reflect.apply(keyFloorLoop, undefined, [zt.d0, zt.offsets, zt.before, zt.changeAt, zt.after, keys, keyBase, data, out, N]);
+  runFloor();
+  sameOutput('period floor', ordinalFromEpochMsBulk(unit, ZONE, data), out, N);
   return [
-    {
-      name: 'floor loop: fixed-offset day number',
-      run: () => {
-        for (let i = 0; i < N; i++) out[i] = Math.floor((data[i]! - 18_000_000) / 86_400_000);
-        return out[N - 1];
-      },
-    },
+    { name: 'floor: per-UTC-day offset table, then a per-day key table (precomputed)', run: runFloor },
     {
       name: 'zone bulk day numbers alone (no period step)',
       run: () => dayNumberFromEpochMsBulk(ZONE, data, out)[N - 1],
@@ -67,7 +71,7 @@ function bench(name: string, description: string, unit: PeriodUnit, perElement: 
       rounds: 9,
       processes: 3,
       ours: { name: 'kalends ordinalFromEpochMsBulk', run: () => ordinalFromEpochMsBulk(unit, ZONE, data, out)[N - 1] },
-      baselines: baselines(data, new Int32Array(N), perElement),
+      baselines: baselines(data, new Int32Array(N), unit, perElement),
     };
   };
 }

@@ -12,7 +12,7 @@ import { fileURLToPath } from 'node:url';
 import { runBenchmark, type Benchmark } from './harness.js';
 import { benchmarks as civil } from './civil.js';
 import { benchmarks as instant } from './instant.js';
-import { benchmarks as zone } from './zone.js';
+import { benchmarks as zone, firstAnswerChild } from './zone.js';
 import { benchmarks as period } from './period.js';
 import { benchmarks as business } from './business.js';
 import { benchmarks as daycount } from './daycount.js';
@@ -29,7 +29,11 @@ const filter = args.filter((a, i) => a !== '--only-index' && (at < 0 || i !== at
 /** The line a child prints last, for the parent: processes wanted and the ratio of ours to the first baseline. */
 const META = '#meta ';
 
-if (only !== undefined) {
+const freshAt = args.indexOf('--fresh-child');
+if (freshAt >= 0) {
+  // A fresh process for the first-use benchmark (bench/zone.ts): one measurement, printed as JSON.
+  firstAnswerChild(args[freshAt + 1] ?? '');
+} else if (only !== undefined) {
   const b = all[only]!();
   if (b.name.includes(filter)) {
     const results = runBenchmark(b, (line) => console.log(line));

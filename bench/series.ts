@@ -1,6 +1,8 @@
 import { bucketSeries, rollBulk, rollSeries, seriesFromColumns, type Series } from '../src/index.js';
 import { type Benchmark, seededRandom } from './harness.js';
 import { windowStartBound } from './window-bound.js';
+import { bucketFloorLoop, rollingCompensatedBoundLoop, rollingFloorLoop, sameOutput } from './floors.js';
+import { Temporal } from 'temporal-polyfill';
 
 const N = 10_000_000;
 const YEAR_MS = 365.2425 * 86_400_000;
@@ -52,15 +54,35 @@ function memoryProbe(label: string): { before: () => void; after: () => void } {
   };
 }
 
-function floorCase(s: Series) {
+/**
+ * The bucketing floor: a plain bucket loop (sum and count per month, then the means) over the month boundaries in
+ * America/New_York precomputed with temporal-polyfill.
+ */
+function bucketFloorCase(s: Series) {
+  const bounds: number[] = [];
+  for (let m = 0; m <= 12 * 11 + 1; m++) {
+    const date = Temporal.PlainDate.from({ year: 2014 + Math.floor((m + 11) / 12), month: ((m + 11) % 12) + 1, day: 1 });
+    bounds.push(date.toZonedDateTime('America/New_York').epochMilliseconds);
+  }
+  const b = Float64Array.from(bounds);
+  const sums = new Float64Array(b.length);
+  const counts = new Float64Array(b.length);
+  const means = new Float64Array(b.length);
+  const t = s.epochMs;
   const v = s.columns.amount!;
+  const run = (): number => {
+    const last = Reflect.apply(bucketFloorLoop, undefined, [b, t, v, sums, counts, N]) as number;
+    for (let p = 0; p <= last; p++) means[p] = sums[p]! / counts[p]!;
+    return means[last]!;
+  };
+  return { name: 'floor: plain bucket loop over precomputed month boundaries (sum, count, mean)', run, sums, means };
+}
+
+/** The rolling floor: a plain, uncompensated two-pointer rolling sum (the mean of each window). */
+function rollingFloorCase(s: Series, lengthMs: number, out: Float64Array) {
   return {
-    name: 'plain Float64Array sum loop (floor)',
-    run: () => {
-      let acc = 0;
-      for (let i = 0; i < N; i++) acc += v[i]!;
-      return acc;
-    },
+    name: 'floor: plain uncompensated two-pointer rolling mean',
+    run: () => Reflect.apply(rollingFloorLoop, undefined, [s.epochMs, s.columns.amount!, lengthMs, out, N]) as number,
   };
 }
 
@@ -68,11 +90,17 @@ function floorCase(s: Series) {
 function bucketMonthly(): Benchmark {
   const s = tenMillionPoints();
   const probe = memoryProbe('bucket');
+  const floor = bucketFloorCase(s);
+  floor.run();
+  const table = bucketSeries(s, { unit: 'month', zone: 'America/New_York', aggregations: ['sum', 'mean'] });
+  sameOutput('bucket floor sums', table.columns.sum!, floor.sums, table.length, 1e-9);
+  sameOutput('bucket floor means', table.columns.mean!, floor.means, table.length, 1e-9);
   return {
     name: 'series-bucket-monthly',
     description: '10M irregular points over 10 years -> monthly sum and mean in America/New_York',
     elements: N,
     unit: 'point',
+    processes: 3,
     ours: {
       name: 'bucketSeries (sum, mean)',
       run: () => {
@@ -82,7 +110,7 @@ function bucketMonthly(): Benchmark {
         return t.columns.sum![t.length - 1]!;
       },
     },
-    baselines: [floorCase(s)],
+    baselines: [floor],
   };
 }
 
@@ -97,11 +125,17 @@ function rolling30Days(): Benchmark {
   const probe = memoryProbe('rolling');
   const out = new Float64Array(N);
   const window = { lengthMs: 30 * 86_400_000 };
+  const floorOut = new Float64Array(N);
+  const boundOut = new Float64Array(N);
+  const floor = rollingFloorCase(s, window.lengthMs, floorOut);
+  floor.run();
+  sameOutput('rolling floor', rollBulk(s.epochMs, s.columns.amount!, { window, aggregation: 'mean' }, out), floorOut, N, 1e-9);
   return {
     name: 'series-rolling-30d',
     description: '30-day (fixed-length) rolling mean over 10M irregular points',
     elements: N,
     unit: 'point',
+    processes: 3,
     ours: {
       name: 'rollBulk { lengthMs: 30 days } mean, reused output',
       run: () => {
@@ -112,7 +146,11 @@ function rolling30Days(): Benchmark {
       },
     },
     baselines: [
-      floorCase(s),
+      floor,
+      {
+        name: 'bound: the floor loop with compensated (Neumaier) adds and subtracts',
+        run: () => Reflect.apply(rollingCompensatedBoundLoop, undefined, [s.epochMs, s.columns.amount!, window.lengthMs, boundOut, N]) as number,
+      },
       {
         name: 'rollSeries (allocates its output)',
         run: () => rollSeries(s, { window, aggregations: ['mean'] }).columns.mean![N - 1]!,
@@ -134,7 +172,7 @@ function rollingCalendar(): Benchmark {
       name: 'rollSeries { span: P30D, zone } mean',
       run: () => rollSeries(s, { window: { span: 'P30D', zone: 'America/New_York' }, aggregations: ['mean'] }).columns.mean![N - 1]!,
     },
-    baselines: [floorCase(s)],
+    baselines: [rollingFloorCase(s, 30 * 86_400_000, new Float64Array(N))],
   };
 }
 
@@ -144,7 +182,7 @@ function rollingCalendar(): Benchmark {
  */
 function rollingBound(): Benchmark {
   const s = tenMillionPoints();
-  return windowStartBound(s, 30 * 86_400_000, floorCase(s));
+  return windowStartBound(s, 30 * 86_400_000, rollingFloorCase(s, 30 * 86_400_000, new Float64Array(N)));
 }
 
 /** Benchmarks of this layer. Each is a factory so that its data is made only when it runs. */

@@ -1,3 +1,4 @@
+import { spawnSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { gzipSync } from 'node:zlib';
@@ -7,6 +8,7 @@ import { IntlEngine } from '../src/zone/engine.js';
 import { probeFormatter } from '../src/zone/intl.js';
 import { pinnedZoneRules } from '../src/tzdata/index.js';
 import { type Benchmark, seededRandom } from './harness.js';
+import { daysFromCivil, sameOutput, zoneDayFloorLoop, zoneDayFloorTable } from './floors.js';
 
 const N = 1_000_000;
 const ZONE = 'America/New_York';
@@ -22,6 +24,11 @@ function localDayNumbers(): Benchmark {
   const temporalSample = 20_000;
   const intlSample = 100_000;
   const fmt = new Intl.DateTimeFormat('en-US', { timeZone: ZONE, year: 'numeric', month: 'numeric', day: 'numeric' });
+  const floor = zoneDayFloorTable(ZONE, lo, hi);
+  const check = new Int32Array(N);
+  const runFloor = (): number => Reflect.apply(zoneDayFloorLoop, undefined, [floor.d0, floor.offsets, floor.before, floor.changeAt, floor.after, instants, check, N]);
+  runFloor();
+  sameOutput('zone-day-numbers floor', dayNumberFromEpochMsBulk(ZONE, instants, out), check, N);
   return {
     name: 'zone-day-numbers',
     description: `random instants 2000-2040 -> local day numbers in ${ZONE} (Intl source)`,
@@ -35,21 +42,15 @@ function localDayNumbers(): Benchmark {
     },
     // The floor loop first, right after ours in every round (see bench/period.ts); the slow samples last.
     baselines: [
+      { name: 'floor: per-UTC-day offset table (precomputed), a multiplication', run: runFloor },
       {
-        name: 'floor loop Math.floor(ms / 86400000)',
-        run: () => {
-          for (let i = 0; i < N; i++) out[i] = Math.floor(instants[i]! / 86_400_000);
-          return out[N - 1];
-        },
-      },
-      {
-        name: 'temporal-polyfill Instant -> ZonedDateTime per element',
+        name: 'temporal-polyfill Instant -> ZonedDateTime per element, fields and integer math',
         elements: temporalSample,
         run: () => {
           let acc = 0;
           for (let i = 0; i < temporalSample; i++) {
             const z = Temporal.Instant.fromEpochMilliseconds(instants[i]!).toZonedDateTimeISO(ZONE);
-            acc += z.toPlainDate().since('1970-01-01').days;
+            acc += daysFromCivil(z.year, z.month, z.day);
           }
           return acc;
         },
@@ -137,6 +138,130 @@ function firstUse(): Benchmark {
   };
 }
 
+/** The instant of the first answer in the fresh-process benchmark, and the year its bulk calls cover. */
+const FIRST_ANSWER_MS = Date.UTC(2025, 6, 1, 12);
+
+/** 1M random instants of 2025 (seeded). */
+function instantsOf2025(): Float64Array {
+  const rnd = seededRandom(2025);
+  const lo = Date.UTC(2025, 0, 1);
+  const instants = new Float64Array(N);
+  for (let i = 0; i < N; i++) instants[i] = Math.floor(lo + rnd() * 365 * 86_400_000);
+  return instants;
+}
+
+/** The floor of a bulk pass: local day numbers at a fixed offset (-4 h), a multiplication per element. */
+function floorPass(instants: Float64Array, out: Int32Array): number {
+  for (let i = 0; i < instants.length; i++) out[i] = Math.floor((instants[i]! - 14_400_000) * 1.1574074074074074e-8);
+  return out[0]!;
+}
+
+/**
+ * The child side of {@link firstAnswerFresh}, run by `bench/run.ts --fresh-child <mode>` in a process of its own:
+ * with ICU already warm (one formatter made and used for another zone, as a process that has used Intl once),
+ * times the first zoned answer of one mode and prints it as JSON. Mode `kalends` also times the first and the
+ * second bulk call over 1M instants of 2025.
+ */
+export function firstAnswerChild(mode: string): void {
+  new Intl.DateTimeFormat('en-US', { timeZone: 'Europe/Paris' }).format(0);
+  const t0 = performance.now();
+  let answer: number;
+  if (mode === 'kalends') answer = offsetSecondsFromEpochMs(zoneFromId(ZONE), FIRST_ANSWER_MS);
+  else if (mode === 'temporal') answer = Temporal.Instant.fromEpochMilliseconds(FIRST_ANSWER_MS).toZonedDateTimeISO(ZONE).offsetNanoseconds / 1e9;
+  else answer = new Intl.DateTimeFormat('en-US', { timeZone: ZONE, timeZoneName: 'longOffset' }).formatToParts(FIRST_ANSWER_MS).length;
+  const ms = performance.now() - t0;
+  const result: Record<string, number> = { ms, answer };
+  if (mode === 'intl') {
+    // The runtime's own cold start for a bulk pass: a plain floor loop (fixed offset) over the same 1M instants,
+    // first call (interpreted until V8's optimizing compiler, working beside it, is done) and second call.
+    const instants = instantsOf2025();
+    const out = new Int32Array(N);
+    let t = performance.now();
+    floorPass(instants, out);
+    result['firstBulkMs'] = performance.now() - t;
+    t = performance.now();
+    floorPass(instants, out);
+    result['secondBulkMs'] = performance.now() - t;
+  }
+  if (mode === 'kalends') {
+    const instants = instantsOf2025();
+    const out = new Int32Array(N);
+    const z = zoneFromId(ZONE);
+    let t = performance.now();
+    dayNumberFromEpochMsBulk(z, instants, out);
+    result['firstBulkMs'] = performance.now() - t;
+    t = performance.now();
+    dayNumberFromEpochMsBulk(z, instants, out);
+    result['secondBulkMs'] = performance.now() - t;
+  }
+  console.log(JSON.stringify(result));
+}
+
+/**
+ * Time to the first zoned answer in fresh `node` processes (issue 17, section 3): kalends (zoneFromId and one
+ * offset), temporal-polyfill (its first ZonedDateTime) and a bare Intl formatter (the runtime's own start), each
+ * in 9 processes of its own, interleaved; and kalends' first and second bulk call over 1M instants. Prints its own
+ * table (the figures come from the children, not from this process).
+ */
+function firstAnswerFresh(): Benchmark {
+  let measured = false;
+  return {
+    name: 'zone-first-answer-fresh',
+    // Measured when the harness reads the description, so that a run filtered to other benchmarks (which makes
+    // every benchmark's factory to read its name) spawns nothing.
+    get description(): string {
+      if (!measured) measureFreshProcesses();
+      measured = true;
+      return 'the same first answer in this (warm) process after clearZoneCache, for comparison (fresh processes above)';
+    },
+    elements: 1,
+    unit: 'answer',
+    rounds: 21,
+    ours: {
+      name: 'kalends zoneFromId + offsetSecondsFromEpochMs, cache cleared',
+      run: () => {
+        clearZoneCache();
+        return offsetSecondsFromEpochMs(zoneFromId(ZONE), FIRST_ANSWER_MS);
+      },
+    },
+    baselines: [],
+  };
+}
+
+function measureFreshProcesses(): void {
+  const script = process.argv[1]!;
+  const modes = ['kalends', 'temporal', 'intl'] as const;
+  const runs: Record<string, Record<string, number>[]> = { kalends: [], temporal: [], intl: [] };
+  for (let r = 0; r < 9; r++) {
+    for (let m = 0; m < modes.length; m++) {
+      const mode = modes[(r + m) % modes.length]!;
+      const child = spawnSync(process.execPath, [script, '--fresh-child', mode], { encoding: 'utf8' });
+      const line = child.stdout.trim().split('\n').pop() ?? '';
+      if (child.status !== 0 || !line.startsWith('{')) throw new Error(`fresh child ${mode} failed: ${child.stderr}`);
+      runs[mode]!.push(JSON.parse(line) as Record<string, number>);
+    }
+  }
+  const med = (xs: number[]): number => [...xs].sort((a, b) => a - b)[xs.length >> 1]!;
+  const fmt = (xs: number[]): string => `${med(xs).toFixed(3)} ms (${Math.min(...xs).toFixed(3)}-${Math.max(...xs).toFixed(3)})`;
+  const of = (mode: string, key: string): number[] => runs[mode]!.map((x) => x[key]!);
+  const k = of('kalends', 'ms');
+  const tp = of('temporal', 'ms');
+  const intl = of('intl', 'ms');
+  console.log('\n## zone-first-answer-fresh: first zoned answer in a fresh node process, ICU warm (9 processes per case, interleaved)');
+  console.log(`   kalends zoneFromId + offsetSecondsFromEpochMs        ${fmt(k)}`);
+  console.log(`   temporal-polyfill first ZonedDateTime                ${fmt(tp)}`);
+  console.log(`   bare Intl.DateTimeFormat + formatToParts (runtime)   ${fmt(intl)}`);
+  console.log(`   kalends beyond the bare formatter: ${(med(k) - med(intl)).toFixed(3)} ms (goal <= 1 ms); kalends / temporal-polyfill: ${(med(k) / med(tp)).toFixed(2)}x (goal <= 1x)`);
+  const first = of('kalends', 'firstBulkMs');
+  const second = of('kalends', 'secondBulkMs');
+  const ratios = first.map((f, i) => f / second[i]!);
+  console.log(`   first bulk call, 1M instants of 2025: ${fmt(first)}; second: ${fmt(second)}; first / second ${med(ratios).toFixed(2)}x (${Math.min(...ratios).toFixed(2)}-${Math.max(...ratios).toFixed(2)}; goal <= 3x)`);
+  const f1 = of('intl', 'firstBulkMs');
+  const f2 = of('intl', 'secondBulkMs');
+  const fr = f1.map((f, i) => f / f2[i]!);
+  console.log(`   the runtime's own cold start: a plain floor loop over the same instants, first call ${fmt(f1)}; second: ${fmt(f2)}; first / second ${med(fr).toFixed(2)}x`);
+}
+
 /** Prints the memory of compiled tables and the size of the pinned module (not ratios: figures for the docs). */
 function footprint(): Benchmark {
   const g = (globalThis as { gc?: () => void }).gc;
@@ -174,4 +299,4 @@ function footprint(): Benchmark {
 }
 
 /** Benchmarks of this layer. Each is a factory so that its data is made only when it runs. */
-export const benchmarks: readonly (() => Benchmark)[] = [localDayNumbers, compileCentury, firstUse, footprint];
+export const benchmarks: readonly (() => Benchmark)[] = [localDayNumbers, compileCentury, firstUse, firstAnswerFresh, footprint];

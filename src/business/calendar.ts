@@ -199,7 +199,8 @@ function bundledCalendar(name: unknown, parameter: string): BusinessCalendar {
   return cal;
 }
 
-function engineOf(calendar: CalendarInput): Engine {
+/** @internal The compiled engine of a calendar or bundled name; a KalendsTypeError for anything else. */
+export function engineOf(calendar: CalendarInput): Engine {
   if (typeof calendar === 'string') return (bundledCalendar(calendar, 'calendar') as Internal)[ENGINE];
   const engine = typeof calendar === 'object' && calendar !== null ? (calendar as Internal)[ENGINE] : undefined;
   if (!engine) {
@@ -211,8 +212,8 @@ function engineOf(calendar: CalendarInput): Engine {
   return engine;
 }
 
-/** Validates a day number against the civil range and the calendar's years; `extra` allows one day past the end. */
-function requireDay(engine: Engine, dayNumber: unknown, name: string, extra = 0): number {
+/** @internal Validates a day number against the civil range and the calendar's years; `extra` allows one day past the end. */
+export function requireDay(engine: Engine, dayNumber: unknown, name: string, extra = 0): number {
   requireDayNumberArgument(name, dayNumber);
   const dn = dayNumber as number;
   if (dn < engine.firstDay || dn >= engine.endDay + extra) {

@@ -37,6 +37,26 @@ function popcount32(x: number): number {
   return Math.imul(x, 0x01010101) >>> 24;
 }
 
+/** Most days a dense per-day table spans (about 400 years; two Int32Arrays of this length at most). */
+export const MAX_DAY_TABLE_DAYS = 146_100;
+
+/**
+ * @internal A dense per-day table over the days [base, base + days), for the bulk forms: `rank[i]` is the number
+ * of business days in [base, base + i) (i = 0..days), and `businessDays[k]` the day number of the kth business
+ * day from base. A count is two loads, a business-day test two loads, a shift three. `adjusted` caches, per
+ * convention, the adjusted day of every day in the table (NOT_IN_TABLE where the answer lies outside it).
+ */
+export interface DayTable {
+  readonly base: number;
+  readonly days: number;
+  readonly rank: Int32Array;
+  readonly businessDays: Int32Array;
+  readonly adjusted: Map<string, Int32Array>;
+}
+
+/** @internal Written by a bulk kernel where the answer lies outside its table; the caller answers those by the scalar path. */
+export const NOT_IN_TABLE = -2147483648;
+
 /** @internal The compiled, cached state of one calendar. */
 export class Engine {
   /** First year of the window. */
@@ -49,11 +69,15 @@ export class Engine {
   /** yearStarts[i] = day number of 1 January of year lo + i, for i in 0..count (the last is the day after the window). */
   private yearStarts = new Int32Array(1);
 
+  /** The last dense per-day table built for a bulk call (see {@link dayTable}). */
+  private table: DayTable | undefined;
+
   /** First supported day, and the day after the last one. */
   readonly firstDay: number;
   readonly endDay: number;
   /** Weekend mask, and the number of days of the week outside the weekend. */
-  private readonly weekdaysPerWeek: number;
+  /** @internal Days of the week outside the weekend. */
+  readonly weekdaysPerWeek: number;
   /** Business days of whole years (by 400-year cycles where the calendar repeats). */
   private readonly years: YearCounts;
   private readonly scratch = new Uint32Array(WORDS);
@@ -135,6 +159,20 @@ export class Engine {
       newHi = Math.min(newHi, newLo + MAX_WINDOW_YEARS - 1);
     }
     this.setWindow(newLo, newHi);
+    this.tableOverWindow();
+  }
+
+  /**
+   * Keeps the dense per-day table over the compiled window when the window is short enough (the usual case: a
+   * few decades), so that single counts, shifts and tests are answered by two or three loads from it.
+   */
+  private tableOverWindow(): void {
+    const lo = this.yearStarts[0]!;
+    const hi = this.yearStarts[this.count]!;
+    if (hi - lo > MAX_DAY_TABLE_DAYS) return;
+    const t = this.table;
+    if (t && lo >= t.base && hi <= t.base + t.days) return;
+    this.dayTable(lo, hi, 0);
   }
 
   private get total(): number {
@@ -177,6 +215,11 @@ export class Engine {
   }
 
   isBusinessDay(dn: number): boolean {
+    const t = this.table;
+    if (t !== undefined) {
+      const x = dn - t.base;
+      if (x >= 0 && x < t.days) return t.rank[x + 1]! !== t.rank[x]!;
+    }
     const y = yearOfDayNumberUnchecked(dn);
     this.ensure(y, y);
     return this.bit(dn);
@@ -187,6 +230,14 @@ export class Engine {
    * before, n = 0 gives dn if it is a business day, else the next one.
    */
   shift(dn: number, n: number, name = 'n'): number {
+    const t = this.table;
+    if (t !== undefined) {
+      const x = dn - t.base;
+      if (x >= 0 && x < t.days) {
+        const k = n > 0 ? t.rank[x + 1]! + n - 1 : t.rank[x]! + n;
+        if (k >= 0 && k < t.businessDays.length) return t.businessDays[k]!;
+      }
+    }
     // A shift that must leave the supported years fails at once: there are at most as many business days as
     // days outside the weekend.
     if (n > 0 && n > this.nonWeekendDays(dn + 1, this.endDay)) throw this.pastEnd(dn, n, 'last', this.lastYear, name);
@@ -303,6 +354,39 @@ export class Engine {
     }
   }
 
+  /**
+   * @internal A dense table covering at least [lo, hi) (firstDay <= lo < hi <= endDay, hi - lo <= MAX_DAY_TABLE_DAYS):
+   * the cached one when it covers the range, else a new one over the range widened by up to a year on each side
+   * (so that nearby calls reuse it), which replaces the cache.
+   */
+  /** @internal The table kept from the last call that built one, if any. */
+  get cachedDayTable(): DayTable | undefined {
+    return this.table;
+  }
+
+  dayTable(lo: number, hi: number, widen = 366): DayTable {
+    const t = this.table;
+    if (t && lo >= t.base && hi <= t.base + t.days) return t;
+    const room = (MAX_DAY_TABLE_DAYS - (hi - lo)) >> 1;
+    const pad = Math.min(widen, room);
+    const from = Math.max(this.firstDay, lo - pad);
+    const to = Math.min(this.endDay, hi + pad);
+    const days = to - from;
+    const businessDays = new Int32Array(this.countBetween(from, to));
+    let k = 0;
+    this.appendBusinessDays(from, to, { push: (d) => void (businessDays[k++] = d) });
+    const rank = new Int32Array(days + 1);
+    let r = 0;
+    for (let i = 0; i < days; i++) {
+      rank[i] = r;
+      if (r < k && businessDays[r] === from + i) r++;
+    }
+    rank[days] = r;
+    const made: DayTable = { base: from, days, rank, businessDays, adjusted: new Map() };
+    this.table = made;
+    return made;
+  }
+
   /** Index in the window of the year holding `dn` (which must be in the window). */
   private yearIndex(dn: number): number {
     const ys = this.yearStarts;
@@ -361,6 +445,8 @@ export class Engine {
   /** Business days in [a, b), a <= b; b may be the first day after the last supported year. */
   countBetween(a: number, b: number): number {
     if (a >= b) return 0;
+    const t = this.table;
+    if (t !== undefined && a >= t.base && b <= t.base + t.days) return t.rank[b - t.base]! - t.rank[a - t.base]!;
     const ya = yearOfDayNumberUnchecked(a);
     const yb = yearOfDayNumberUnchecked(b - 1);
     if (yb - ya + 1 <= MAX_WINDOW_YEARS) {

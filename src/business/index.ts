@@ -34,6 +34,7 @@ export {
   nthBusinessDayOfRange,
   nthBusinessDayOfPeriod,
 } from './calendar.js';
+export { isBusinessDayBulk, countBusinessDaysBulk, shiftBusinessDaysBulk, adjustDayNumberBulk } from './bulk.js';
 export {
   BUNDLED_CALENDAR_NAMES,
   US_FEDERAL_HOLIDAYS,

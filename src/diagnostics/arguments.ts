@@ -190,6 +190,20 @@ export function requireNumberArray(name: string, value: unknown): ArrayLike<numb
   });
 }
 
+/**
+ * Refuses a parallel array whose length differs from its partner's (`other` names the partner in the message).
+ *
+ * @example
+ * ```ts
+ * requireSameLength('end', [1, 2], 3, 'start'); // throws KalendsRangeError: end: expected 3 elements, as many as start, got 2
+ * ```
+ */
+export function requireSameLength(name: string, values: ArrayLike<unknown>, length: number, other: string): void {
+  if (values.length !== length) {
+    throw new KalendsRangeError(`${name}: expected ${length} elements, as many as ${other}, got ${values.length}`, { code: 'length-mismatch', received: values.length });
+  }
+}
+
 /** A constructor of a typed array, as named in messages. */
 export interface TypedArrayConstructorLike<T> {
   new (length: number): T;

@@ -7,7 +7,7 @@
  */
 import { HOURS_SEARCH_LIMIT_DAYS, MS_PER_DAY } from '../bounds.js';
 import { KalendsRangeError } from '../errors.js';
-import { optionOf, readOptions, requireBoolean, requireNumberArray, requireOutArray } from '../diagnostics/index.js';
+import { optionOf, readOptions, requireBoolean, requireNumberArray, requireOutArray, requireSameLength } from '../diagnostics/index.js';
 import { type HoursEngine, NO_DAY, type Table } from './compile.js';
 import { type Duration, localDayNumberBulk, localYear } from './deps.js';
 import { type BusinessHours, engineOfHours } from './hours.js';
@@ -39,12 +39,6 @@ function scanInstants(e: HoursEngine, name: string, values: ArrayLike<number>): 
     if (v > max) max = v;
   }
   return { min, max };
-}
-
-function sameLength(name: string, values: ArrayLike<number>, n: number, other: string): void {
-  if (values.length !== n) {
-    throw new KalendsRangeError(`${name}: expected ${n} elements, as many as ${other}, got ${values.length}`, { code: 'length-mismatch', received: values.length });
-  }
 }
 
 /** The table holding the years of every instant in [min, max] (and a year on each side). */
@@ -231,7 +225,7 @@ export function countBusinessMsBulk(hours: BusinessHours, startEpochMs: ArrayLik
   const a = requireNumberArray('startEpochMs', startEpochMs);
   const b = requireNumberArray('endEpochMs', endEpochMs);
   const len = a.length;
-  sameLength('endEpochMs', b, len, 'startEpochMs');
+  requireSameLength('endEpochMs', b, len, 'startEpochMs');
   const o = requireOutArray('out', out, Float64Array, len);
   if (len === 0) return o;
   const ra = scanInstants(e, 'startEpochMs', a);
@@ -305,7 +299,7 @@ export function shiftBusinessTimeBulk(
   let ms = 0;
   if (typeof duration === 'object' && duration !== null && 'length' in duration) {
     each = requireNumberArray('duration', duration);
-    sameLength('duration', each, len, 'epochMs');
+    requireSameLength('duration', each, len, 'epochMs');
     for (let k = 0; k < len; k++) businessDurationMs(each[k]!, `duration[${k}]`);
   } else ms = businessDurationMs(duration);
   const o = requireOutArray('out', out, Float64Array, len);

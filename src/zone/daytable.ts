@@ -139,8 +139,12 @@ function dayTable(e: Engine, d0: number, days: number): DayTable | undefined {
 
 /** Largest day table built (days, about 2,900 years); past it, the loop asks the engine for each element. */
 const MAX_TABLE_DAYS = 1 << 20;
-/** Days added on each side of the input's range, so that nearby later calls reuse the table. */
-const TABLE_MARGIN_DAYS = 366;
+/**
+ * Days added on each side of the input's range. Two: enough for a local day on either side, and no more, because
+ * every year the table reaches costs a compiled year of the zone (2-3 ms from Intl) on first use; a later call
+ * that reaches further grows the table (merged with the current one), reusing the years already compiled.
+ */
+const TABLE_MARGIN_DAYS = 2;
 
 /** A day table with the range it covers: UTC days [d0, d0 + days). */
 export interface RangedTable extends DayTable {

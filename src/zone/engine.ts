@@ -307,8 +307,29 @@ export class IntlEngine extends Engine {
   readonly periodicFromMs = INTL_PERIODIC_FROM_MS;
   /** Formatter calls so far (for docs and benchmarks). */
   probes = 0;
+  /** Scalar answers given by one probe each instead of compiling their year (see {@link offsetAt}). */
+  private pointAnswers = 0;
   constructor(private readonly format: Intl.DateTimeFormat) {
     super();
+  }
+
+  /**
+   * The first few scalar queries in a year not compiled yet are answered by one probe each (tens of
+   * microseconds) instead of compiling the year (about 180 probes, 2-3 ms): a process that asks a zone once or
+   * twice never pays for a year's table. The probe reads the whole second holding `t` (offsets change on whole
+   * seconds). The interval cache is left empty, so callers that read `lo`/`hi` take their general path, which
+   * compiles. After 16 such answers, or outside the years the search covers, the year is compiled.
+   */
+  override offsetAt(t: number): number {
+    if (t >= this.lo && t < this.hi) return this.off;
+    if (this.pointAnswers < 16 && t >= INTL_QUIET_BEFORE_MS && t < INTL_PERIODIC_FROM_MS && !this.chunks.has(Math.floor(t / CHUNK_MS))) {
+      this.pointAnswers++;
+      this.lo = 1;
+      this.hi = 0;
+      return this.probe(Math.floor(t / 1000) * 1000);
+    }
+    this.locate(t);
+    return this.off;
   }
 
   /** Offset in seconds at `t`, a multiple of 1000 ms within the ECMAScript range, from the formatted wall clock. */

@@ -327,8 +327,9 @@ function fromIntl(id: string, name: string): Zone {
   const format = id === '' ? undefined : probeFormatter(id);
   if (!format) throw new UnknownZoneError(name, id, suggestZoneIds(id, runtimeZoneIds()));
   const canonicalId = format.resolvedOptions().timeZone ?? id;
-  const listed = listedIdIgnoringCase(id);
-  const normalized = listed ?? (canonicalId.toLowerCase() === id.toLowerCase() ? canonicalId : id);
+  // The runtime spells the id it resolved with its own case (links too: "asia/calcutta" resolves to
+  // "Asia/Calcutta"), so only an id that resolves to another id needs the list of every id (about 1 ms, once).
+  const normalized = canonicalId.toLowerCase() === id.toLowerCase() ? canonicalId : (listedIdIgnoringCase(id) ?? id);
   const release = runtimeTzRelease();
   if (canonicalId === 'UTC' || canonicalId === 'Etc/UTC' || canonicalId === 'Etc/GMT') {
     return makeZone({ id: normalized, canonicalId: 'UTC', source: 'fixed', tzRelease: undefined, fixedOffsetSeconds: 0 }, new FixedEngine(0));
