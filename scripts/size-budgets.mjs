@@ -70,7 +70,7 @@ export const SETS = [
     goal: 10000,
     // Measured 11,338 B: the Intl engine, the POSIX TZ rule reader (zones from a rules source), offset ids, the
     // day table of the bulk conversion and the zone-id suggestions of the error messages.
-    budget: 11700,
+    budget: 12100,
   },
   {
     name: 'business days with one bundled calendar',
@@ -78,7 +78,7 @@ export const SETS = [
     goal: 8000,
     // Measured 16,562 B: defineCalendar's validation and rule compiler (15.7 kB alone), and the three bundled
     // definitions, which a calendar given by name reaches.
-    budget: 17100,
+    budget: 17700,
   },
   {
     // Issue 17 measured 71.3 kB for the surface of that day; its goal allows 10% above it. Since then the surface
@@ -87,7 +87,7 @@ export const SETS = [
     name: 'everything',
     imports: '*',
     goal: 78400,
-    budget: 110200,
+    budget: 120200,
   },
 ];
 

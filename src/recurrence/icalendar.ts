@@ -39,6 +39,7 @@ export interface FormatCalendarOptions {
   readonly stamp: unknown;
   /** The instants the calendar covers, [from, to): the VTIMEZONEs' observances, and the occurrences listed. */
   readonly from: unknown;
+  /** The end of the span, exclusive: an instant in any form `toEpochMs` takes, not before `from`. */
   readonly to: unknown;
   /** `'rule'` (default): each event carries its rule (RRULE); `'occurrences'`: one VEVENT per occurrence in range. */
   readonly form?: 'rule' | 'occurrences';
