@@ -4,8 +4,16 @@
  * Sources:
  * - [IMM] The IMM dates are the third Wednesday of March, June, September and December, that is the Wednesday
  *   between the 15th and the 21st (the definition the futures exchanges publish, as restated in public
- *   references on IMM dates). No published list of the dates themselves was at hand: the dates of 2024, 2025 and
- *   2026 below are from memory, and each is also derived from the definition with @js-temporal/polyfill.
+ *   references on IMM dates).
+ * - [CME 2024] CME Group, "SR3 and TBF3 exposure periods" (article, 2024, cmegroup.com/articles/2024): the table of
+ *   "currently listed components" gives the start and end dates of each Three-Month SOFR futures reference period,
+ *   which the contract specification defines as running from the third Wednesday of a month to the third
+ *   Wednesday three months later: Wednesday 16 October 2024, 20 November 2024, 18 December 2024, 15 January 2025,
+ *   19 February 2025, 19 March 2025, 18 June 2025, 17 September 2025, 17 December 2025. The quarterly ones are the
+ *   IMM dates of 2024 and 2025.
+ * - [Index 2021, 2023] The credit index administrator's published roll tables (IHS Markit news, "CDX/iTraxx Index
+ *   Tranches: Sept 2021 Roll Dates", 2 September 2021, and the September 2023 table): index roll date 20-Sep-2021
+ *   with tranche roll date 24-Sep-2021, and 20-Sep-2023 with 26-Sep-2023, the tranche date "+4 Bus. Days" after.
  * - [ISDA 2015] ISDA, "Amending when single name CDS roll to new on-the-run contracts" (7 July 2015): the
  *   quarterly roll dates are March 20, June 20, September 20 and December 20, and the semi-annual roll "will
  *   go-live on December 21, 2015" (20 December 2015 was a Sunday: the 20th adjusted to the following business day).
@@ -20,12 +28,14 @@ import {
   CREDIT_ROLL_DATES,
   IMM_DATES,
   MONTH_END_DATES,
+  dayNumberFromYmd,
   defineCalendar,
   defineRule,
   defineSchedule,
   describeRule,
   formatPlainDate,
   listOccurrenceDayNumbers,
+  shiftBusinessDays,
 } from '../../src/index.js';
 
 const SEED = 20261205;
@@ -49,7 +59,15 @@ const QUARTER_MONTHS = [3, 6, 9, 12];
 const weekdaysOnly = defineCalendar({ id: 'weekdays', holidays: [] });
 
 describe('IMM_DATES [IMM]', () => {
-  it('2024, 2025 and 2026 (from memory), each the third Wednesday by Temporal and between the 15th and the 21st', () => {
+  it('the dates CME Group published for 2024 and 2025 [CME 2024]; each year also the third Wednesday by Temporal', () => {
+    expect(list(IMM_DATES, '2024-10-01', '2026-01-01')).toEqual(['2024-12-18', '2025-03-19', '2025-06-18', '2025-09-17', '2025-12-17']);
+    // The serial months of the same table: the third Wednesday of every month, the same rule spread monthly.
+    expect(list({ kind: 'monthly', on: { weekday: 'wednesday', nth: 3 } }, '2024-10-01', '2025-03-01')).toEqual([
+      '2024-10-16', '2024-11-20', '2024-12-18', '2025-01-15', '2025-02-19',
+    ]);
+  });
+
+  it('2024, 2025 and 2026 (December 2024 to December 2025 as published [CME 2024], the others from memory), each the third Wednesday by Temporal and between the 15th and the 21st', () => {
     const dates = list(IMM_DATES, '2024-01-01', '2027-01-01');
     expect(dates).toEqual([
       '2024-03-20', '2024-06-19', '2024-09-18', '2024-12-18',
@@ -90,6 +108,14 @@ describe('IMM_DATES [IMM]', () => {
 });
 
 describe('CREDIT_ROLL_DATES [ISDA 2015]', () => {
+  it('the roll dates the index administrator published, 20-Sep-2021 and 20-Sep-2023, and their tranche dates 4 business days on [Index 2021, 2023]', () => {
+    const adjusted = { ...CREDIT_ROLL_DATES, calendar: weekdaysOnly, convention: 'following' as const };
+    expect(list(adjusted, '2021-09-01', '2021-10-01')).toEqual(['2021-09-20']);
+    expect(list(adjusted, '2023-09-01', '2023-10-01')).toEqual(['2023-09-20']);
+    expect(formatPlainDate(shiftBusinessDays(weekdaysOnly, dayNumberFromYmd(2021, 9, 20), 4))).toBe('2021-09-24');
+    expect(formatPlainDate(shiftBusinessDays(weekdaysOnly, dayNumberFromYmd(2023, 9, 20), 4))).toBe('2023-09-26');
+  });
+
   it('unadjusted: the 20th of March, June, September and December', () => {
     expect(list(CREDIT_ROLL_DATES, '2025-01-01', '2027-01-01')).toEqual([
       '2025-03-20', '2025-06-20', '2025-09-20', '2025-12-20',
