@@ -12,12 +12,10 @@ import { WEEKDAY_NAMES } from '../civil/names.js';
 import { type DefinitionIssue, describeValue } from '../errors.js';
 import { Issues, checkKeys, didYouMean, isRecord, joinPath, lookupName, ownField, readInt, readString } from '../diagnostics/index.js';
 import type { CalendarDefinition } from './definition.js';
+import { KIND_EASTER, KIND_RELATIVE, SHIFT_NONE } from './codes.js';
 import {
-  KIND_EASTER,
-  KIND_RELATIVE,
   type NormRule,
   type RawRule,
-  SHIFT_NONE,
   observanceCodes,
   parseRule,
   readDatedEntries,
