@@ -14,7 +14,7 @@ import { formatPlainDate } from '../instant/index.js';
 import { WEEKDAY_NAMES, type WeekdayName } from '../civil/names.js';
 import { BUSINESS_DAY_CONVENTIONS, type BusinessDayConvention, type CalendarDefinition } from './definition.js';
 import { Engine, nthInRange } from './engine.js';
-import { BUNDLED_CALENDAR_NAMES, BUNDLED_DEFINITIONS, suggestCalendarNames } from './jurisdictions/index.js';
+import { BUNDLED_DEFINITIONS, listedCalendarNames, suggestCalendarNames, unknownCalendarText } from './jurisdictions/index.js';
 import { holidaysOfYear, mostHolidaysOfYears } from './rules.js';
 import { nodeOfTrustedDefinition } from './trusted.js';
 import { type CalendarNode, normalizeDefinition } from './validate.js';
@@ -87,7 +87,7 @@ export class UnknownCalendarError extends KalendsRangeError {
   constructor(name: string, parameter: string) {
     const suggestions = suggestCalendarNames(name);
     super(
-      `${parameter}: unknown calendar ${describeValue(name)}${suggestions.length ? `; did you mean ${suggestions.map((s) => JSON.stringify(s)).join(' or ')}?` : ''}; bundled calendars are ${BUNDLED_CALENDAR_NAMES.map((n) => JSON.stringify(n)).join(', ')} (or pass a calendar from defineCalendar)`,
+      `${parameter}: ${unknownCalendarText(name, suggestions)} (or pass a calendar from defineCalendar)`,
       { code: 'unknown-name', received: name },
     );
     this.name = 'UnknownCalendarError';
@@ -192,7 +192,7 @@ export function calendarFromName(name: string): BusinessCalendar {
 function bundledCalendar(name: unknown, parameter: string): BusinessCalendar {
   if (typeof name !== 'string') {
     throw new KalendsTypeError(
-      `${parameter}: expected the name of a bundled calendar (${BUNDLED_CALENDAR_NAMES.map((n) => JSON.stringify(n)).join(', ')}), got ${describeValue(name)}`,
+      `${parameter}: expected the name of a bundled calendar (${listedCalendarNames()}), got ${describeValue(name)}`,
       { code: 'invalid-type', received: name },
     );
   }
@@ -212,7 +212,7 @@ export function engineOf(calendar: CalendarInput): Engine {
   const engine = typeof calendar === 'object' && calendar !== null ? (calendar as Internal)[ENGINE] : undefined;
   if (!engine) {
     throw new KalendsTypeError(
-      `calendar: expected a BusinessCalendar from defineCalendar or a bundled calendar name (${BUNDLED_CALENDAR_NAMES.map((n) => JSON.stringify(n)).join(', ')}), got ${describeValue(calendar)}`,
+      `calendar: expected a BusinessCalendar from defineCalendar or a bundled calendar name (${listedCalendarNames()}), got ${describeValue(calendar)}`,
       { code: 'invalid-type', received: calendar },
     );
   }

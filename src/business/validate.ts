@@ -21,7 +21,7 @@ import {
   readDatedEntries,
   weekendMaskOf,
 } from './holiday-rules.js';
-import { BUNDLED_CALENDAR_NAMES, BUNDLED_DEFINITIONS, suggestCalendarNames } from './jurisdictions/index.js';
+import { BUNDLED_DEFINITIONS, unknownCalendarText } from './jurisdictions/index.js';
 
 /** A validated calendar node: its members (for unions), its own rules, one-offs and years. */
 export interface CalendarNode {
@@ -79,11 +79,7 @@ function draftOf(def: unknown, path: string, c: Issues, stack: Set<unknown>): Dr
   if (typeof def === 'string') {
     const bundled = lookupName<CalendarDefinition>(BUNDLED_DEFINITIONS, def);
     if (!bundled) {
-      const s = suggestCalendarNames(def);
-      c.add(
-        path === '' ? 'calendar' : path,
-        `unknown calendar ${describeValue(def)}${s.length ? `; did you mean ${s.map((x) => JSON.stringify(x)).join(' or ')}?` : ''}; bundled calendars are ${BUNDLED_CALENDAR_NAMES.map((n) => JSON.stringify(n)).join(', ')}`,
-      );
+      c.add(path === '' ? 'calendar' : path, unknownCalendarText(def));
       return undefined;
     }
     return draftOf(bundled, path, c, stack);
