@@ -73,12 +73,28 @@ export const SETS = [
     budget: 12100,
   },
   {
+    // A program with one bundled calendar takes it by name: `isBusinessDay('us-federal', d)`, or
+    // `calendarFromName('us-federal')` to read its caution. Until 0.2 this set imported defineCalendar and
+    // US_FEDERAL_HOLIDAYS instead of calendarFromName, and so measured the validator of user definitions (5.9 kB
+    // of its 17.1) rather than the bundled calendar; that import set is now the next set, which keeps
+    // defineCalendar guarded. A name reaches a compiler of trusted definitions (src/business/trusted.ts), not the
+    // validator. Measured 11,255 B, over the goal: the compiled engine (one bit per day, the compiled window and
+    // its dense day table, 400-year cycles for long spans: 10.7 of the 30.5 kB minified), the holiday evaluator,
+    // the argument checks with their messages and suggestions, and the three bundled definitions (2.1 kB min+gz),
+    // which any name can reach.
     name: 'business days with one bundled calendar',
-    imports: ['isBusinessDay', 'shiftBusinessDays', 'countBusinessDays', 'adjustDayNumber', 'defineCalendar', 'US_FEDERAL_HOLIDAYS'],
+    imports: ['isBusinessDay', 'shiftBusinessDays', 'countBusinessDays', 'adjustDayNumber', 'calendarFromName'],
     goal: 8000,
-    // Measured 16,562 B: defineCalendar's validation and rule compiler (15.7 kB alone), and the three bundled
-    // definitions, which a calendar given by name reaches.
-    budget: 17700,
+    budget: 11600,
+  },
+  {
+    // Not in issue 17 (its import set until 0.2, see above): business days with a calendar compiled by
+    // defineCalendar, whose validator and definition normalizer (src/business/validate.ts, holiday-rules.ts) a
+    // program that defines its own calendar needs. Measured 17,139 B.
+    name: 'business days with a defined calendar',
+    imports: ['isBusinessDay', 'shiftBusinessDays', 'countBusinessDays', 'adjustDayNumber', 'defineCalendar', 'US_FEDERAL_HOLIDAYS'],
+    goal: 17600,
+    budget: 17600,
   },
   {
     // Issue 17 measured 71.3 kB for the surface of that day; its goal allows 10% above it. Since then the surface
@@ -91,23 +107,28 @@ export const SETS = [
   },
 ];
 
-async function measure(set) {
+/** Bundles a set of imports (or '*') from dist/ as a consumer's bundler would, minified; `metafile` as esbuild's. */
+export async function bundleImports(imports, { metafile = false } = {}) {
   const source =
-    set.imports === '*'
+    imports === '*'
       ? `import * as k from 'kalends';\nglobalThis.__keep = k;\n`
-      : `import { ${set.imports.join(', ')} } from 'kalends';\nglobalThis.__keep = [${set.imports.join(', ')}];\n`;
-  const result = await build({
+      : `import { ${imports.join(', ')} } from 'kalends';\nglobalThis.__keep = [${imports.join(', ')}];\n`;
+  return build({
     stdin: { contents: source, resolveDir: root, sourcefile: 'entry.mjs', loader: 'js' },
     bundle: true,
     write: false,
     minify: true,
+    metafile,
     format: 'esm',
     platform: 'neutral',
     target: 'es2022',
     alias: { kalends: resolve(root, 'dist/index.js') },
     logLevel: 'silent',
   });
-  const code = result.outputFiles[0].contents;
+}
+
+async function measure(set) {
+  const code = (await bundleImports(set.imports)).outputFiles[0].contents;
   return { min: code.length, gz: gzipSync(code, { level: 9 }).length };
 }
 

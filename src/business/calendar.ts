@@ -13,9 +13,10 @@ import { DefinitionError, type DefinitionIssue, KalendsRangeError, KalendsTypeEr
 import { formatPlainDate } from '../instant/index.js';
 import { WEEKDAY_NAMES, type WeekdayName } from '../civil/names.js';
 import { BUSINESS_DAY_CONVENTIONS, type BusinessDayConvention, type CalendarDefinition } from './definition.js';
-import { Engine } from './engine.js';
-import { BUNDLED_CALENDAR_NAMES, BUNDLED_DEFINITIONS, suggestCalendarNames } from './jurisdictions/index.js';
+import { Engine, nthInRange } from './engine.js';
+import { BUNDLED_DEFINITIONS, listedCalendarNames, suggestCalendarNames, unknownCalendarText } from './jurisdictions/index.js';
 import { holidaysOfYear, mostHolidaysOfYears } from './rules.js';
+import { nodeOfTrustedDefinition } from './trusted.js';
 import { type CalendarNode, normalizeDefinition } from './validate.js';
 
 const ENGINE = Symbol('kalends.business.engine');
@@ -86,7 +87,7 @@ export class UnknownCalendarError extends KalendsRangeError {
   constructor(name: string, parameter: string) {
     const suggestions = suggestCalendarNames(name);
     super(
-      `${parameter}: unknown calendar ${describeValue(name)}${suggestions.length ? `; did you mean ${suggestions.map((s) => JSON.stringify(s)).join(' or ')}?` : ''}; bundled calendars are ${BUNDLED_CALENDAR_NAMES.map((n) => JSON.stringify(n)).join(', ')} (or pass a calendar from defineCalendar)`,
+      `${parameter}: ${unknownCalendarText(name, suggestions)} (or pass a calendar from defineCalendar)`,
       { code: 'unknown-name', received: name },
     );
     this.name = 'UnknownCalendarError';
@@ -144,11 +145,16 @@ export function defineCalendar(definition: CalendarDefinition): BusinessCalendar
   }
   if (removalIssues.length) throw new DefinitionError(removalIssues, definition);
   const frozen = Object.isFrozen(definition) ? definition : deepFreeze(JSON.parse(JSON.stringify(definition)) as CalendarDefinition);
+  return calendarOfNode(node, frozen, typeof definition === 'string' ? definition : 'custom');
+}
+
+/** A compiled calendar of a node and the frozen definition it came from; `fallbackId` when it has no `id`. */
+function calendarOfNode(node: CalendarNode, definition: CalendarDefinition, fallbackId: string): BusinessCalendar {
   const own = (key: string): string | undefined => {
     const v = isRecord(definition) ? ownField(definition, key) : undefined;
     return typeof v === 'string' ? v : undefined;
   };
-  const id = own('id') ?? (typeof definition === 'string' ? definition : 'custom');
+  const id = own('id') ?? fallbackId;
   const weekend: number[] = [];
   for (let wd = 1; wd <= 7; wd++) if (node.weekendMask & (1 << wd)) weekend.push(wd);
   const calendar: Internal = {
@@ -160,7 +166,7 @@ export function defineCalendar(definition: CalendarDefinition): BusinessCalendar
     weekendNames: Object.freeze(weekend.map((wd) => WEEKDAY_NAMES[wd - 1]!)),
     firstYear: node.firstYear,
     lastYear: node.lastYear,
-    definition: frozen,
+    definition,
     [ENGINE]: new Engine(node, id, node.firstYear, node.lastYear),
   };
   return Object.freeze(calendar);
@@ -186,7 +192,7 @@ export function calendarFromName(name: string): BusinessCalendar {
 function bundledCalendar(name: unknown, parameter: string): BusinessCalendar {
   if (typeof name !== 'string') {
     throw new KalendsTypeError(
-      `${parameter}: expected the name of a bundled calendar (${BUNDLED_CALENDAR_NAMES.map((n) => JSON.stringify(n)).join(', ')}), got ${describeValue(name)}`,
+      `${parameter}: expected the name of a bundled calendar (${listedCalendarNames()}), got ${describeValue(name)}`,
       { code: 'invalid-type', received: name },
     );
   }
@@ -194,7 +200,8 @@ function bundledCalendar(name: unknown, parameter: string): BusinessCalendar {
   if (cached) return cached;
   const def = lookupName<CalendarDefinition>(BUNDLED_DEFINITIONS, name);
   if (!def) throw new UnknownCalendarError(name, parameter);
-  const cal = defineCalendar(def);
+  // A bundled definition is frozen and checked by the tests: it is compiled without the validator.
+  const cal = calendarOfNode(nodeOfTrustedDefinition(def), def, name);
   bundledCache.set(name, cal);
   return cal;
 }
@@ -205,7 +212,7 @@ export function engineOf(calendar: CalendarInput): Engine {
   const engine = typeof calendar === 'object' && calendar !== null ? (calendar as Internal)[ENGINE] : undefined;
   if (!engine) {
     throw new KalendsTypeError(
-      `calendar: expected a BusinessCalendar from defineCalendar or a bundled calendar name (${BUNDLED_CALENDAR_NAMES.map((n) => JSON.stringify(n)).join(', ')}), got ${describeValue(calendar)}`,
+      `calendar: expected a BusinessCalendar from defineCalendar or a bundled calendar name (${listedCalendarNames()}), got ${describeValue(calendar)}`,
       { code: 'invalid-type', received: calendar },
     );
   }
@@ -480,7 +487,7 @@ export function nthBusinessDayOfPeriod(calendar: CalendarInput, period: PeriodLi
  * numbers with [start, end) inside its supported years. O(1) per 32 days walked from the end it counts from.
  */
 export function nthBusinessDayInRangeUnchecked(calendar: BusinessCalendar, start: number, end: number, n: number): number {
-  return (calendar as Internal)[ENGINE].nthInRange(start, end, n);
+  return nthInRange((calendar as Internal)[ENGINE], start, end, n);
 }
 
 /**

@@ -61,13 +61,14 @@ export const NOT_IN_TABLE = -2147483648;
 export class Engine {
   /** First year of the window. */
   private lo = 0;
-  /** Years in the window (0 = empty). */
-  private count = 0;
-  private words = new Uint32Array(0);
+  /** @internal Years in the window (0 = empty). */
+  count = 0;
+  /** @internal The compiled bits: WORDS words per year of the window, bit set = business day. */
+  words = new Uint32Array(0);
   /** cum[w] = business days in the window before word w; cum[count * 12] is the window's total. */
   private cum = new Int32Array(1);
-  /** yearStarts[i] = day number of 1 January of year lo + i, for i in 0..count (the last is the day after the window). */
-  private yearStarts = new Int32Array(1);
+  /** @internal yearStarts[i] = day number of 1 January of year lo + i, for i in 0..count (the last is the day after the window). */
+  yearStarts = new Int32Array(1);
 
   /** The last dense per-day table built for a bulk call (see {@link dayTable}). */
   private table: DayTable | undefined;
@@ -294,67 +295,6 @@ export class Engine {
   }
 
   /**
-   * @internal The nth business day in [a, b) (n = 1 the first, n = -1 the last), or NaN when the range holds
-   * fewer than |n| business days (or n = 0, or a >= b). Unchecked: a and b must be integer day numbers with
-   * firstDay <= a and b <= endDay. O(1) per 32 days of the range walked, never day by day: it reads the range's
-   * words from the end it counts from and picks the bit within one word.
-   */
-  nthInRange(a: number, b: number, n: number): number {
-    if (a >= b || n === 0) return Number.NaN;
-    if (this.count === 0 || a < this.yearStarts[0]! || b > this.yearStarts[this.count]!) {
-      const ya = yearOfDayNumberUnchecked(a);
-      const yb = yearOfDayNumberUnchecked(b - 1);
-      if (yb - ya + 1 > MAX_WINDOW_YEARS) return this.nthInLongRange(a, b, n);
-      this.ensure(ya, yb);
-    }
-    const words = this.words;
-    const ys = this.yearStarts;
-    if (n > 0) {
-      let yi = this.yearIndex(a);
-      let doy = a - ys[yi]!;
-      let w = yi * WORDS + (doy >> 5);
-      let x = words[w]! & (0xffffffff << (doy & 31));
-      let wordStart = a - (doy & 31);
-      let left = n;
-      for (;;) {
-        const c = popcount32(x);
-        if (c >= left) {
-          for (let r = left - 1; r > 0; r--) x &= x - 1;
-          const d = wordStart + (31 - Math.clz32(x & -x));
-          return d < b ? d : Number.NaN;
-        }
-        left -= c;
-        w++;
-        wordStart += 32;
-        // Past a year's last word: the next year's first word (the unused bits of a year's last word are zero).
-        if (w % WORDS === 0) wordStart = ys[++yi]!;
-        if (wordStart >= b) return Number.NaN;
-        x = words[w]!;
-      }
-    }
-    let yi = this.yearIndex(b - 1);
-    let doy = b - 1 - ys[yi]!;
-    let w = yi * WORDS + (doy >> 5);
-    let x = words[w]! & (0xffffffff >>> (31 - (doy & 31)));
-    let wordStart = b - 1 - (doy & 31);
-    let left = -n;
-    for (;;) {
-      const c = popcount32(x);
-      if (c >= left) {
-        for (let r = c - left; r > 0; r--) x &= x - 1;
-        const d = wordStart + (31 - Math.clz32(x & -x));
-        return d >= a ? d : Number.NaN;
-      }
-      left -= c;
-      if (wordStart <= a) return Number.NaN;
-      // Before a year's first word: the previous year's last word.
-      wordStart = w % WORDS === 0 ? ys[--yi]! + (WORDS - 1) * 32 : wordStart - 32;
-      w--;
-      x = words[w]!;
-    }
-  }
-
-  /**
    * @internal A dense table covering at least [lo, hi) (firstDay <= lo < hi <= endDay, hi - lo <= MAX_DAY_TABLE_DAYS):
    * the cached one when it covers the range, else a new one over the range widened by up to a year on each side
    * (so that nearby calls reuse it), which replaces the cache.
@@ -387,25 +327,13 @@ export class Engine {
     return made;
   }
 
-  /** Index in the window of the year holding `dn` (which must be in the window). */
-  private yearIndex(dn: number): number {
+  /** @internal Index in the window of the year holding `dn` (which must be in the window). */
+  yearIndex(dn: number): number {
     const ys = this.yearStarts;
     let yi = Math.min(((dn - ys[0]!) / 365.2425) | 0, this.count - 1);
     while (ys[yi]! > dn) yi--;
     while (ys[yi + 1]! <= dn) yi++;
     return yi;
-  }
-
-  /** {@link nthInRange} for ranges longer than the window: counts, then shifts. */
-  private nthInLongRange(a: number, b: number, n: number): number {
-    const available = this.countBetween(a, b);
-    if (Math.abs(n) > available) return Number.NaN;
-    if (n > 0) {
-      const first = this.shift(a, 0);
-      return n === 1 ? first : this.shift(first, n - 1);
-    }
-    const last = this.isBusinessDay(b - 1) ? b - 1 : this.shift(b - 1, -1);
-    return n === -1 ? last : this.shift(last, n + 1);
   }
 
   /**
@@ -580,4 +508,77 @@ export class Engine {
       { code: 'no-business-day', received: dn },
     );
   }
+}
+
+/**
+ * @internal The nth business day in [a, b) (n = 1 the first, n = -1 the last), or NaN when the range holds
+ * fewer than |n| business days (or n = 0, or a >= b). Unchecked: a and b must be integer day numbers with
+ * firstDay <= a and b <= endDay. O(1) per 32 days of the range walked, never day by day: it reads the range's
+ * words from the end it counts from and picks the bit within one word.
+ */
+export function nthInRange(e: Engine, a: number, b: number, n: number): number {
+  if (a >= b || n === 0) return Number.NaN;
+  if (e.count === 0 || a < e.yearStarts[0]! || b > e.yearStarts[e.count]!) {
+    const ya = yearOfDayNumberUnchecked(a);
+    const yb = yearOfDayNumberUnchecked(b - 1);
+    if (yb - ya + 1 > MAX_WINDOW_YEARS) return nthInLongRange(e, a, b, n);
+    e.ensure(ya, yb);
+  }
+  const words = e.words;
+  const ys = e.yearStarts;
+  if (n > 0) {
+    let yi = e.yearIndex(a);
+    let doy = a - ys[yi]!;
+    let w = yi * WORDS + (doy >> 5);
+    let x = words[w]! & (0xffffffff << (doy & 31));
+    let wordStart = a - (doy & 31);
+    let left = n;
+    for (;;) {
+      const c = popcount32(x);
+      if (c >= left) {
+        for (let r = left - 1; r > 0; r--) x &= x - 1;
+        const d = wordStart + (31 - Math.clz32(x & -x));
+        return d < b ? d : Number.NaN;
+      }
+      left -= c;
+      w++;
+      wordStart += 32;
+      // Past a year's last word: the next year's first word (the unused bits of a year's last word are zero).
+      if (w % WORDS === 0) wordStart = ys[++yi]!;
+      if (wordStart >= b) return Number.NaN;
+      x = words[w]!;
+    }
+  }
+  let yi = e.yearIndex(b - 1);
+  let doy = b - 1 - ys[yi]!;
+  let w = yi * WORDS + (doy >> 5);
+  let x = words[w]! & (0xffffffff >>> (31 - (doy & 31)));
+  let wordStart = b - 1 - (doy & 31);
+  let left = -n;
+  for (;;) {
+    const c = popcount32(x);
+    if (c >= left) {
+      for (let r = c - left; r > 0; r--) x &= x - 1;
+      const d = wordStart + (31 - Math.clz32(x & -x));
+      return d >= a ? d : Number.NaN;
+    }
+    left -= c;
+    if (wordStart <= a) return Number.NaN;
+    // Before a year's first word: the previous year's last word.
+    wordStart = w % WORDS === 0 ? ys[--yi]! + (WORDS - 1) * 32 : wordStart - 32;
+    w--;
+    x = words[w]!;
+  }
+}
+
+/** {@link nthInRange} for ranges longer than the window: counts, then shifts. */
+function nthInLongRange(e: Engine, a: number, b: number, n: number): number {
+  const available = e.countBetween(a, b);
+  if (Math.abs(n) > available) return Number.NaN;
+  if (n > 0) {
+    const first = e.shift(a, 0);
+    return n === 1 ? first : e.shift(first, n - 1);
+  }
+  const last = e.isBusinessDay(b - 1) ? b - 1 : e.shift(b - 1, -1);
+  return n === -1 ? last : e.shift(last, n + 1);
 }

@@ -22,29 +22,17 @@ import {
 } from '../diagnostics/index.js';
 import { describeValue } from '../errors.js';
 import { parsePlainDate } from '../instant/index.js';
-import type { ObservanceShift } from './definition.js';
+import {
+  KIND_CODES,
+  KIND_EASTER,
+  KIND_FIXED,
+  KIND_NTH,
+  KIND_ON_OR_AFTER,
+  KIND_ON_OR_BEFORE,
+  KIND_RELATIVE,
+  SHIFT_CODES,
+} from './codes.js';
 
-/** Rule kinds as small integers. */
-export const KIND_FIXED = 0;
-export const KIND_NTH = 1;
-export const KIND_ON_OR_AFTER = 2;
-export const KIND_ON_OR_BEFORE = 3;
-export const KIND_EASTER = 4;
-export const KIND_RELATIVE = 5;
-
-/** Observance shift codes (0 = stay). */
-export const SHIFT_NONE = 0;
-export const SHIFT_PREVIOUS = 1;
-export const SHIFT_NEXT = 2;
-export const SHIFT_NEAREST = 3;
-export const SHIFT_SUBSTITUTE = 4;
-
-const SHIFT_CODES: Readonly<Record<ObservanceShift, number>> = Object.freeze({
-  'previous-non-weekend-day': SHIFT_PREVIOUS,
-  'next-non-weekend-day': SHIFT_NEXT,
-  'nearest-non-weekend-day': SHIFT_NEAREST,
-  'substitute-day': SHIFT_SUBSTITUTE,
-});
 const SHIFT_NAMES = Object.keys(SHIFT_CODES);
 
 /** Words of 0.1 for the observance shifts, so that a message can name the new spelling. */
@@ -63,16 +51,7 @@ const RULE_KEYS: Readonly<Record<string, readonly string[]>> = Object.freeze({
   easter: ['offset', 'computus'],
   relative: ['to', 'offset'],
 });
-const KIND_CODES: Readonly<Record<string, number>> = Object.freeze({
-  fixed: KIND_FIXED,
-  'nth-weekday': KIND_NTH,
-  'weekday-on-or-after': KIND_ON_OR_AFTER,
-  'weekday-on-or-before': KIND_ON_OR_BEFORE,
-  easter: KIND_EASTER,
-  relative: KIND_RELATIVE,
-});
 const KIND_NAMES = Object.keys(KIND_CODES);
-
 
 const listed = (names: readonly string[]): string => names.map((n) => JSON.stringify(n)).join(', ');
 

@@ -23,17 +23,8 @@ import { yearOfDayNumberUnchecked } from '../civil/gregorian.js';
 import { MAX_EVALUATED_YEARS, MAX_SUBSTITUTE_SEARCH, MAX_YEAR, MIN_YEAR } from '../bounds.js';
 import { KalendsRangeError } from '../errors.js';
 import { formatPlainDate } from '../instant/index.js';
-import {
-  KIND_EASTER,
-  KIND_FIXED,
-  KIND_NTH,
-  KIND_ON_OR_AFTER,
-  KIND_ON_OR_BEFORE,
-  KIND_RELATIVE,
-  type NormRule,
-  SHIFT_NONE,
-  SHIFT_SUBSTITUTE,
-} from './holiday-rules.js';
+import { KIND_EASTER, KIND_FIXED, KIND_NTH, KIND_ON_OR_AFTER, KIND_ON_OR_BEFORE, KIND_RELATIVE, SHIFT_NONE, SHIFT_SUBSTITUTE } from './codes.js';
+import type { NormRule } from './holiday-rules.js';
 import type { CalendarNode } from './validate.js';
 
 /** What {@link periodicityOf} finds. */

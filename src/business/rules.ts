@@ -21,13 +21,13 @@ import {
   KIND_ON_OR_AFTER,
   KIND_ON_OR_BEFORE,
   KIND_RELATIVE,
-  type NormRule,
   SHIFT_NEAREST,
   SHIFT_NEXT,
   SHIFT_NONE,
   SHIFT_PREVIOUS,
   SHIFT_SUBSTITUTE,
-} from './holiday-rules.js';
+} from './codes.js';
+import type { NormRule } from './holiday-rules.js';
 import type { CalendarNode } from './validate.js';
 
 

@@ -12,18 +12,16 @@ import { WEEKDAY_NAMES } from '../civil/names.js';
 import { type DefinitionIssue, describeValue } from '../errors.js';
 import { Issues, checkKeys, didYouMean, isRecord, joinPath, lookupName, ownField, readInt, readString } from '../diagnostics/index.js';
 import type { CalendarDefinition } from './definition.js';
+import { KIND_EASTER, KIND_RELATIVE, SHIFT_NONE } from './codes.js';
 import {
-  KIND_EASTER,
-  KIND_RELATIVE,
   type NormRule,
   type RawRule,
-  SHIFT_NONE,
   observanceCodes,
   parseRule,
   readDatedEntries,
   weekendMaskOf,
 } from './holiday-rules.js';
-import { BUNDLED_CALENDAR_NAMES, BUNDLED_DEFINITIONS, suggestCalendarNames } from './jurisdictions/index.js';
+import { BUNDLED_DEFINITIONS, unknownCalendarText } from './jurisdictions/index.js';
 
 /** A validated calendar node: its members (for unions), its own rules, one-offs and years. */
 export interface CalendarNode {
@@ -81,11 +79,7 @@ function draftOf(def: unknown, path: string, c: Issues, stack: Set<unknown>): Dr
   if (typeof def === 'string') {
     const bundled = lookupName<CalendarDefinition>(BUNDLED_DEFINITIONS, def);
     if (!bundled) {
-      const s = suggestCalendarNames(def);
-      c.add(
-        path === '' ? 'calendar' : path,
-        `unknown calendar ${describeValue(def)}${s.length ? `; did you mean ${s.map((x) => JSON.stringify(x)).join(' or ')}?` : ''}; bundled calendars are ${BUNDLED_CALENDAR_NAMES.map((n) => JSON.stringify(n)).join(', ')}`,
-      );
+      c.add(path === '' ? 'calendar' : path, unknownCalendarText(def));
       return undefined;
     }
     return draftOf(bundled, path, c, stack);

@@ -4,6 +4,7 @@
  * @module
  */
 import { suggestNames } from '../../diagnostics/index.js';
+import { describeValue } from '../../errors.js';
 import type { BundledCalendarName, CalendarDefinition } from '../definition.js';
 import { ENGLAND_AND_WALES_BANK_HOLIDAYS } from './england-and-wales.js';
 import { EURO_T2_CLOSING_DAYS } from './euro-t2.js';
@@ -45,4 +46,15 @@ const HINTS: Readonly<Record<string, BundledCalendarName>> = Object.freeze({
 /** @internal Bundled names close to `name`: a common synonym first, then the nearest by spelling. */
 export function suggestCalendarNames(name: unknown): string[] {
   return suggestNames(name, BUNDLED_CALENDAR_NAMES, { synonyms: HINTS });
+}
+
+/** @internal The bundled names, quoted, for messages: `"us-federal", "england-and-wales", "euro-t2"`. */
+export function listedCalendarNames(): string {
+  return BUNDLED_CALENDAR_NAMES.map((n) => JSON.stringify(n)).join(', ');
+}
+
+/** @internal The message text for an unknown calendar name (without the parameter), with close names. */
+export function unknownCalendarText(name: unknown, suggestions: readonly string[] = suggestCalendarNames(name)): string {
+  const close = suggestions.length ? `; did you mean ${suggestions.map((s) => JSON.stringify(s)).join(' or ')}?` : '';
+  return `unknown calendar ${describeValue(name)}${close}; bundled calendars are ${listedCalendarNames()}`;
 }
