@@ -103,12 +103,7 @@ export abstract class Engine {
     }
     let visited = 0;
     for (let k = kStart; k <= k1; k++) {
-      if (++visited > maxChunks) {
-        throw new KalendsRangeError(
-          `endEpochMs: the range needs more than ${maxChunks} years of this zone's rules at once, got ${startMs}..${endMs}; list in smaller ranges`,
-          { code: 'limit-exceeded', received: endMs },
-        );
-      }
+      if (++visited > maxChunks) visitedLimit(maxChunks, startMs, endMs);
       const c = this.chunk(k);
       if (c.at.length === 0) {
         if (c.s >= this.periodicFromMs && ++empty >= 2) break;
@@ -126,49 +121,6 @@ export abstract class Engine {
     return before;
   }
 
-  /** First transition strictly after `t`, or undefined. */
-  next(t: number): ZoneTransition | undefined {
-    let k = Math.floor(Math.max(t, this.lowQuietMs - CHUNK_MS) / CHUNK_MS);
-    if (!Number.isFinite(k)) return undefined;
-    let empty = 0;
-    for (;;) {
-      const c = this.chunk(k);
-      for (let j = 0; j < c.at.length; j++) {
-        if (c.at[j]! > t) return { epochMs: c.at[j]!, offsetBeforeSeconds: j === 0 ? c.before : c.after[j - 1]!, offsetAfterSeconds: c.after[j]! };
-      }
-      if (c.at.length === 0 && c.s >= this.periodicFromMs) {
-        if (++empty >= 2) return undefined;
-      } else empty = 0;
-      if (c.e > MAX_EPOCH_MS) return undefined;
-      k++;
-    }
-  }
-
-  /** Last transition strictly before `t`, or undefined. */
-  previous(t: number): ZoneTransition | undefined {
-    let k = Math.floor(t / CHUNK_MS);
-    let empty = 0;
-    for (;;) {
-      const c = this.chunk(k);
-      for (let j = c.at.length - 1; j >= 0; j--) {
-        if (c.at[j]! < t) return { epochMs: c.at[j]!, offsetBeforeSeconds: j === 0 ? c.before : c.after[j - 1]!, offsetAfterSeconds: c.after[j]! };
-      }
-      if (c.e <= this.lowQuietMs || c.s <= MIN_EPOCH_MS) return undefined;
-      if (c.at.length === 0 && c.s >= this.periodicFromMs) {
-        // Past the periodic start, two empty years mean every year since the periodic start is empty.
-        if (++empty >= 2) {
-          if (!Number.isFinite(this.periodicFromMs)) return undefined;
-          const kp = Math.floor(this.periodicFromMs / CHUNK_MS);
-          if (kp < k - 1) {
-            k = kp;
-            empty = 0;
-            continue;
-          }
-        }
-      } else empty = 0;
-      k--;
-    }
-  }
 }
 
 function visitedLimit(maxChunks: number, startMs: number, endMs: number): never {
@@ -195,12 +147,6 @@ export class FixedEngine extends Engine {
     return this.offsetSeconds;
   }
   override locate(): void {}
-  override next(): undefined {
-    return undefined;
-  }
-  override previous(): undefined {
-    return undefined;
-  }
 }
 
 /**
@@ -408,5 +354,54 @@ export class IntlEngine extends Engine {
       curOff = nxtOff;
     }
     return { s, e, before, at: at.length ? Float64Array.from(at) : EMPTY_F64, after: after.length ? Int32Array.from(after) : EMPTY_I32 };
+  }
+}
+
+/**
+ * @internal The first transition of `e` strictly after `t`, or undefined. A function, not a method of the engine,
+ * so that a program that never lists transitions does not bundle it.
+ */
+export function transitionAfter(e: Engine, t: number): ZoneTransition | undefined {
+  if (e instanceof FixedEngine) return undefined;
+  let k = Math.floor(Math.max(t, e.lowQuietMs - CHUNK_MS) / CHUNK_MS);
+  if (!Number.isFinite(k)) return undefined;
+  let empty = 0;
+  for (;;) {
+    const c = e.chunk(k);
+    for (let j = 0; j < c.at.length; j++) {
+      if (c.at[j]! > t) return { epochMs: c.at[j]!, offsetBeforeSeconds: j === 0 ? c.before : c.after[j - 1]!, offsetAfterSeconds: c.after[j]! };
+    }
+    if (c.at.length === 0 && c.s >= e.periodicFromMs) {
+      if (++empty >= 2) return undefined;
+    } else empty = 0;
+    if (c.e > MAX_EPOCH_MS) return undefined;
+    k++;
+  }
+}
+
+/** @internal The last transition of `e` strictly before `t`, or undefined (a function, as {@link transitionAfter}). */
+export function transitionBefore(e: Engine, t: number): ZoneTransition | undefined {
+  if (e instanceof FixedEngine) return undefined;
+  let k = Math.floor(t / CHUNK_MS);
+  let empty = 0;
+  for (;;) {
+    const c = e.chunk(k);
+    for (let j = c.at.length - 1; j >= 0; j--) {
+      if (c.at[j]! < t) return { epochMs: c.at[j]!, offsetBeforeSeconds: j === 0 ? c.before : c.after[j - 1]!, offsetAfterSeconds: c.after[j]! };
+    }
+    if (c.e <= e.lowQuietMs || c.s <= MIN_EPOCH_MS) return undefined;
+    if (c.at.length === 0 && c.s >= e.periodicFromMs) {
+      // Past the periodic start, two empty years mean every year since the periodic start is empty.
+      if (++empty >= 2) {
+        if (!Number.isFinite(e.periodicFromMs)) return undefined;
+        const kp = Math.floor(e.periodicFromMs / CHUNK_MS);
+        if (kp < k - 1) {
+          k = kp;
+          empty = 0;
+          continue;
+        }
+      }
+    } else empty = 0;
+    k--;
   }
 }

@@ -27,7 +27,7 @@ import {
 import { KalendsRangeError, KalendsTypeError, describeValue, requireInteger } from '../errors.js';
 import { optionOf, readOptions, requireDayNumberArgument, requireEnum, requireEpochMs, requireWhole } from '../diagnostics/index.js';
 import { formatOffsetUnchecked, formatWallUnchecked, requireWallMs as requireWallText } from '../instant/format.js';
-import { type Engine, type ZoneTransition } from './engine.js';
+import { type Engine, type ZoneTransition, transitionAfter, transitionBefore } from './engine.js';
 import { WallTimeRejectedError } from './errors.js';
 import { type Zone, type ZoneInput, engineOf, toZone } from './zone.js';
 
@@ -498,7 +498,7 @@ export function listTransitions(
  */
 export function nextTransition(zone: ZoneInput, epochMs: number): ZoneTransition | null {
   const e = engineOf(toZone(zone));
-  const t = e.next(Math.floor(requireEpochMs('epochMs', epochMs)));
+  const t = transitionAfter(e, Math.floor(requireEpochMs('epochMs', epochMs)));
   return t && t.epochMs <= MAX_EPOCH_MS ? Object.freeze(t) : null;
 }
 
@@ -513,7 +513,7 @@ export function nextTransition(zone: ZoneInput, epochMs: number): ZoneTransition
  */
 export function previousTransition(zone: ZoneInput, epochMs: number): ZoneTransition | null {
   const e = engineOf(toZone(zone));
-  const t = e.previous(Math.floor(requireEpochMs('epochMs', epochMs)));
+  const t = transitionBefore(e, Math.floor(requireEpochMs('epochMs', epochMs)));
   return t && t.epochMs >= MIN_EPOCH_MS ? Object.freeze(t) : null;
 }
 
