@@ -367,21 +367,25 @@ function fromIntl(id: string, name: string): Zone {
  * ```
  */
 export function zoneFromId(id: string, options?: ZoneFromIdOptions): Zone {
-  return zoneNamed(id, options, 'id');
-}
-
-/** {@link zoneFromId}, with the name of the parameter that held the id (for messages). */
-function zoneNamed(id: unknown, options: unknown, name: string): Zone {
   if (typeof id !== 'string') {
-    throw new KalendsTypeError(`${name}: expected a time zone id string, got ${describeValue(id)}`, { code: 'invalid-type', received: id });
+    throw new KalendsTypeError(`id: expected a time zone id string, got ${describeValue(id)}`, { code: 'invalid-type', received: id });
   }
   const source = optionOf(readOptions('options', options, ['source']), 'source');
   if (source !== undefined) {
     requireRulesSource(source);
     if (/^utc$/i.test(id)) return UTC_ZONE;
-    if (looksLikeOffset(id)) return offsetZone(id, name);
-    return fromSource(id, source, name);
+    if (looksLikeOffset(id)) return offsetZone(id, 'id');
+    return fromSource(id, source, 'id');
   }
+  return intlZoneNamed(id, 'id');
+}
+
+/**
+ * The zone that an id names in the runtime's Intl (or UTC, or a fixed offset), through the cache; `name` is the
+ * parameter that held the id (for messages). {@link toZone} reads strings here, so that it does not reach the
+ * options and the rules sources of {@link zoneFromId}.
+ */
+function intlZoneNamed(id: string, name: string): Zone {
   const hit = cacheGet(id);
   if (hit) return hit;
   const z = fromIntl(id, name);
@@ -412,10 +416,7 @@ export function toZone(input: ZoneInput, name = 'zone'): Zone {
   if (typeof name !== 'string' || name === '') {
     throw new KalendsTypeError(`name: expected the parameter name to use in messages (a non-empty string), got ${describeValue(name)}`, { code: 'invalid-type', received: name });
   }
-  if (typeof input === 'string') {
-    const hit = cacheGet(input);
-    return hit ?? zoneNamed(input, undefined, name);
-  }
+  if (typeof input === 'string') return intlZoneNamed(input, name);
   if (isZone(input)) return input;
   throw new KalendsTypeError(`${name}: expected a Zone or a time zone id string, got ${describeValue(input)}`, {
     code: 'invalid-type',
