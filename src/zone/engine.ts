@@ -87,23 +87,18 @@ export abstract class Engine {
     this.hi = i < at.length ? at[i]! : c.e;
   }
 
-  /** Transitions within [startMs, endMs), appended to `at`/`after`; returns the offset just before `startMs`. */
-  collect(startMs: number, endMs: number, at: number[], after: number[], maxChunks = Infinity): number {
+  /**
+   * Transitions within [startMs, endMs), appended to `at`/`after`; returns the offset just before `startMs`. The walk
+   * is bounded by the caller's range, or by {@link collectWithin}.
+   */
+  collect(startMs: number, endMs: number, at: number[], after: number[]): number {
     const k0 = Math.floor(startMs / CHUNK_MS);
     const before = this.offsetAt(startMs - 1);
     if (!(endMs > startMs)) return before;
     const k1 = Math.floor((endMs - 1) / CHUNK_MS);
     let empty = 0;
     const kStart = Math.max(k0, Math.floor(this.lowQuietMs / CHUNK_MS) - 1);
-    if (k1 - kStart + 1 > maxChunks) {
-      // Too many years to walk, unless the rules fall quiet in their periodic part (then the walk stops early).
-      const kp = Math.max(kStart, Math.floor(this.periodicFromMs / CHUNK_MS) + 1);
-      const quiet = Number.isFinite(kp) && kp - kStart + 2 <= maxChunks && this.chunk(kp).at.length === 0 && this.chunk(kp + 1).at.length === 0;
-      if (!quiet) visitedLimit(maxChunks, startMs, endMs);
-    }
-    let visited = 0;
     for (let k = kStart; k <= k1; k++) {
-      if (++visited > maxChunks) visitedLimit(maxChunks, startMs, endMs);
       const c = this.chunk(k);
       if (c.at.length === 0) {
         if (c.s >= this.periodicFromMs && ++empty >= 2) break;
@@ -120,14 +115,30 @@ export abstract class Engine {
     }
     return before;
   }
-
 }
 
-function visitedLimit(maxChunks: number, startMs: number, endMs: number): never {
-  throw new KalendsRangeError(
-    `endEpochMs: the range needs more than ${maxChunks} years of this zone's rules at once, got ${startMs}..${endMs}; list in smaller ranges`,
-    { code: 'limit-exceeded', received: endMs },
-  );
+/**
+ * @internal {@link Engine.collect}, refusing a range that needs more than `maxChunks` years of rules: the range
+ * itself, or the walk up to two empty years in the periodic part of the rules, after which the walk stops. (A
+ * function, not a method, so that only the callers that bound their walk bundle it.)
+ */
+export function collectWithin(e: Engine, startMs: number, endMs: number, at: number[], after: number[], maxChunks: number): number {
+  if (endMs > startMs) {
+    const kStart = Math.max(Math.floor(startMs / CHUNK_MS), Math.floor(e.lowQuietMs / CHUNK_MS) - 1);
+    if (Math.floor((endMs - 1) / CHUNK_MS) - kStart + 1 > maxChunks) {
+      // Too many years to walk, unless the rules fall quiet in their periodic part: chunks kp and kp + 1 empty, both
+      // at or past the periodic start, stop the walk of collect() within kp - kStart + 2 chunks.
+      const kp = Math.max(kStart, Math.floor(e.periodicFromMs / CHUNK_MS) + 1);
+      const quiet = Number.isFinite(kp) && kp - kStart + 2 <= maxChunks && e.chunk(kp).at.length === 0 && e.chunk(kp + 1).at.length === 0;
+      if (!quiet) {
+        throw new KalendsRangeError(
+          `endEpochMs: the range needs more than ${maxChunks} years of this zone's rules at once, got ${startMs}..${endMs}; list in smaller ranges`,
+          { code: 'limit-exceeded', received: endMs },
+        );
+      }
+    }
+  }
+  return e.collect(startMs, endMs, at, after);
 }
 
 /** A constant offset: UTC and fixed offsets. */
