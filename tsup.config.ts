@@ -18,9 +18,10 @@ export default defineConfig([
     outDir: 'dist',
   },
   // The library for require(): one CommonJS file, and the pinned tz data (kalends/tzdata) in both formats: it is
-  // one module, and the core never imports it.
+  // one module, and the core never imports it. It imports the core by the package's own name (for the rules
+  // compiler that its source carries), kept external, so that its zones are the core's own objects.
   { ...bundled, entry: { index: 'src/index.ts' }, format: ['cjs'], dts: true },
-  { ...bundled, entry: { tzdata: 'src/tzdata/index.ts' }, format: ['esm', 'cjs'], dts: true },
+  { ...bundled, entry: { tzdata: 'src/tzdata/index.ts' }, format: ['esm', 'cjs'], dts: true, external: ['kalends'] },
   // kalends/warehouse (Node.js): file writers, with the pure-JavaScript Parquet writer bundled in (so that the
   // package keeps zero runtime dependencies). It imports the library by the package's own name (tsconfig paths
   // map it to src/index.ts here), kept external, so that profiles and tables made with `kalends` are the same

@@ -87,28 +87,18 @@ export abstract class Engine {
     this.hi = i < at.length ? at[i]! : c.e;
   }
 
-  /** Transitions within [startMs, endMs), appended to `at`/`after`; returns the offset just before `startMs`. */
-  collect(startMs: number, endMs: number, at: number[], after: number[], maxChunks = Infinity): number {
+  /**
+   * Transitions within [startMs, endMs), appended to `at`/`after`; returns the offset just before `startMs`. The walk
+   * is bounded by the caller's range, or by {@link collectWithin}.
+   */
+  collect(startMs: number, endMs: number, at: number[], after: number[]): number {
     const k0 = Math.floor(startMs / CHUNK_MS);
     const before = this.offsetAt(startMs - 1);
     if (!(endMs > startMs)) return before;
     const k1 = Math.floor((endMs - 1) / CHUNK_MS);
     let empty = 0;
     const kStart = Math.max(k0, Math.floor(this.lowQuietMs / CHUNK_MS) - 1);
-    if (k1 - kStart + 1 > maxChunks) {
-      // Too many years to walk, unless the rules fall quiet in their periodic part (then the walk stops early).
-      const kp = Math.max(kStart, Math.floor(this.periodicFromMs / CHUNK_MS) + 1);
-      const quiet = Number.isFinite(kp) && kp - kStart + 2 <= maxChunks && this.chunk(kp).at.length === 0 && this.chunk(kp + 1).at.length === 0;
-      if (!quiet) visitedLimit(maxChunks, startMs, endMs);
-    }
-    let visited = 0;
     for (let k = kStart; k <= k1; k++) {
-      if (++visited > maxChunks) {
-        throw new KalendsRangeError(
-          `endEpochMs: the range needs more than ${maxChunks} years of this zone's rules at once, got ${startMs}..${endMs}; list in smaller ranges`,
-          { code: 'limit-exceeded', received: endMs },
-        );
-      }
       const c = this.chunk(k);
       if (c.at.length === 0) {
         if (c.s >= this.periodicFromMs && ++empty >= 2) break;
@@ -125,57 +115,30 @@ export abstract class Engine {
     }
     return before;
   }
-
-  /** First transition strictly after `t`, or undefined. */
-  next(t: number): ZoneTransition | undefined {
-    let k = Math.floor(Math.max(t, this.lowQuietMs - CHUNK_MS) / CHUNK_MS);
-    if (!Number.isFinite(k)) return undefined;
-    let empty = 0;
-    for (;;) {
-      const c = this.chunk(k);
-      for (let j = 0; j < c.at.length; j++) {
-        if (c.at[j]! > t) return { epochMs: c.at[j]!, offsetBeforeSeconds: j === 0 ? c.before : c.after[j - 1]!, offsetAfterSeconds: c.after[j]! };
-      }
-      if (c.at.length === 0 && c.s >= this.periodicFromMs) {
-        if (++empty >= 2) return undefined;
-      } else empty = 0;
-      if (c.e > MAX_EPOCH_MS) return undefined;
-      k++;
-    }
-  }
-
-  /** Last transition strictly before `t`, or undefined. */
-  previous(t: number): ZoneTransition | undefined {
-    let k = Math.floor(t / CHUNK_MS);
-    let empty = 0;
-    for (;;) {
-      const c = this.chunk(k);
-      for (let j = c.at.length - 1; j >= 0; j--) {
-        if (c.at[j]! < t) return { epochMs: c.at[j]!, offsetBeforeSeconds: j === 0 ? c.before : c.after[j - 1]!, offsetAfterSeconds: c.after[j]! };
-      }
-      if (c.e <= this.lowQuietMs || c.s <= MIN_EPOCH_MS) return undefined;
-      if (c.at.length === 0 && c.s >= this.periodicFromMs) {
-        // Past the periodic start, two empty years mean every year since the periodic start is empty.
-        if (++empty >= 2) {
-          if (!Number.isFinite(this.periodicFromMs)) return undefined;
-          const kp = Math.floor(this.periodicFromMs / CHUNK_MS);
-          if (kp < k - 1) {
-            k = kp;
-            empty = 0;
-            continue;
-          }
-        }
-      } else empty = 0;
-      k--;
-    }
-  }
 }
 
-function visitedLimit(maxChunks: number, startMs: number, endMs: number): never {
-  throw new KalendsRangeError(
-    `endEpochMs: the range needs more than ${maxChunks} years of this zone's rules at once, got ${startMs}..${endMs}; list in smaller ranges`,
-    { code: 'limit-exceeded', received: endMs },
-  );
+/**
+ * @internal {@link Engine.collect}, refusing a range that needs more than `maxChunks` years of rules: the range
+ * itself, or the walk up to two empty years in the periodic part of the rules, after which the walk stops. (A
+ * function, not a method, so that only the callers that bound their walk bundle it.)
+ */
+export function collectWithin(e: Engine, startMs: number, endMs: number, at: number[], after: number[], maxChunks: number): number {
+  if (endMs > startMs) {
+    const kStart = Math.max(Math.floor(startMs / CHUNK_MS), Math.floor(e.lowQuietMs / CHUNK_MS) - 1);
+    if (Math.floor((endMs - 1) / CHUNK_MS) - kStart + 1 > maxChunks) {
+      // Too many years to walk, unless the rules fall quiet in their periodic part: chunks kp and kp + 1 empty, both
+      // at or past the periodic start, stop the walk of collect() within kp - kStart + 2 chunks.
+      const kp = Math.max(kStart, Math.floor(e.periodicFromMs / CHUNK_MS) + 1);
+      const quiet = Number.isFinite(kp) && kp - kStart + 2 <= maxChunks && e.chunk(kp).at.length === 0 && e.chunk(kp + 1).at.length === 0;
+      if (!quiet) {
+        throw new KalendsRangeError(
+          `endEpochMs: the range needs more than ${maxChunks} years of this zone's rules at once, got ${startMs}..${endMs}; list in smaller ranges`,
+          { code: 'limit-exceeded', received: endMs },
+        );
+      }
+    }
+  }
+  return e.collect(startMs, endMs, at, after);
 }
 
 /** A constant offset: UTC and fixed offsets. */
@@ -195,12 +158,6 @@ export class FixedEngine extends Engine {
     return this.offsetSeconds;
   }
   override locate(): void {}
-  override next(): undefined {
-    return undefined;
-  }
-  override previous(): undefined {
-    return undefined;
-  }
 }
 
 /**
@@ -408,5 +365,54 @@ export class IntlEngine extends Engine {
       curOff = nxtOff;
     }
     return { s, e, before, at: at.length ? Float64Array.from(at) : EMPTY_F64, after: after.length ? Int32Array.from(after) : EMPTY_I32 };
+  }
+}
+
+/**
+ * @internal The first transition of `e` strictly after `t`, or undefined. A function, not a method of the engine,
+ * so that a program that never lists transitions does not bundle it.
+ */
+export function transitionAfter(e: Engine, t: number): ZoneTransition | undefined {
+  if (e instanceof FixedEngine) return undefined;
+  let k = Math.floor(Math.max(t, e.lowQuietMs - CHUNK_MS) / CHUNK_MS);
+  if (!Number.isFinite(k)) return undefined;
+  let empty = 0;
+  for (;;) {
+    const c = e.chunk(k);
+    for (let j = 0; j < c.at.length; j++) {
+      if (c.at[j]! > t) return { epochMs: c.at[j]!, offsetBeforeSeconds: j === 0 ? c.before : c.after[j - 1]!, offsetAfterSeconds: c.after[j]! };
+    }
+    if (c.at.length === 0 && c.s >= e.periodicFromMs) {
+      if (++empty >= 2) return undefined;
+    } else empty = 0;
+    if (c.e > MAX_EPOCH_MS) return undefined;
+    k++;
+  }
+}
+
+/** @internal The last transition of `e` strictly before `t`, or undefined (a function, as {@link transitionAfter}). */
+export function transitionBefore(e: Engine, t: number): ZoneTransition | undefined {
+  if (e instanceof FixedEngine) return undefined;
+  let k = Math.floor(t / CHUNK_MS);
+  let empty = 0;
+  for (;;) {
+    const c = e.chunk(k);
+    for (let j = c.at.length - 1; j >= 0; j--) {
+      if (c.at[j]! < t) return { epochMs: c.at[j]!, offsetBeforeSeconds: j === 0 ? c.before : c.after[j - 1]!, offsetAfterSeconds: c.after[j]! };
+    }
+    if (c.e <= e.lowQuietMs || c.s <= MIN_EPOCH_MS) return undefined;
+    if (c.at.length === 0 && c.s >= e.periodicFromMs) {
+      // Past the periodic start, two empty years mean every year since the periodic start is empty.
+      if (++empty >= 2) {
+        if (!Number.isFinite(e.periodicFromMs)) return undefined;
+        const kp = Math.floor(e.periodicFromMs / CHUNK_MS);
+        if (kp < k - 1) {
+          k = kp;
+          empty = 0;
+          continue;
+        }
+      }
+    } else empty = 0;
+    k--;
   }
 }

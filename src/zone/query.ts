@@ -27,7 +27,7 @@ import {
 import { KalendsRangeError, KalendsTypeError, describeValue, requireInteger } from '../errors.js';
 import { optionOf, readOptions, requireDayNumberArgument, requireEnum, requireEpochMs, requireWhole } from '../diagnostics/index.js';
 import { formatOffsetUnchecked, formatWallUnchecked, requireWallMs as requireWallText } from '../instant/format.js';
-import { type Engine, type ZoneTransition } from './engine.js';
+import { type Engine, type ZoneTransition, collectWithin, transitionAfter, transitionBefore } from './engine.js';
 import { WallTimeRejectedError } from './errors.js';
 import { type Zone, type ZoneInput, engineOf, toZone } from './zone.js';
 
@@ -472,7 +472,7 @@ export function listTransitions(
   const limit = requireWhole('options.limit', optionOf(o, 'limit'), 1, MAX_TRANSITION_LIMIT, DEFAULT_TRANSITION_LIMIT);
   const at: number[] = [];
   const after: number[] = [];
-  let prev = e.collect(start, end, at, after, MAX_TRANSITION_WALK_YEARS);
+  let prev = collectWithin(e, start, end, at, after, MAX_TRANSITION_WALK_YEARS);
   if (at.length > limit) {
     throw new KalendsRangeError(
       `options.limit: the range holds ${at.length} transitions, more than the limit ${limit}; list a narrower range, or raise options.limit (at most ${MAX_TRANSITION_LIMIT})`,
@@ -498,7 +498,7 @@ export function listTransitions(
  */
 export function nextTransition(zone: ZoneInput, epochMs: number): ZoneTransition | null {
   const e = engineOf(toZone(zone));
-  const t = e.next(Math.floor(requireEpochMs('epochMs', epochMs)));
+  const t = transitionAfter(e, Math.floor(requireEpochMs('epochMs', epochMs)));
   return t && t.epochMs <= MAX_EPOCH_MS ? Object.freeze(t) : null;
 }
 
@@ -513,7 +513,7 @@ export function nextTransition(zone: ZoneInput, epochMs: number): ZoneTransition
  */
 export function previousTransition(zone: ZoneInput, epochMs: number): ZoneTransition | null {
   const e = engineOf(toZone(zone));
-  const t = e.previous(Math.floor(requireEpochMs('epochMs', epochMs)));
+  const t = transitionBefore(e, Math.floor(requireEpochMs('epochMs', epochMs)));
   return t && t.epochMs >= MIN_EPOCH_MS ? Object.freeze(t) : null;
 }
 

@@ -60,7 +60,11 @@ export interface ZoneRulesData {
   readonly tailRule?: string | undefined;
 }
 
-/** A set of rules by id, such as the pinned tz data of `kalends/tzdata` (`PINNED_TZDATA`). */
+/**
+ * A set of rules by id, such as the pinned tz data of `kalends/tzdata` (`PINNED_TZDATA`). The source brings the
+ * function that compiles its rules ({@link zoneFromRules}), so that a program that reads zones only from the
+ * runtime's Intl does not bundle the rules compiler and the POSIX TZ reader.
+ */
 export interface ZoneRulesSource {
   /** The tz database release of the data, e.g. "2025b". */
   readonly tzRelease: string;
@@ -68,6 +72,8 @@ export interface ZoneRulesSource {
   readonly ids: readonly string[];
   /** The rules of `id` (exact spelling), or undefined. */
   rulesOf(id: string): ZoneRulesData | undefined;
+  /** The compiler of the rules: {@link zoneFromRules} as imported from `kalends`. */
+  readonly zoneFromRules: (data: ZoneRulesData) => Zone;
 }
 
 /** Options of {@link zoneFromId}. */
@@ -316,7 +322,13 @@ function fromSource(id: string, source: ZoneRulesSource, name: string): Zone {
   if (exact === undefined || data === undefined) {
     throw new UnknownZoneError(name, id, suggestZoneIds(id, source.ids), `the pinned tz data ${source.tzRelease}`);
   }
-  const z = zoneFromRules(data);
+  const z = source.zoneFromRules(data);
+  if (!isZone(z)) {
+    throw new KalendsTypeError(`options.source.zoneFromRules: expected a function that returns a Zone (zoneFromRules from 'kalends'), got ${describeValue(z)}`, {
+      code: 'invalid-type',
+      received: z,
+    });
+  }
   // Keep the source's release and mark the origin as TZif data.
   return makeZone({ ...z, source: 'tzif', tzRelease: data.tzRelease ?? source.tzRelease }, engineOf(z));
 }
@@ -355,21 +367,25 @@ function fromIntl(id: string, name: string): Zone {
  * ```
  */
 export function zoneFromId(id: string, options?: ZoneFromIdOptions): Zone {
-  return zoneNamed(id, options, 'id');
-}
-
-/** {@link zoneFromId}, with the name of the parameter that held the id (for messages). */
-function zoneNamed(id: unknown, options: unknown, name: string): Zone {
   if (typeof id !== 'string') {
-    throw new KalendsTypeError(`${name}: expected a time zone id string, got ${describeValue(id)}`, { code: 'invalid-type', received: id });
+    throw new KalendsTypeError(`id: expected a time zone id string, got ${describeValue(id)}`, { code: 'invalid-type', received: id });
   }
   const source = optionOf(readOptions('options', options, ['source']), 'source');
   if (source !== undefined) {
     requireRulesSource(source);
     if (/^utc$/i.test(id)) return UTC_ZONE;
-    if (looksLikeOffset(id)) return offsetZone(id, name);
-    return fromSource(id, source, name);
+    if (looksLikeOffset(id)) return offsetZone(id, 'id');
+    return fromSource(id, source, 'id');
   }
+  return intlZoneNamed(id, 'id');
+}
+
+/**
+ * The zone that an id names in the runtime's Intl (or UTC, or a fixed offset), through the cache; `name` is the
+ * parameter that held the id (for messages). {@link toZone} reads strings here, so that it does not reach the
+ * options and the rules sources of {@link zoneFromId}.
+ */
+function intlZoneNamed(id: string, name: string): Zone {
   const hit = cacheGet(id);
   if (hit) return hit;
   const z = fromIntl(id, name);
@@ -379,8 +395,8 @@ function zoneNamed(id: unknown, options: unknown, name: string): Zone {
 
 function requireRulesSource(source: unknown): asserts source is ZoneRulesSource {
   const s = source as Partial<ZoneRulesSource> | null;
-  if (typeof s !== 'object' || s === null || typeof s.rulesOf !== 'function' || !Array.isArray(s.ids) || typeof s.tzRelease !== 'string') {
-    throw new KalendsTypeError(`options.source: expected a zone rules source { tzRelease, ids, rulesOf } such as PINNED_TZDATA from 'kalends/tzdata', got ${describeValue(source)}`, {
+  if (typeof s !== 'object' || s === null || typeof s.rulesOf !== 'function' || typeof s.zoneFromRules !== 'function' || !Array.isArray(s.ids) || typeof s.tzRelease !== 'string') {
+    throw new KalendsTypeError(`options.source: expected a zone rules source { tzRelease, ids, rulesOf, zoneFromRules } such as PINNED_TZDATA from 'kalends/tzdata', got ${describeValue(source)}`, {
       code: 'invalid-type',
       received: source,
     });
@@ -400,10 +416,7 @@ export function toZone(input: ZoneInput, name = 'zone'): Zone {
   if (typeof name !== 'string' || name === '') {
     throw new KalendsTypeError(`name: expected the parameter name to use in messages (a non-empty string), got ${describeValue(name)}`, { code: 'invalid-type', received: name });
   }
-  if (typeof input === 'string') {
-    const hit = cacheGet(input);
-    return hit ?? zoneNamed(input, undefined, name);
-  }
+  if (typeof input === 'string') return intlZoneNamed(input, name);
   if (isZone(input)) return input;
   throw new KalendsTypeError(`${name}: expected a Zone or a time zone id string, got ${describeValue(input)}`, {
     code: 'invalid-type',

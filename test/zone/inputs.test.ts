@@ -27,6 +27,7 @@ import {
   wallMsFromEpochMsBulk,
   zoneFromId,
   zoneFromOffset,
+  zoneFromRules,
   zoneFromTzif,
 } from '../../src/zone/index.js';
 import { ordinalFromEpochMsBulk } from '../../src/period/index.js';
@@ -122,6 +123,21 @@ describe('options objects of the zone functions', () => {
     expect(thrown(() => listTransitions('UTC', 0, 1, { limit: '5' } as never)).message).toContain('pass the number 5');
     expect(thrown(() => listTransitions('UTC', 0, 1, { limit: 0 })).code).toBe('out-of-range');
     expect(thrown(() => zoneFromId('Europe/Paris', { source: {} } as never)).message).toMatch(/^options\.source: expected a zone rules source/);
+  });
+
+  it('a rules source brings its compiler (zoneFromRules), and what that returns is checked', () => {
+    // The rules are this test's own data (one fixed offset, no transitions): the check is the contract of
+    // ZoneRulesSource (src/zone/zone.ts), not a fact about a real zone.
+    const rulesOf = (id: string) => (id === 'Example/Fixed' ? { id, initialOffsetSeconds: 3600, transitionsSeconds: [], offsetsSeconds: [] } : undefined);
+    const source = { tzRelease: 'example', ids: ['Example/Fixed'], rulesOf, zoneFromRules };
+    const z = zoneFromId('example/fixed', { source });
+    expect([z.id, z.source, z.tzRelease, offsetSecondsFromEpochMs(z, 0)]).toEqual(['Example/Fixed', 'tzif', 'example', 3600]);
+    const without = thrown(() => zoneFromId('Example/Fixed', { source: { tzRelease: 'example', ids: ['Example/Fixed'], rulesOf } } as never));
+    expect(without.message).toMatch(/^options\.source: expected a zone rules source \{ tzRelease, ids, rulesOf, zoneFromRules \}/);
+    expect(without.code).toBe('invalid-type');
+    const wrong = thrown(() => zoneFromId('Example/Fixed', { source: { ...source, zoneFromRules: () => ({ id: 'Example/Fixed' }) } } as never));
+    expect(wrong.message).toMatch(/^options\.source\.zoneFromRules: expected a function that returns a Zone .*, got an object/);
+    expect(wrong).toBeInstanceOf(KalendsTypeError);
   });
 
   it('an instant given as text names the parser', () => {
