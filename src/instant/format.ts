@@ -106,14 +106,10 @@ function formatTimeOfDay(msOfDay: number, digits: FractionDigits): string {
   const h = Math.floor(msOfDay / MS_PER_HOUR);
   const m = Math.floor((msOfDay % MS_PER_HOUR) / MS_PER_MINUTE);
   const s = Math.floor((msOfDay % MS_PER_MINUTE) / 1000);
-  const ms = msOfDay % 1000;
-  let frac = '';
-  if (digits === 'auto') {
-    if (ms !== 0) frac = `.${String(ms).padStart(3, '0').replace(/0+$/, '')}`;
-  } else if (digits > 0) {
-    frac = `.${(String(ms).padStart(3, '0') + '000000').slice(0, digits)}`;
-  }
-  return `${pad2(h)}:${pad2(m)}:${pad2(s)}${frac}`;
+  // The millisecond as three digits, then zeros: 'auto' keeps the three without trailing zeros.
+  const digitsOf = (String(1000 + (msOfDay % 1000)).slice(1) + '000000').slice(0, digits === 'auto' ? 3 : digits);
+  const frac = digits === 'auto' ? digitsOf.replace(/0+$/, '') : digitsOf;
+  return `${pad2(h)}:${pad2(m)}:${pad2(s)}${frac === '' ? '' : `.${frac}`}`;
 }
 
 /** @internal `YYYY-MM-DDTHH:MM:SS[.fff]` of a wall time (floored to its millisecond), for text and messages. */
@@ -193,14 +189,14 @@ function formatAnnotations(fn: string, o: Readonly<Record<string, unknown>>): st
   const zoneId = optionOf(o, 'zoneId');
   const critical = requireBoolean('options.zoneCritical', optionOf(o, 'zoneCritical'), false);
   if (zoneId !== undefined) {
-    const candidate = `[${critical ? '!' : ''}${typeof zoneId === 'string' ? zoneId : ''}]`;
     if (typeof zoneId !== 'string') {
       throw new KalendsTypeError(`options.zoneId: expected a zone id string such as "Europe/Dublin", got ${describeValue(zoneId)}`, { code: 'invalid-type', received: zoneId });
     }
+    const candidate = `[${critical ? '!' : ''}${zoneId}]`;
     checkAnnotationText(fn, 'options.zoneId', zoneId, candidate, true);
     out += candidate;
   } else if (critical) {
-    throw new KalendsTypeError('options.zoneCritical: true marks the zone annotation critical, but options.zoneId is missing; give options.zoneId too', { code: 'invalid-type', received: true });
+    throw new KalendsTypeError('options.zoneCritical: true needs options.zoneId, the zone annotation it marks critical', { code: 'invalid-type', received: true });
   }
   const annotations = optionOf(o, 'annotations');
   if (annotations === undefined) return out;

@@ -53,8 +53,7 @@ export class Scanner {
 
   /** Describes the character at the cursor for an error message. */
   here(): string {
-    if (this.done) return 'the end of the text';
-    return `${JSON.stringify(this.text[this.pos])}`;
+    return this.done ? 'the end of the text' : JSON.stringify(this.text[this.pos]);
   }
 
   expectChar(code: number, what: string): void {
@@ -104,26 +103,16 @@ export class Scanner {
     const start = this.pos;
     const c = this.peek();
     let year: number;
-    if (c === 43 /* + */ || c === 45 /* - */) {
-      this.pos++;
-      const n = this.countDigits();
-      if (n !== 6) {
-        this.fail(`an expanded year needs a sign and exactly 6 digits, found ${n} digit${n === 1 ? '' : 's'}`, start);
-      }
-      const v = this.digits(6, 'the year');
-      if (c === 45 && v === 0) this.fail('-000000 is not a valid year; write year zero as 0000 or +000000', start);
-      year = c === 45 ? -v : v;
-    } else {
-      const n = this.countDigits();
-      if (n !== 4) {
-        this.fail(
-          n > 4
-            ? `a year with more than 4 digits needs a sign and exactly 6 digits (e.g. +012025), found ${n} digits`
-            : `the year needs 4 digits (or a sign and 6 digits), found ${n === 0 ? this.here() : `${n} digit${n === 1 ? '' : 's'}`}`,
-          start,
-        );
-      }
-      year = this.digits(4, 'the year');
+    const signed = c === 43 /* + */ || c === 45; /* - */
+    if (signed) this.pos++;
+    const n = this.countDigits();
+    if (n !== (signed ? 6 : 4)) {
+      this.fail(`a year is 4 digits, or a sign and 6 digits (e.g. +012025), found ${n === 0 ? this.here() : `${n} digit${n === 1 ? '' : 's'}`}`, start);
+    }
+    year = this.digits(n, 'the year');
+    if (signed) {
+      if (c === 45 && year === 0) this.fail('-000000 is not a valid year; write year zero as 0000 or +000000', start);
+      if (c === 45) year = -year;
     }
     if (year < MIN_YEAR - this.yearSlack || year > MAX_YEAR + this.yearSlack) {
       if (this.yearRange === 'syntax') this.fail(`year ${year} is outside the supported years ${MIN_YEAR} to ${MAX_YEAR}`, start, 'out-of-range');
