@@ -106,10 +106,14 @@ function formatTimeOfDay(msOfDay: number, digits: FractionDigits): string {
   const h = Math.floor(msOfDay / MS_PER_HOUR);
   const m = Math.floor((msOfDay % MS_PER_HOUR) / MS_PER_MINUTE);
   const s = Math.floor((msOfDay % MS_PER_MINUTE) / 1000);
-  // The millisecond as three digits, then zeros: 'auto' keeps the three without trailing zeros.
-  const digitsOf = (String(1000 + (msOfDay % 1000)).slice(1) + '000000').slice(0, digits === 'auto' ? 3 : digits);
-  const frac = digits === 'auto' ? digitsOf.replace(/0+$/, '') : digitsOf;
-  return `${pad2(h)}:${pad2(m)}:${pad2(s)}${frac === '' ? '' : `.${frac}`}`;
+  const ms = msOfDay % 1000;
+  let frac = '';
+  if (digits === 'auto') {
+    if (ms !== 0) frac = `.${String(ms).padStart(3, '0').replace(/0+$/, '')}`;
+  } else if (digits > 0) {
+    frac = `.${(String(ms).padStart(3, '0') + '000000').slice(0, digits)}`;
+  }
+  return `${pad2(h)}:${pad2(m)}:${pad2(s)}${frac}`;
 }
 
 /** @internal `YYYY-MM-DDTHH:MM:SS[.fff]` of a wall time (floored to its millisecond), for text and messages. */
@@ -217,15 +221,17 @@ function formatAnnotations(fn: string, o: Readonly<Record<string, unknown>>): st
 }
 
 function checkAnnotationText(fn: string, path: string, value: unknown, candidate: string, zone: boolean): void {
-  // Re-use the parser on a fixed prefix so that the formatter can never write what the parser would refuse.
-  const probe = `1970-01-01T00:00Z${candidate}`;
+  // Re-use the parser's reader of annotations so that the formatter can never write what the parser would refuse.
+  let ok = false;
   try {
-    const sc: Scanner = new Scanner(probe, fn, DATE_TIME_GRAMMAR);
-    sc.pos = 17;
+    const sc: Scanner = new Scanner(candidate, fn, DATE_TIME_GRAMMAR);
     const f = { zoneId: undefined, zoneCritical: false, annotations: [] } as unknown as Fields;
     readAnnotations(sc, f, zone ? [] : [(value as SuffixTag).key]);
-    if (!sc.done || (zone && f.zoneId === undefined) || (!zone && f.annotations.length !== 1)) throw new Error('x');
+    ok = sc.done && (zone ? f.zoneId !== undefined : f.annotations.length === 1);
   } catch {
+    // refused by the grammar: reported below
+  }
+  if (!ok) {
     throw new KalendsRangeError(
       `${path}: ${describeValue(zone ? value : candidate)} is not a valid RFC 9557 ${zone ? 'zone annotation (an IANA name such as Europe/Dublin, or ±HH:MM)' : 'suffix tag (a lower-case key, "=", alphanumeric values joined by "-")'}`,
       { code: 'out-of-range', received: value, path },

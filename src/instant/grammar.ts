@@ -162,10 +162,8 @@ function readTime(sc: Scanner, f: Fields): void {
     second = sc.field2('second', 0, 60);
     ns = sc.fractionNs('the second');
     if (ns < 0) ns = 0;
-  } else if (sc.countDigits() > 0) {
-    sc.fail(`expected ":" between minute and second (extended format HH:MM:SS), found ${sc.here()}`);
-  } else if (sc.peek() === 46 || sc.peek() === 44) {
-    sc.fail('a fraction is accepted only on the second; write HH:MM:SS.fff');
+  } else if (sc.countDigits() > 0 || sc.peek() === 46 || sc.peek() === 44) {
+    sc.fail(`expected ":" and the second after the minute (extended format HH:MM:SS; a fraction only on the second), found ${sc.here()}`);
   }
   f.hasTime = true;
   f.second = second;
@@ -224,16 +222,8 @@ function badOffset(sc: Scanner, found: string, at: number): never {
   return sc.fail(`an offset is written ±HH:MM (e.g. -05:00), found ${found}`, at);
 }
 
-function isAlpha(c: number): boolean {
-  return (c >= 65 && c <= 90) || (c >= 97 && c <= 122);
-}
-function isDigit(c: number): boolean {
-  return c >= 48 && c <= 57;
-}
-
 /** @internal */
 export function readAnnotations(sc: Scanner, f: Fields, understood: readonly string[]): void {
-  let sawTag = false;
   let seenKeys: Map<string, { value: string; differ: boolean; critical: boolean }> | undefined;
   while (sc.peek() === 91 /* [ */) {
     const open = sc.pos;
@@ -251,7 +241,7 @@ export function readAnnotations(sc: Scanner, f: Fields, understood: readonly str
     if (eq < 0) {
       // time-zone annotation
       if (f.zoneId !== undefined) sc.fail('a second zone annotation; at most one is allowed', open);
-      if (sawTag) sc.fail('the zone annotation must come first (RFC 9557 section 4.1)', open);
+      if (f.annotations.length > 0) sc.fail('the zone annotation must come first (RFC 9557 section 4.1)', open);
       if (body.length === 0) sc.fail('an empty annotation "[]"', open);
       const c0 = body.charCodeAt(0);
       if (c0 === 0x2212) failMinusSign(sc);
@@ -259,15 +249,15 @@ export function readAnnotations(sc: Scanner, f: Fields, understood: readonly str
         readNumericOffset(sc, false);
         if (sc.pos !== close) sc.fail(`unexpected ${sc.here()} in the offset zone annotation`);
       } else {
-        validateZoneName(sc, body, bodyStart);
+        validateName(sc, body, bodyStart, 0);
       }
       f.zoneId = body;
       f.zoneCritical = critical;
     } else {
       const key = body.slice(0, eq);
       const value = body.slice(eq + 1);
-      validateKey(sc, key, bodyStart);
-      validateValue(sc, value, bodyStart + eq + 1);
+      validateName(sc, key, bodyStart, 1);
+      validateName(sc, value, bodyStart + eq + 1, 2);
       // A critical tag (section 3.3) and an experimental key (section 3.2) are refused unless the caller acts on them.
       const unknownCritical = critical && !(key === 'u-ca' && value === 'iso8601');
       if ((unknownCritical || key.charCodeAt(0) === 95) && !understood.includes(key)) {
@@ -285,60 +275,55 @@ export function readAnnotations(sc: Scanner, f: Fields, understood: readonly str
       if (seen.differ && seen.critical) sc.fail(`the key ${key} is given twice with different values and one is critical (RFC 9557 section 3.3)`, open);
       seenKeys.set(key, seen);
       f.annotations.push(Object.freeze({ key, value, critical }));
-      sawTag = true;
     }
     sc.pos = close + 1;
   }
 }
 
-function validateZoneName(sc: Scanner, body: string, at: number): void {
+/** What each RFC 9557 name is called in messages, and the characters section 4.1 allows in it. */
+const NAME_KINDS = [
+  ['a zone name', 'letters, ".", "_", then digits, "-", "+"'],
+  ['an annotation key', 'a lower-case letter or "_", then digits and "-"'],
+  ['an annotation value', 'letters and digits, in parts joined by "-"'],
+] as const;
+
+/**
+ * Checks a zone name (kind 0: parts joined by "/", none "." or ".."), an annotation key (kind 1: lower case only,
+ * RFC 9557 section 3.1) or an annotation value (kind 2: parts joined by "-") against RFC 9557 section 4.1. `at` is
+ * the position of `name` in the text.
+ */
+function validateName(sc: Scanner, name: string, at: number, kind: 0 | 1 | 2): void {
+  const sep = kind === 0 ? 47 /* / */ : kind === 2 ? 45 /* - */ : -1;
   let partStart = 0;
-  for (let i = 0; i <= body.length; i++) {
-    const c = i < body.length ? body.charCodeAt(i) : 47;
-    if (c === 47 /* / */) {
-      const part = body.slice(partStart, i);
-      if (part.length === 0) sc.fail('a zone name part is empty', at + i);
-      if (part === '.' || part === '..') sc.fail(`"${part}" is not a valid zone name part`, at + partStart);
+  for (let i = 0; i <= name.length; i++) {
+    const c = i < name.length ? name.charCodeAt(i) : sep;
+    const initial = i === partStart;
+    if (c === sep) {
+      if (initial) sc.fail(`${NAME_KINDS[kind][0]} (or a part of it) is empty (RFC 9557 section 4.1: ${NAME_KINDS[kind][1]})`, at + i);
+      // "." and ".." are not zone name parts (checked by length first: no slice on the common path).
+      if (kind === 0 && i - partStart <= 2 && name.charCodeAt(partStart) === 46 && name.charCodeAt(i - 1) === 46) {
+        sc.fail(`"${name.slice(partStart, i)}" is not a valid zone name part`, at + partStart);
+      }
       partStart = i + 1;
       continue;
     }
-    const initial = i === partStart;
-    const ok = isAlpha(c) || c === 46 || c === 95 || (!initial && (isDigit(c) || c === 45 || c === 43));
+    const upper = c >= 65 && c <= 90;
+    const letter = upper || (c >= 97 && c <= 122);
+    const digit = c >= 48 && c <= 57;
+    const ok =
+      kind === 2
+        ? letter || digit
+        : kind === 1
+          ? (letter && !upper) || c === 95 || (!initial && (digit || c === 45))
+          : letter || c === 46 || c === 95 || (!initial && (digit || c === 45 || c === 43));
     if (!ok) {
       sc.fail(
-        `${JSON.stringify(body[i])} is not allowed ${initial ? 'to start' : 'in'} a zone name part (RFC 9557 section 4.1: letters, ".", "_", then digits, "-", "+")`,
+        kind === 1 && upper
+          ? `annotation keys are lower-case only (RFC 9557 section 3.1), found ${JSON.stringify(name)}`
+          : `${JSON.stringify(name[i])} is not allowed ${initial ? 'to start' : 'in'} ${NAME_KINDS[kind][0]} (RFC 9557 section 4.1: ${NAME_KINDS[kind][1]})`,
         at + i,
       );
     }
-  }
-}
-
-function validateKey(sc: Scanner, key: string, at: number): void {
-  if (key.length === 0) sc.fail('an annotation key is empty', at);
-  for (let i = 0; i < key.length; i++) {
-    const c = key.charCodeAt(i);
-    const lower = (c >= 97 && c <= 122) || c === 95;
-    const ok = i === 0 ? lower : lower || isDigit(c) || c === 45;
-    if (!ok) {
-      sc.fail(
-        c >= 65 && c <= 90
-          ? `annotation keys are lower-case only (RFC 9557 section 3.1), found ${JSON.stringify(key)}`
-          : `${JSON.stringify(key[i])} is not allowed in an annotation key (RFC 9557 section 4.1)`,
-        at + i,
-      );
-    }
-  }
-}
-
-function validateValue(sc: Scanner, value: string, at: number): void {
-  let run = 0;
-  for (let i = 0; i <= value.length; i++) {
-    const c = i < value.length ? value.charCodeAt(i) : 45;
-    if (c === 45) {
-      if (run === 0) sc.fail('an annotation value part is empty (values are letters and digits joined by "-")', at + i);
-      run = 0;
-    } else if (isAlpha(c) || isDigit(c)) run++;
-    else sc.fail(`${JSON.stringify(value[i])} is not allowed in an annotation value (RFC 9557 section 4.1)`, at + i);
   }
 }
 

@@ -229,15 +229,10 @@ export function readPlainDate(input: unknown, name: string): number {
     const weeks = isoWeeksInYearUnchecked(year);
     const week = sc.field2('week', 1, weeks, ` in week-year ${formatYear(year)}`);
     sc.expectChar(45, '"-" and the weekday (1 for Monday to 7) after the week');
-    const wdPos = sc.pos;
-    const weekday = sc.digits(1, 'the weekday');
-    if (weekday < 1 || weekday > 7) sc.fail(`weekday ${weekday} is out of range; expected 1 (Monday) to 7 (Sunday)`, wdPos, 'out-of-range');
+    const weekday = sc.field(1, 'weekday', 1, 7, ' (Monday to Sunday)');
     dn = isoWeekOneMonday(year) + (week - 1) * 7 + weekday - 1;
   } else if (sc.countDigits() === 3) {
-    const pos = sc.pos;
-    const doy = sc.digits(3, 'the day of the year');
-    const max = isLeapYearUnchecked(year) ? 366 : 365;
-    if (doy < 1 || doy > max) sc.fail(`day of year ${text.slice(pos, pos + 3)} is out of range; ${formatYear(year)} has days 001 to ${max}`, pos, 'out-of-range');
+    const doy = sc.field(3, 'day of year', 1, isLeapYearUnchecked(year) ? 366 : 365, ` in ${formatYear(year)}`);
     dn = dayNumberFromYmdUnchecked(year, 1, 1) + doy - 1;
   } else {
     sc.pos = start;
