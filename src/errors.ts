@@ -52,15 +52,12 @@ export interface KalendsErrorOptions {
  * ```
  */
 export class KalendsRangeError extends RangeError implements KalendsErrorFields {
-  readonly code: ErrorCode;
-  readonly received: unknown;
-  readonly path: string | undefined;
+  declare readonly code: ErrorCode;
+  declare readonly received: unknown;
+  declare readonly path: string | undefined;
   constructor(message: string, options: KalendsErrorOptions) {
     super(message);
-    this.name = 'KalendsRangeError';
-    this.code = options.code;
-    this.received = options.received;
-    this.path = options.path;
+    setFields(this, 'KalendsRangeError', options);
   }
 }
 
@@ -73,15 +70,12 @@ export class KalendsRangeError extends RangeError implements KalendsErrorFields 
  * ```
  */
 export class KalendsTypeError extends TypeError implements KalendsErrorFields {
-  readonly code: ErrorCode;
-  readonly received: unknown;
-  readonly path: string | undefined;
+  declare readonly code: ErrorCode;
+  declare readonly received: unknown;
+  declare readonly path: string | undefined;
   constructor(message: string, options: KalendsErrorOptions) {
     super(message);
-    this.name = 'KalendsTypeError';
-    this.code = options.code;
-    this.received = options.received;
-    this.path = options.path;
+    setFields(this, 'KalendsTypeError', options);
   }
 }
 
@@ -95,22 +89,31 @@ export class KalendsTypeError extends TypeError implements KalendsErrorFields {
  * ```
  */
 export class KalendsSyntaxError extends SyntaxError implements KalendsErrorFields {
-  readonly code: ErrorCode;
-  readonly received: unknown;
-  readonly path: string | undefined;
+  declare readonly code: ErrorCode;
+  declare readonly received: unknown;
+  declare readonly path: string | undefined;
   /** The 0-based index of the first character that could not be read. */
-  readonly position: number;
+  declare readonly position: number;
   constructor(message: string, options: KalendsErrorOptions & {
     /** The 0-based index of the first character that could not be read (default 0). */
     readonly position?: number;
   }) {
     super(message);
-    this.name = 'KalendsSyntaxError';
-    this.code = options.code;
-    this.received = options.received;
-    this.path = options.path;
+    setFields(this, 'KalendsSyntaxError', options);
     this.position = options.position ?? 0;
   }
+}
+
+/**
+ * Sets the fields of a kalends error in the order the classes have always had them (code, received, path, then
+ * name), in one place so that each class stays small.
+ */
+function setFields(e: Error, name: string, options: KalendsErrorOptions): void {
+  const t = e as { -readonly [K in keyof KalendsErrorFields]: KalendsErrorFields[K] } & Error;
+  t.code = options.code;
+  t.received = options.received;
+  t.path = options.path;
+  t.name = name;
 }
 
 /** One fault found while validating a definition. */
@@ -153,11 +156,9 @@ export function describeValue(value: unknown): string {
   }
   if (typeof value === 'number') return Object.is(value, -0) ? '-0' : String(value);
   if (typeof value === 'bigint') return `${value}n`;
-  if (value === null) return 'null';
-  if (value === undefined) return 'undefined';
   if (typeof value === 'function') return 'a function';
-  if (typeof value === 'symbol') return value.toString();
-  if (typeof value === 'boolean') return String(value);
+  // null, undefined, booleans and symbols (String gives a symbol's description: Symbol(x)).
+  if (typeof value !== 'object' || value === null) return String(value);
   if (Array.isArray(value)) return `an array of length ${value.length}`;
   const ctor = (value as { constructor?: { name?: string } }).constructor?.name;
   return ctor && ctor !== 'Object' ? `a ${ctor}` : 'an object';
@@ -168,17 +169,11 @@ export function describeValue(value: unknown): string {
  * `name` is the parameter's name, shown in the message.
  */
 export function requireInteger(name: string, value: unknown, min: number, max: number): number {
-  if (typeof value !== 'number') {
-    throw new KalendsTypeError(`${name}: expected an integer from ${min} to ${max}, got ${describeValue(value)}`, {
-      code: 'invalid-type',
-      received: value,
-    });
-  }
-  if (!Number.isInteger(value) || value < min || value > max) {
-    throw new KalendsRangeError(`${name}: expected an integer from ${min} to ${max}, got ${describeValue(value)}`, {
-      code: 'out-of-range',
-      received: value,
-    });
+  if (typeof value !== 'number' || !Number.isInteger(value) || value < min || value > max) {
+    const message = `${name}: expected an integer from ${min} to ${max}, got ${describeValue(value)}`;
+    throw typeof value !== 'number'
+      ? new KalendsTypeError(message, { code: 'invalid-type', received: value })
+      : new KalendsRangeError(message, { code: 'out-of-range', received: value });
   }
   return value;
 }

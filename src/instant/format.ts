@@ -193,14 +193,14 @@ function formatAnnotations(fn: string, o: Readonly<Record<string, unknown>>): st
   const zoneId = optionOf(o, 'zoneId');
   const critical = requireBoolean('options.zoneCritical', optionOf(o, 'zoneCritical'), false);
   if (zoneId !== undefined) {
-    const candidate = `[${critical ? '!' : ''}${typeof zoneId === 'string' ? zoneId : ''}]`;
     if (typeof zoneId !== 'string') {
       throw new KalendsTypeError(`options.zoneId: expected a zone id string such as "Europe/Dublin", got ${describeValue(zoneId)}`, { code: 'invalid-type', received: zoneId });
     }
+    const candidate = `[${critical ? '!' : ''}${zoneId}]`;
     checkAnnotationText(fn, 'options.zoneId', zoneId, candidate, true);
     out += candidate;
   } else if (critical) {
-    throw new KalendsTypeError('options.zoneCritical: true marks the zone annotation critical, but options.zoneId is missing; give options.zoneId too', { code: 'invalid-type', received: true });
+    throw new KalendsTypeError('options.zoneCritical: true needs options.zoneId, the zone annotation it marks critical', { code: 'invalid-type', received: true });
   }
   const annotations = optionOf(o, 'annotations');
   if (annotations === undefined) return out;
@@ -221,15 +221,17 @@ function formatAnnotations(fn: string, o: Readonly<Record<string, unknown>>): st
 }
 
 function checkAnnotationText(fn: string, path: string, value: unknown, candidate: string, zone: boolean): void {
-  // Re-use the parser on a fixed prefix so that the formatter can never write what the parser would refuse.
-  const probe = `1970-01-01T00:00Z${candidate}`;
+  // Re-use the parser's reader of annotations so that the formatter can never write what the parser would refuse.
+  let ok = false;
   try {
-    const sc: Scanner = new Scanner(probe, fn, DATE_TIME_GRAMMAR);
-    sc.pos = 17;
+    const sc: Scanner = new Scanner(candidate, fn, DATE_TIME_GRAMMAR);
     const f = { zoneId: undefined, zoneCritical: false, annotations: [] } as unknown as Fields;
     readAnnotations(sc, f, zone ? [] : [(value as SuffixTag).key]);
-    if (!sc.done || (zone && f.zoneId === undefined) || (!zone && f.annotations.length !== 1)) throw new Error('x');
+    ok = sc.done && (zone ? f.zoneId !== undefined : f.annotations.length === 1);
   } catch {
+    // refused by the grammar: reported below
+  }
+  if (!ok) {
     throw new KalendsRangeError(
       `${path}: ${describeValue(zone ? value : candidate)} is not a valid RFC 9557 ${zone ? 'zone annotation (an IANA name such as Europe/Dublin, or ±HH:MM)' : 'suffix tag (a lower-case key, "=", alphanumeric values joined by "-")'}`,
       { code: 'out-of-range', received: value, path },

@@ -8,7 +8,7 @@
  */
 import { MS_PER_DAY } from '../bounds.js';
 import { KalendsTypeError, describeValue } from '../errors.js';
-import { dayCountOfMonthUnchecked, dayNumberFromYmdUnchecked, packedYmdUnchecked, yearOfPacked, monthOfPacked, dayOfPacked } from '../civil/gregorian.js';
+import { dayNumberFromYmdUnchecked, packedYmdUnchecked, dayOfPacked } from '../civil/gregorian.js';
 import { Scanner, readCalendarDate } from './scan.js';
 
 /** One RFC 9557 suffix tag such as `[u-ca=iso8601]` or `[!x-order=42]`. */
@@ -86,9 +86,6 @@ export const DATE_TIME_GRAMMAR = 'an RFC 9557 date-time';
 
 /** @internal */
 export interface Fields {
-  year: number;
-  month: number;
-  day: number;
   dayNumber: number;
   hasTime: boolean;
   msOfDay: number;
@@ -119,9 +116,6 @@ export function requireString(fn: string, text: unknown, what: string): string {
 export function readFields(sc: Scanner, understood: readonly string[]): Fields {
   const { year, month, day } = readCalendarDate(sc);
   const f: Fields = {
-    year,
-    month,
-    day,
     dayNumber: dayNumberFromYmdUnchecked(year, month, day),
     hasTime: false,
     msOfDay: 0,
@@ -141,24 +135,24 @@ export function readFields(sc: Scanner, understood: readonly string[]): Fields {
     readTime(sc, f);
     readOffset(sc, f);
   } else if (!sc.done && sep !== 91 /* [ */) {
-    sc.fail(`expected "T" (or "t" or a space) between the date and the time, found ${sc.here()}`);
+    sc.fail(`expected "T", "t" or a space after the date, found ${sc.here()}`);
   }
   readAnnotations(sc, f, understood);
-  if (!sc.done) sc.fail(`unexpected ${sc.here()} after the end of the date-time`);
+  if (!sc.done) sc.fail(`unexpected ${sc.here()} after the date-time`);
   return f;
 }
 
 function readTime(sc: Scanner, f: Fields): void {
   const hourPos = sc.pos;
   const hour = sc.digits(2, 'the hour');
-  if (hour === 24) {
-    sc.fail('hour 24 is not accepted (RFC 3339 section 5.6 allows 00 to 23); write 00:00 of the next day instead', hourPos, 'out-of-range');
+  if (hour > 23) {
+    sc.fail(
+      `hour ${sc.text.slice(hourPos, hourPos + 2)} is out of range; expected 00 to 23${hour === 24 ? ' (RFC 3339 section 5.6): write 00:00 of the next day instead' : ''}`,
+      hourPos,
+      'out-of-range',
+    );
   }
-  if (hour > 23) sc.fail(`hour ${sc.text.slice(hourPos, hourPos + 2)} is out of range; expected 00 to 23`, hourPos, 'out-of-range');
-  if (sc.peek() !== 58) {
-    sc.fail(sc.countDigits() > 0 ? 'the time needs ":" between hour and minute (extended format)' : `expected ":" and the minute after the hour, found ${sc.here()}`);
-  }
-  sc.pos++;
+  sc.expectChar(58, '":" and the minute after the hour (extended format HH:MM)');
   const minute = sc.field2('minute', 0, 59);
   let second = 0;
   let ns = 0;
@@ -168,10 +162,8 @@ function readTime(sc: Scanner, f: Fields): void {
     second = sc.field2('second', 0, 60);
     ns = sc.fractionNs('the second');
     if (ns < 0) ns = 0;
-  } else if (sc.countDigits() > 0) {
-    sc.fail('the time needs ":" between minute and second (extended format)');
-  } else if (sc.peek() === 46 || sc.peek() === 44) {
-    sc.fail('a fraction is accepted only on the second; write HH:MM:SS.fff');
+  } else if (sc.countDigits() > 0 || sc.peek() === 46 || sc.peek() === 44) {
+    sc.fail(`expected ":" and the second after the minute (extended format HH:MM:SS; a fraction only on the second), found ${sc.here()}`);
   }
   f.hasTime = true;
   f.second = second;
@@ -202,7 +194,7 @@ function readOffset(sc: Scanner, f: Fields): void {
  * ISO 8601-1:2019 writes the minus sign as U+2212 (from memory), but kalends reads the RFC grammar.
  */
 export function failMinusSign(sc: Scanner): never {
-  return sc.fail('U+2212 (the minus sign) is not accepted as the sign of an offset; RFC 3339 section 5.6 and RFC 9557 section 4.1 allow only "+" and "-": write the ASCII hyphen-minus (-05:00) instead');
+  return sc.fail('U+2212 (the minus sign) is not an offset sign; RFC 3339 and RFC 9557 allow only "+" and "-": write the ASCII hyphen-minus (-05:00)');
 }
 
 /** @internal Reads `±HH:MM` or, when `allowSeconds`, `±HH:MM:SS`. Returns seconds east of UTC. */
@@ -211,16 +203,9 @@ function readNumericOffset(sc: Scanner, allowSeconds: boolean): number {
   const sign = sc.peek() === 45 ? -1 : 1;
   sc.pos++;
   const n = sc.countDigits();
-  if (n !== 2) {
-    sc.fail(
-      n === 4
-        ? 'the offset needs a colon: write ±HH:MM (e.g. +01:00)'
-        : `the offset must be written ±HH:MM (e.g. -05:00), found ${n === 0 ? sc.here() : `${n} digits`}`,
-      start,
-    );
-  }
+  if (n !== 2) badOffset(sc, n === 0 ? sc.here() : `${n} digits`, start);
   const hours = sc.field2('offset hour', 0, 23);
-  if (sc.peek() !== 58) sc.fail('the offset needs minutes: write ±HH:MM (e.g. +01:00)', sc.pos);
+  if (sc.peek() !== 58) badOffset(sc, sc.here(), sc.pos);
   sc.pos++;
   const minutes = sc.field2('offset minute', 0, 59);
   let seconds = 0;
@@ -233,21 +218,17 @@ function readNumericOffset(sc: Scanner, allowSeconds: boolean): number {
   return sign * (hours * 3600 + minutes * 60 + seconds);
 }
 
-function isAlpha(c: number): boolean {
-  return (c >= 65 && c <= 90) || (c >= 97 && c <= 122);
-}
-function isDigit(c: number): boolean {
-  return c >= 48 && c <= 57;
+function badOffset(sc: Scanner, found: string, at: number): never {
+  return sc.fail(`an offset is written ±HH:MM (e.g. -05:00), found ${found}`, at);
 }
 
 /** @internal */
 export function readAnnotations(sc: Scanner, f: Fields, understood: readonly string[]): void {
-  let sawTag = false;
   let seenKeys: Map<string, { value: string; differ: boolean; critical: boolean }> | undefined;
   while (sc.peek() === 91 /* [ */) {
     const open = sc.pos;
     const close = sc.text.indexOf(']', open);
-    if (close < 0) sc.fail('an annotation opened with "[" is never closed with "]"', open);
+    if (close < 0) sc.fail('a "[" is never closed with "]"', open);
     sc.pos++;
     let critical = false;
     if (sc.peek() === 33 /* ! */) {
@@ -260,7 +241,7 @@ export function readAnnotations(sc: Scanner, f: Fields, understood: readonly str
     if (eq < 0) {
       // time-zone annotation
       if (f.zoneId !== undefined) sc.fail('a second zone annotation; at most one is allowed', open);
-      if (sawTag) sc.fail('the zone annotation must come before the other annotations (RFC 9557 section 4.1)', open);
+      if (f.annotations.length > 0) sc.fail('the zone annotation must come first (RFC 9557 section 4.1)', open);
       if (body.length === 0) sc.fail('an empty annotation "[]"', open);
       const c0 = body.charCodeAt(0);
       if (c0 === 0x2212) failMinusSign(sc);
@@ -268,96 +249,81 @@ export function readAnnotations(sc: Scanner, f: Fields, understood: readonly str
         readNumericOffset(sc, false);
         if (sc.pos !== close) sc.fail(`unexpected ${sc.here()} in the offset zone annotation`);
       } else {
-        validateZoneName(sc, body, bodyStart);
+        validateName(sc, body, bodyStart, 0);
       }
       f.zoneId = body;
       f.zoneCritical = critical;
     } else {
       const key = body.slice(0, eq);
       const value = body.slice(eq + 1);
-      validateKey(sc, key, bodyStart);
-      validateValue(sc, value, bodyStart + eq + 1);
-      const builtIn = key === 'u-ca' && value === 'iso8601';
-      if (critical && !builtIn && !understood.includes(key)) {
+      validateName(sc, key, bodyStart, 1);
+      validateName(sc, value, bodyStart + eq + 1, 2);
+      // A critical tag (section 3.3) and an experimental key (section 3.2) are refused unless the caller acts on them.
+      const unknownCritical = critical && !(key === 'u-ca' && value === 'iso8601');
+      if ((unknownCritical || key.charCodeAt(0) === 95) && !understood.includes(key)) {
         sc.fail(
-          `the critical annotation [!${key}=${value}] is not understood; a recipient must reject it (RFC 9557 section 3.3). Pass understoodKeys: [${JSON.stringify(key)}] if your code processes it`,
-          open,
+          `${unknownCritical ? `the critical annotation [!${key}=${value}]` : `the experimental key ${key}`} is refused unless understood (RFC 9557 section 3.${unknownCritical ? 3 : 2}); pass understoodKeys: [${JSON.stringify(key)}] if your code acts on it`,
+          unknownCritical ? open : bodyStart,
           'unsupported',
         );
       }
-      if (key.charCodeAt(0) === 95 && !understood.includes(key)) {
-        sc.fail(
-          `the experimental key ${key} is rejected unless configured (RFC 9557 section 3.2); pass understoodKeys: [${JSON.stringify(key)}] to accept it`,
-          bodyStart,
-          'unsupported',
-        );
-      }
+      // A repeated key: any two values that differ, with any of its tags critical, is an error (section 3.3).
       seenKeys ??= new Map();
-      const seen = seenKeys.get(key);
-      if (seen === undefined) seenKeys.set(key, { value, differ: false, critical });
-      else {
-        const differ = seen.differ || seen.value !== value;
-        if (differ && (seen.critical || critical)) {
-          sc.fail(`the key ${key} is given twice with different values and one is critical (RFC 9557 section 3.3)`, open);
-        }
-        seen.differ = differ;
-        seen.critical ||= critical;
-      }
+      const seen = seenKeys.get(key) ?? { value, differ: false, critical };
+      seen.differ ||= seen.value !== value;
+      seen.critical ||= critical;
+      if (seen.differ && seen.critical) sc.fail(`the key ${key} is given twice with different values and one is critical (RFC 9557 section 3.3)`, open);
+      seenKeys.set(key, seen);
       f.annotations.push(Object.freeze({ key, value, critical }));
-      sawTag = true;
     }
     sc.pos = close + 1;
   }
 }
 
-function validateZoneName(sc: Scanner, body: string, at: number): void {
+/** What each RFC 9557 name is called in messages, and the characters section 4.1 allows in it. */
+const NAME_KINDS = [
+  ['a zone name', 'letters, ".", "_", then digits, "-", "+"'],
+  ['an annotation key', 'a lower-case letter or "_", then digits and "-"'],
+  ['an annotation value', 'letters and digits, in parts joined by "-"'],
+] as const;
+
+/**
+ * Checks a zone name (kind 0: parts joined by "/", none "." or ".."), an annotation key (kind 1: lower case only,
+ * RFC 9557 section 3.1) or an annotation value (kind 2: parts joined by "-") against RFC 9557 section 4.1. `at` is
+ * the position of `name` in the text.
+ */
+function validateName(sc: Scanner, name: string, at: number, kind: 0 | 1 | 2): void {
+  const sep = kind === 0 ? 47 /* / */ : kind === 2 ? 45 /* - */ : -1;
   let partStart = 0;
-  for (let i = 0; i <= body.length; i++) {
-    const c = i < body.length ? body.charCodeAt(i) : 47;
-    if (c === 47 /* / */) {
-      const part = body.slice(partStart, i);
-      if (part.length === 0) sc.fail('a zone name part is empty', at + i);
-      if (part === '.' || part === '..') sc.fail(`"${part}" is not a valid zone name part`, at + partStart);
+  for (let i = 0; i <= name.length; i++) {
+    const c = i < name.length ? name.charCodeAt(i) : sep;
+    const initial = i === partStart;
+    if (c === sep) {
+      if (initial) sc.fail(`${NAME_KINDS[kind][0]} (or a part of it) is empty (RFC 9557 section 4.1: ${NAME_KINDS[kind][1]})`, at + i);
+      // "." and ".." are not zone name parts (checked by length first: no slice on the common path).
+      if (kind === 0 && i - partStart <= 2 && name.charCodeAt(partStart) === 46 && name.charCodeAt(i - 1) === 46) {
+        sc.fail(`"${name.slice(partStart, i)}" is not a valid zone name part`, at + partStart);
+      }
       partStart = i + 1;
       continue;
     }
-    const initial = i === partStart;
-    const ok = isAlpha(c) || c === 46 || c === 95 || (!initial && (isDigit(c) || c === 45 || c === 43));
+    const upper = c >= 65 && c <= 90;
+    const letter = upper || (c >= 97 && c <= 122);
+    const digit = c >= 48 && c <= 57;
+    const ok =
+      kind === 2
+        ? letter || digit
+        : kind === 1
+          ? (letter && !upper) || c === 95 || (!initial && (digit || c === 45))
+          : letter || c === 46 || c === 95 || (!initial && (digit || c === 45 || c === 43));
     if (!ok) {
       sc.fail(
-        `${JSON.stringify(body[i])} is not allowed ${initial ? 'at the start of' : 'in'} a zone name (RFC 9557 section 4.1: letters, ".", "_", then digits, "-", "+")`,
+        kind === 1 && upper
+          ? `annotation keys are lower-case only (RFC 9557 section 3.1), found ${JSON.stringify(name)}`
+          : `${JSON.stringify(name[i])} is not allowed ${initial ? 'to start' : 'in'} ${NAME_KINDS[kind][0]} (RFC 9557 section 4.1: ${NAME_KINDS[kind][1]})`,
         at + i,
       );
     }
-  }
-}
-
-function validateKey(sc: Scanner, key: string, at: number): void {
-  if (key.length === 0) sc.fail('an annotation key is empty', at);
-  for (let i = 0; i < key.length; i++) {
-    const c = key.charCodeAt(i);
-    const lower = (c >= 97 && c <= 122) || c === 95;
-    const ok = i === 0 ? lower : lower || isDigit(c) || c === 45;
-    if (!ok) {
-      sc.fail(
-        c >= 65 && c <= 90
-          ? `annotation keys are lower-case only (RFC 9557 section 3.1), found ${JSON.stringify(key)}`
-          : `${JSON.stringify(key[i])} is not allowed in an annotation key (RFC 9557 section 4.1)`,
-        at + i,
-      );
-    }
-  }
-}
-
-function validateValue(sc: Scanner, value: string, at: number): void {
-  let run = 0;
-  for (let i = 0; i <= value.length; i++) {
-    const c = i < value.length ? value.charCodeAt(i) : 45;
-    if (c === 45) {
-      if (run === 0) sc.fail('an annotation value part is empty (values are alphanumeric parts joined by "-")', at + i);
-      run = 0;
-    } else if (isAlpha(c) || isDigit(c)) run++;
-    else sc.fail(`${JSON.stringify(value[i])} is not allowed in an annotation value (RFC 9557 section 4.1)`, at + i);
   }
 }
 
@@ -372,10 +338,10 @@ export function checkLeapSecond(sc: Scanner, f: Fields, leapSecond: LeapSecondHa
     const utcMinuteMs = f.dayNumber * MS_PER_DAY + f.msOfDay - (f.msOfDay % MS_PER_MINUTE) - f.offsetSeconds * 1000;
     const utcDay = Math.floor(utcMinuteMs / MS_PER_DAY);
     const utcMinuteOfDay = (utcMinuteMs - utcDay * MS_PER_DAY) / MS_PER_MINUTE;
-    const p = packedYmdUnchecked(utcDay);
-    if (utcMinuteOfDay !== 23 * 60 + 59 || dayOfPacked(p) !== dayCountOfMonthUnchecked(yearOfPacked(p), monthOfPacked(p))) {
+    // The last day of a month is the day before a first of the month.
+    if (utcMinuteOfDay !== 23 * 60 + 59 || dayOfPacked(packedYmdUnchecked(utcDay + 1)) !== 1) {
       sc.fail(
-        'second 60 is a leap second, which occurs only at 23:59:60 UTC on the last day of a month (RFC 3339 section 5.7)',
+        'a leap second (second 60) occurs only at 23:59:60 UTC on the last day of a month (RFC 3339 section 5.7)',
         f.secondPos,
         'out-of-range',
       );

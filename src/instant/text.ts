@@ -36,6 +36,11 @@ const PLAIN_OFFSET_HANDLING: readonly ('reject' | 'ignore')[] = ['reject', 'igno
 const PARSE_KEYS = ['leapSecond', 'understoodKeys'] as const;
 const NO_PARSE_OPTIONS = /* @__PURE__ */ Object.freeze({ record: Object.freeze({}), leapSecond: 'constrain' as LeapSecondHandling, understood: Object.freeze([]) as readonly string[] });
 
+/** A scanner over `input`, which must be a string: `<name>: expected <grammar> as a string, got ...` otherwise. */
+function scannerOf(input: unknown, name: string, grammar: string): Scanner {
+  return new Scanner(requireString(name, input, grammar), name, grammar);
+}
+
 /** The options of a date-time parser, read once: unknown keys, foreign enum values and a bare string refused. */
 function readParseOptions(options: unknown, extra: readonly string[] = []): { record: Readonly<Record<string, unknown>>; leapSecond: LeapSecondHandling; understood: readonly string[] } {
   // The common call passes no options: answer it without building the key list or a result object.
@@ -80,9 +85,8 @@ function readUnderstoodKeys(value: unknown): readonly string[] {
  * ```
  */
 export function parseExtendedDateTime(text: string, options?: ParseDateTimeOptions): ExtendedDateTime {
-  requireString('text', text, 'a date-time');
+  const sc: Scanner = scannerOf(text, 'text', DATE_TIME_GRAMMAR);
   const { leapSecond, understood } = readParseOptions(options);
-  const sc: Scanner = new Scanner(text, 'text', DATE_TIME_GRAMMAR);
   const f = readFields(sc, understood);
   const leap = checkLeapSecond(sc, f, leapSecond);
   return Object.freeze({
@@ -127,19 +131,13 @@ export function parseInstant(text: string, options?: ParseDateTimeOptions): Pars
 
 /** @internal {@link parseInstant}, with the name of the parameter that held the text (for messages). */
 export function readInstant(input: unknown, options: unknown, name: string): ParsedInstant {
-  const text = requireString(name, input, 'an RFC 3339 date-time with an offset');
+  const sc: Scanner = scannerOf(input, name, INSTANT_GRAMMAR);
+  const text = sc.text;
   const { leapSecond, understood } = readParseOptions(options);
-  const sc: Scanner = new Scanner(text, name, INSTANT_GRAMMAR);
   const f = readFields(sc, understood);
-  if (!f.hasTime) {
-    sc.fail('it is a date without a time and offset; an instant needs both (e.g. 2025-02-14T09:30:00Z). To read a calendar date use parsePlainDate instead', text.length);
-  }
   if (f.offsetSeconds === undefined) {
-    throw syntaxError(
-      name,
-      text,
-      INSTANT_GRAMMAR,
-      'the UTC offset is missing; an instant needs "Z" or ±HH:MM after the time. To read it as a local date-time use parsePlainDateTime instead',
+    sc.fail(
+      `the ${f.hasTime ? 'UTC offset is' : 'time and the UTC offset are'} missing; an instant needs both (e.g. 2025-02-14T09:30:00Z): use ${f.hasTime ? 'parsePlainDateTime' : 'parsePlainDate'} for local text`,
       text.length,
     );
   }
@@ -182,35 +180,22 @@ export function parsePlainDateTime(text: string, options?: ParsePlainDateTimeOpt
 
 /** @internal {@link parsePlainDateTime}, with the name of the parameter that held the text (for messages). */
 export function readPlainDateTime(input: unknown, options: unknown, name: string): number {
-  const text = requireString(name, input, 'a local date-time');
+  const sc: Scanner = scannerOf(input, name, 'a local ISO 8601 date-time');
+  const text = sc.text;
   const { record, leapSecond, understood } = readParseOptions(options, ['offset']);
   const offset = requireEnum('options.offset', optionOf(record, 'offset'), PLAIN_OFFSET_HANDLING, 'reject');
-  const sc: Scanner = new Scanner(text, name, 'a local ISO 8601 date-time');
   const f = readFields(sc, understood);
-  if (f.zuluPos >= 0) {
-    throw syntaxError(name, text, 'a local ISO 8601 date-time', '"Z" gives a time in UTC, not a local time; use parseInstant instead', f.zuluPos);
+  if (f.zuluPos >= 0) sc.fail('"Z" gives a time in UTC, not a local time; use parseInstant instead', f.zuluPos);
+  if (offset === 'reject' && (f.offsetSeconds !== undefined || f.zoneId !== undefined)) {
+    const hasOffset = f.offsetSeconds !== undefined;
+    sc.fail(
+      `it has ${hasOffset ? 'a UTC offset, so it names an instant (use parseInstant)' : 'a zone annotation, so it names a zoned time'}; pass { offset: "ignore" } to keep only the wall-clock fields`,
+      hasOffset ? text.length : text.indexOf('['),
+    );
   }
-  if (offset === 'reject') {
-    if (f.offsetSeconds !== undefined) {
-      throw syntaxError(
-        name,
-        text,
-        'a local ISO 8601 date-time',
-        'it has a UTC offset, so it names an instant; use parseInstant, or pass { offset: "ignore" } to keep only the wall-clock fields',
-        text.length,
-      );
-    }
-    if (f.zoneId !== undefined) {
-      throw syntaxError(
-        name,
-        text,
-        'a local ISO 8601 date-time',
-        'it has a zone annotation, so it names a zoned time; pass { offset: "ignore" } to keep only the wall-clock fields',
-        text.indexOf('['),
-      );
-    }
-  }
-  checkLeapSecond(sc, { ...f, offsetSeconds: undefined }, leapSecond);
+  // The written offset, if any, is dropped: a local date-time has no UTC minute to check a leap second against.
+  f.offsetSeconds = undefined;
+  checkLeapSecond(sc, f, leapSecond);
   return f.dayNumber * MS_PER_DAY + f.msOfDay;
 }
 
@@ -233,8 +218,8 @@ export function parsePlainDate(text: string): number {
 
 /** @internal {@link parsePlainDate}, with the name of the parameter that held the text (for messages). */
 export function readPlainDate(input: unknown, name: string): number {
-  const text = requireString(name, input, 'an ISO 8601 date');
-  const sc: Scanner = new Scanner(text, name, 'an ISO 8601 date (YYYY-MM-DD, YYYY-Www-D or YYYY-DDD)');
+  const sc: Scanner = scannerOf(input, name, 'an ISO 8601 date (YYYY-MM-DD, YYYY-Www-D or YYYY-DDD)');
+  const text = sc.text;
   const start = sc.pos;
   const year = sc.year();
   sc.expectChar(45, 'a "-" after the year');
@@ -243,19 +228,11 @@ export function readPlainDate(input: unknown, name: string): number {
     sc.pos++;
     const weeks = isoWeeksInYearUnchecked(year);
     const week = sc.field2('week', 1, weeks, ` in week-year ${formatYear(year)}`);
-    if (sc.peek() !== 45) {
-      sc.fail(sc.done ? 'a week without a weekday is a week, not a date; add the weekday, e.g. -1 for Monday' : `expected "-" and the weekday after the week, found ${sc.here()}`);
-    }
-    sc.pos++;
-    const wdPos = sc.pos;
-    const weekday = sc.digits(1, 'the weekday');
-    if (weekday < 1 || weekday > 7) sc.fail(`weekday ${weekday} is out of range; expected 1 (Monday) to 7 (Sunday)`, wdPos, 'out-of-range');
+    sc.expectChar(45, '"-" and the weekday (1 for Monday to 7) after the week');
+    const weekday = sc.field(1, 'weekday', 1, 7, ' (Monday to Sunday)');
     dn = isoWeekOneMonday(year) + (week - 1) * 7 + weekday - 1;
   } else if (sc.countDigits() === 3) {
-    const pos = sc.pos;
-    const doy = sc.digits(3, 'the day of the year');
-    const max = isLeapYearUnchecked(year) ? 366 : 365;
-    if (doy < 1 || doy > max) sc.fail(`day of year ${text.slice(pos, pos + 3)} is out of range; ${formatYear(year)} has days 001 to ${max}`, pos, 'out-of-range');
+    const doy = sc.field(3, 'day of year', 1, isLeapYearUnchecked(year) ? 366 : 365, ` in ${formatYear(year)}`);
     dn = dayNumberFromYmdUnchecked(year, 1, 1) + doy - 1;
   } else {
     sc.pos = start;
