@@ -193,13 +193,16 @@ function tableCovering(e: Engine, values: Input, from: number, current: RangedTa
  * day of the zone's chunks (engine.ts: mean Gregorian years, the unit in which the engine compiles a zone) from
  * theirs to t's. The engine compiles those chunks in any case, so a first call over a year of instants compiles
  * that year's chunks and no more, and never scans the input for its range (on a first call that scan ran before V8
- * had optimized it, about a third of the call). Undefined past GROWN_CHUNKS chunks (the caller then scans), except
+ * had optimized it, about a third of the call). `around` chunks more on each side: a large input's first table
+ * takes the years on either side of its first instant, because a kernel stopped by a miss while V8 is still
+ * tiering it up left the next call slower (second calls of 6.9 ms instead of 3.9, over 1M instants; bench/zone.ts,
+ * first use). Undefined past GROWN_CHUNKS chunks (the caller then scans), except
  * for the last instant of the supported range, which no table holds (the caller asks the engine for it alone).
  */
-function grownTable(e: Engine, t: number, current: RangedTable | undefined): RangedTable | undefined {
+function grownTable(e: Engine, t: number, current: RangedTable | undefined, around: number): RangedTable | undefined {
   const day = Math.floor(t / MS_PER_DAY);
-  const k0 = Math.floor((Math.min(day, current?.d0 ?? day) * MS_PER_DAY) / CHUNK_MS);
-  const k1 = Math.floor((Math.max(day + 1, current ? current.d0 + current.days : 0) * MS_PER_DAY - 1) / CHUNK_MS);
+  const k0 = Math.floor((Math.min(day, current?.d0 ?? day) * MS_PER_DAY) / CHUNK_MS) - around;
+  const k1 = Math.floor((Math.max(day + 1, current ? current.d0 + current.days : 0) * MS_PER_DAY - 1) / CHUNK_MS) + around;
   if (k1 - k0 >= GROWN_CHUNKS) return t < MAX_EPOCH_MS ? undefined : current;
   // From the first day that starts in chunk k0 to the last that ends in chunk k1, within the supported range.
   const lo = Math.max(Math.ceil((k0 * CHUNK_MS) / MS_PER_DAY), MIN_EPOCH_MS / MS_PER_DAY);
@@ -344,7 +347,7 @@ export function fillFromDayTable<T extends Int32Array | Float64Array, C, A>(
       result[i++] = invalid;
       continue;
     }
-    const wider = grownTable(e, t, tab) ?? tableCovering(e, epochMs, i, base);
+    const wider = grownTable(e, t, tab, !tab && n - i >= 1 << 16 ? 1 : 0) ?? tableCovering(e, epochMs, i, base);
     if (wider) {
       const k = Math.floor(t / MS_PER_DAY) - wider.d0;
       tab = wider;
