@@ -158,21 +158,23 @@ function floorPass(instants: Float64Array, out: Int32Array): number {
   return out[0]!;
 }
 
-/** Times `pass` twice (ms), the first call in this fresh process and the second, into `result`. */
+/**
+ * Times the first three calls of `pass` (ms) in this fresh process into `result`. The third shows whether the second
+ * still paid for V8's tiering (a recompile of the kernel in flight while it runs).
+ */
 function timeFirstAndSecond(result: Record<string, number>, pass: () => unknown): void {
-  let t = performance.now();
-  pass();
-  result['firstBulkMs'] = performance.now() - t;
-  t = performance.now();
-  pass();
-  result['secondBulkMs'] = performance.now() - t;
+  for (const key of ['firstBulkMs', 'secondBulkMs', 'thirdBulkMs']) {
+    const t = performance.now();
+    pass();
+    result[key] = performance.now() - t;
+  }
 }
 
 /**
  * The child side of {@link firstAnswerFresh}, run by `bench/run.ts --fresh-child <mode>` in a process of its own:
  * with ICU already warm (one formatter made and used for another zone, as a process that has used Intl once),
- * times the first zoned answer of one mode and prints it as JSON. The bulk modes time the first and the second bulk
- * call over 1M instants of 2025 instead:
+ * times the first zoned answer of one mode and prints it as JSON. The bulk modes time the first three bulk calls
+ * over 1M instants of 2025 instead:
  * - `kalends` also times dayNumberFromEpochMsBulk, and how long its first call spent compiling the zone from Intl;
  * - `intl` also times the runtime's own cold start on the simplest loop ({@link floorPass}), and the first and a
  *   second write of a fresh 1M-element Int32Array (`fill`: the cost of the OS mapping its pages, which every first
@@ -220,7 +222,7 @@ export function firstAnswerChild(mode: string): void {
 /**
  * Time to the first zoned answer in fresh `node` processes (issue 17, section 3): kalends (zoneFromId and one
  * offset), temporal-polyfill (its first ZonedDateTime) and a bare Intl formatter (the runtime's own start), each
- * in 9 processes of its own, interleaved; and the first and second bulk call over 1M instants (kalends' day numbers
+ * in 9 processes of its own, interleaved; and the first three bulk calls over 1M instants (kalends' day numbers
  * and period keys, and the floor loop), into a fresh output and into one written before. Prints its own table (the
  * figures come from the children, not from this process).
  */
@@ -274,12 +276,14 @@ function measureFreshProcesses(): void {
   console.log(`   temporal-polyfill first ZonedDateTime                ${fmt(tp)}`);
   console.log(`   bare Intl.DateTimeFormat + formatToParts (runtime)   ${fmt(intl)}`);
   console.log(`   kalends beyond the bare formatter: ${(med(k) - med(intl)).toFixed(3)} ms (goal <= 1 ms); kalends / temporal-polyfill: ${(med(k) / med(tp)).toFixed(2)}x (goal <= 1x)`);
-  /** The first and second bulk call of a mode, and the median and range of their ratio across processes. */
+  /** The first three bulk calls of a mode, and the median (and range) of the first's ratio to the others. */
   const bulk = (mode: string): string => {
     const first = of(mode, 'firstBulkMs');
     const second = of(mode, 'secondBulkMs');
+    const third = of(mode, 'thirdBulkMs');
     const ratios = first.map((f, i) => f / second[i]!);
-    return `first call ${fmt(first)}; second: ${fmt(second)}; first / second ${med(ratios).toFixed(2)}x (${range(ratios, 2)})`;
+    const toThird = first.map((f, i) => f / third[i]!);
+    return `first call ${fmt(first)}; second: ${fmt(second)}; first / second ${med(ratios).toFixed(2)}x (${range(ratios, 2)}); third: ${fmt(third)}; first / third ${med(toThird).toFixed(2)}x`;
   };
   console.log(`   kalends dayNumberFromEpochMsBulk, 1M instants of 2025, fresh output: ${bulk('kalends')} (goal <= 3x)`);
   console.log(`   the runtime's own cold start, a plain floor loop (fixed offset) over the same instants: ${bulk('intl')}`);
