@@ -5,6 +5,8 @@ import { gzipSync } from 'node:zlib';
 import { Temporal } from 'temporal-polyfill';
 import { clearZoneCache, dayNumberFromEpochMsBulk, listZoneIds, offsetSecondsFromEpochMs, zoneFromId, zoneFromRules } from '../src/zone/index.js';
 import { IntlEngine } from '../src/zone/engine.js';
+import { engineOf } from '../src/zone/zone.js';
+import { defineUnit, ordinalFromEpochMsBulk } from '../src/period/index.js';
 import { probeFormatter } from '../src/zone/intl.js';
 import { pinnedZoneRules } from '../src/tzdata/index.js';
 import { type Benchmark, seededRandom } from './harness.js';
@@ -157,42 +159,62 @@ function floorPass(instants: Float64Array, out: Int32Array): number {
 }
 
 /**
+ * Times the first three calls of `pass` (ms) in this fresh process into `result`. The third shows whether the second
+ * still paid for V8's tiering (a recompile of the kernel in flight while it runs).
+ */
+function timeFirstAndSecond(result: Record<string, number>, pass: () => unknown): void {
+  for (const key of ['firstBulkMs', 'secondBulkMs', 'thirdBulkMs']) {
+    const t = performance.now();
+    pass();
+    result[key] = performance.now() - t;
+  }
+}
+
+/**
  * The child side of {@link firstAnswerFresh}, run by `bench/run.ts --fresh-child <mode>` in a process of its own:
  * with ICU already warm (one formatter made and used for another zone, as a process that has used Intl once),
- * times the first zoned answer of one mode and prints it as JSON. Mode `kalends` also times the first and the
- * second bulk call over 1M instants of 2025.
+ * times the first zoned answer of one mode and prints it as JSON. The bulk modes time the first three bulk calls
+ * over 1M instants of 2025 instead:
+ * - `kalends` also times dayNumberFromEpochMsBulk, and how long its first call spent compiling the zone from Intl;
+ * - `intl` also times the runtime's own cold start on the simplest loop ({@link floorPass}), and the first and a
+ *   second write of a fresh 1M-element Int32Array (`fill`: the cost of the OS mapping its pages, which every first
+ *   call into a fresh output pays);
+ * - `kalends-written` and `floor-written` time the same two passes into an output written once before (no page
+ *   mapped during the calls);
+ * - `period` times ordinalFromEpochMsBulk (fiscal quarters: period keys from instants).
  */
 export function firstAnswerChild(mode: string): void {
   new Intl.DateTimeFormat('en-US', { timeZone: 'Europe/Paris' }).format(0);
-  const t0 = performance.now();
-  let answer: number;
-  if (mode === 'kalends') answer = offsetSecondsFromEpochMs(zoneFromId(ZONE), FIRST_ANSWER_MS);
-  else if (mode === 'temporal') answer = Temporal.Instant.fromEpochMilliseconds(FIRST_ANSWER_MS).toZonedDateTimeISO(ZONE).offsetNanoseconds / 1e9;
-  else answer = new Intl.DateTimeFormat('en-US', { timeZone: ZONE, timeZoneName: 'longOffset' }).formatToParts(FIRST_ANSWER_MS).length;
-  const ms = performance.now() - t0;
-  const result: Record<string, number> = { ms, answer };
-  if (mode === 'intl') {
-    // The runtime's own cold start for a bulk pass: a plain floor loop (fixed offset) over the same 1M instants,
-    // first call (interpreted until V8's optimizing compiler, working beside it, is done) and second call.
-    const instants = instantsOf2025();
-    const out = new Int32Array(N);
-    let t = performance.now();
-    floorPass(instants, out);
-    result['firstBulkMs'] = performance.now() - t;
-    t = performance.now();
-    floorPass(instants, out);
-    result['secondBulkMs'] = performance.now() - t;
+  const result: Record<string, number> = {};
+  if (mode === 'kalends' || mode === 'temporal' || mode === 'intl') {
+    const t0 = performance.now();
+    if (mode === 'kalends') result['answer'] = offsetSecondsFromEpochMs(zoneFromId(ZONE), FIRST_ANSWER_MS);
+    else if (mode === 'temporal') result['answer'] = Temporal.Instant.fromEpochMilliseconds(FIRST_ANSWER_MS).toZonedDateTimeISO(ZONE).offsetNanoseconds / 1e9;
+    else result['answer'] = new Intl.DateTimeFormat('en-US', { timeZone: ZONE, timeZoneName: 'longOffset' }).formatToParts(FIRST_ANSWER_MS).length;
+    result['ms'] = performance.now() - t0;
   }
-  if (mode === 'kalends') {
-    const instants = instantsOf2025();
-    const out = new Int32Array(N);
+  const instants = mode === 'temporal' ? new Float64Array(0) : instantsOf2025();
+  const out = new Int32Array(instants.length);
+  if (mode.endsWith('-written')) out.fill(1);
+  if (mode === 'intl' || mode === 'floor-written') timeFirstAndSecond(result, () => floorPass(instants, out));
+  if (mode === 'kalends' || mode === 'kalends-written') {
     const z = zoneFromId(ZONE);
+    timeFirstAndSecond(result, () => dayNumberFromEpochMsBulk(z, instants, out));
+    result['compileMs'] = engineOf(z).compileMs;
+  }
+  if (mode === 'period') {
+    const unit = defineUnit({ kind: 'fiscal-quarter', start: { month: 10, day: 1 }, naming: 'end-year' });
+    const z = zoneFromId(ZONE);
+    timeFirstAndSecond(result, () => ordinalFromEpochMsBulk(unit, z, instants, out));
+  }
+  if (mode === 'intl') {
+    const fresh = new Int32Array(N);
     let t = performance.now();
-    dayNumberFromEpochMsBulk(z, instants, out);
-    result['firstBulkMs'] = performance.now() - t;
+    fresh.fill(1);
+    result['touchMs'] = performance.now() - t;
     t = performance.now();
-    dayNumberFromEpochMsBulk(z, instants, out);
-    result['secondBulkMs'] = performance.now() - t;
+    fresh.fill(2);
+    result['rewriteMs'] = performance.now() - t;
   }
   console.log(JSON.stringify(result));
 }
@@ -200,8 +222,9 @@ export function firstAnswerChild(mode: string): void {
 /**
  * Time to the first zoned answer in fresh `node` processes (issue 17, section 3): kalends (zoneFromId and one
  * offset), temporal-polyfill (its first ZonedDateTime) and a bare Intl formatter (the runtime's own start), each
- * in 9 processes of its own, interleaved; and kalends' first and second bulk call over 1M instants. Prints its own
- * table (the figures come from the children, not from this process).
+ * in 9 processes of its own, interleaved; and the first three bulk calls over 1M instants (kalends' day numbers
+ * and period keys, and the floor loop), into a fresh output and into one written before. Prints its own table (the
+ * figures come from the children, not from this process).
  */
 function firstAnswerFresh(): Benchmark {
   let measured = false;
@@ -230,8 +253,8 @@ function firstAnswerFresh(): Benchmark {
 
 function measureFreshProcesses(): void {
   const script = process.argv[1]!;
-  const modes = ['kalends', 'temporal', 'intl'] as const;
-  const runs: Record<string, Record<string, number>[]> = { kalends: [], temporal: [], intl: [] };
+  const modes = ['kalends', 'temporal', 'intl', 'kalends-written', 'floor-written', 'period'];
+  const runs: Record<string, Record<string, number>[]> = Object.fromEntries(modes.map((m) => [m, []]));
   for (let r = 0; r < 9; r++) {
     for (let m = 0; m < modes.length; m++) {
       const mode = modes[(r + m) % modes.length]!;
@@ -242,7 +265,8 @@ function measureFreshProcesses(): void {
     }
   }
   const med = (xs: number[]): number => [...xs].sort((a, b) => a - b)[xs.length >> 1]!;
-  const fmt = (xs: number[]): string => `${med(xs).toFixed(3)} ms (${Math.min(...xs).toFixed(3)}-${Math.max(...xs).toFixed(3)})`;
+  const range = (xs: number[], digits: number): string => `${Math.min(...xs).toFixed(digits)}-${Math.max(...xs).toFixed(digits)}`;
+  const fmt = (xs: number[]): string => `${med(xs).toFixed(3)} ms (${range(xs, 3)})`;
   const of = (mode: string, key: string): number[] => runs[mode]!.map((x) => x[key]!);
   const k = of('kalends', 'ms');
   const tp = of('temporal', 'ms');
@@ -252,14 +276,23 @@ function measureFreshProcesses(): void {
   console.log(`   temporal-polyfill first ZonedDateTime                ${fmt(tp)}`);
   console.log(`   bare Intl.DateTimeFormat + formatToParts (runtime)   ${fmt(intl)}`);
   console.log(`   kalends beyond the bare formatter: ${(med(k) - med(intl)).toFixed(3)} ms (goal <= 1 ms); kalends / temporal-polyfill: ${(med(k) / med(tp)).toFixed(2)}x (goal <= 1x)`);
-  const first = of('kalends', 'firstBulkMs');
-  const second = of('kalends', 'secondBulkMs');
-  const ratios = first.map((f, i) => f / second[i]!);
-  console.log(`   first bulk call, 1M instants of 2025: ${fmt(first)}; second: ${fmt(second)}; first / second ${med(ratios).toFixed(2)}x (${Math.min(...ratios).toFixed(2)}-${Math.max(...ratios).toFixed(2)}; goal <= 3x)`);
-  const f1 = of('intl', 'firstBulkMs');
-  const f2 = of('intl', 'secondBulkMs');
-  const fr = f1.map((f, i) => f / f2[i]!);
-  console.log(`   the runtime's own cold start: a plain floor loop over the same instants, first call ${fmt(f1)}; second: ${fmt(f2)}; first / second ${med(fr).toFixed(2)}x`);
+  /** The first three bulk calls of a mode, and the median (and range) of the first's ratio to the others. */
+  const bulk = (mode: string): string => {
+    const first = of(mode, 'firstBulkMs');
+    const second = of(mode, 'secondBulkMs');
+    const third = of(mode, 'thirdBulkMs');
+    const ratios = first.map((f, i) => f / second[i]!);
+    const toThird = first.map((f, i) => f / third[i]!);
+    return `first call ${fmt(first)}; second: ${fmt(second)}; first / second ${med(ratios).toFixed(2)}x (${range(ratios, 2)}); third: ${fmt(third)}; first / third ${med(toThird).toFixed(2)}x`;
+  };
+  console.log(`   kalends dayNumberFromEpochMsBulk, 1M instants of 2025, fresh output: ${bulk('kalends')} (goal <= 3x)`);
+  console.log(`   the runtime's own cold start, a plain floor loop (fixed offset) over the same instants: ${bulk('intl')}`);
+  const above = med(of('kalends', 'firstBulkMs')) - med(of('intl', 'firstBulkMs'));
+  console.log(`   kalends' first call above the floor's first call: ${above.toFixed(3)} ms (medians); compiling the zone from Intl within it: ${fmt(of('kalends', 'compileMs'))}`);
+  console.log(`   a fresh 1M-element Int32Array, first write (the OS maps its pages): ${fmt(of('intl', 'touchMs'))}; second write: ${fmt(of('intl', 'rewriteMs'))}`);
+  console.log(`   into an output written once before, kalends: ${bulk('kalends-written')}`);
+  console.log(`   into an output written once before, floor loop: ${bulk('floor-written')}`);
+  console.log(`   kalends ordinalFromEpochMsBulk (fiscal quarters, period keys), fresh output: ${bulk('period')}`);
 }
 
 /** Prints the memory of compiled tables and the size of the pinned module (not ratios: figures for the docs). */

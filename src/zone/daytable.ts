@@ -4,8 +4,9 @@
  * Method: a per-UTC-day lookup table (the day's offset in ms, or NaN for the rare day with a transition inside,
  * where the kernel reads the transition's instant and the offsets on both sides) turns each element into two
  * multiplications, two floors and one load, with no division. The table is built when an instant first falls
- * outside the zone's current table: the rest of the input is scanned once for its range, and the table is rebuilt
- * to cover it (joined with the old range, plus a year's margin on each side, within the supported range). The last
+ * outside the zone's current table: first grown, without reading the input, to the whole years of the zone that
+ * hold the instant and the old table (up to a few years); past that, the rest of the input is scanned once for its
+ * range and the table is rebuilt to cover it (joined with the old range, within the supported range). The last
  * table of each zone is kept, so later calls over similar years neither scan nor build. When the input's range is
  * much wider than the input is long, the loop asks the compiled chunks for each element instead. Invalid instants
  * (NaN, infinities, out of range) fail the table's range test and are handled outside the hot loop; in 'throw'
@@ -20,7 +21,7 @@
  */
 import { MAX_EPOCH_MS, MIN_EPOCH_MS, MS_PER_DAY } from '../bounds.js';
 import { KalendsRangeError, describeValue } from '../errors.js';
-import type { Engine } from './engine.js';
+import { CHUNK_MS, type Engine } from './engine.js';
 
 /** @internal A bulk input: a typed array or an array of numbers, already checked. */
 export type Input = ArrayLike<number>;
@@ -145,6 +146,8 @@ const MAX_TABLE_DAYS = 1 << 20;
  * that reaches further grows the table (merged with the current one), reusing the years already compiled.
  */
 const TABLE_MARGIN_DAYS = 2;
+/** Most chunks (years) a table grows to before the driver scans the rest of the input for its range instead. */
+const GROWN_CHUNKS = 8;
 
 /** A day table with the range it covers: UTC days [d0, d0 + days). */
 export interface RangedTable extends DayTable {
@@ -155,10 +158,20 @@ export interface RangedTable extends DayTable {
 /** The last day table built for each engine; a later call whose instants fall inside it reuses it. */
 const tables = new WeakMap<Engine, RangedTable>();
 
+/** The current table when it holds UTC days [lo, hi), else a table over them, kept as the engine's last table. */
+function tableOver(e: Engine, lo: number, hi: number, current: RangedTable | undefined): RangedTable | undefined {
+  if (current && current.d0 <= lo && current.d0 + current.days >= hi) return current;
+  const table = dayTable(e, lo, hi - lo);
+  if (!table) return undefined;
+  const ranged: RangedTable = { ...table, d0: lo, days: hi - lo };
+  tables.set(e, ranged);
+  return ranged;
+}
+
 /**
  * A table covering the valid instants of values[from..n), joined with the engine's current table when the union is
  * not too wide; undefined when even the input's own range is too wide for a table (the caller then asks the engine
- * per element). The input is scanned once here; a call that needs no new table scans nothing.
+ * per element). The input is scanned once here.
  */
 function tableCovering(e: Engine, values: Input, from: number, current: RangedTable | undefined): RangedTable | undefined {
   const { min, max } = validRange(values, from);
@@ -168,16 +181,32 @@ function tableCovering(e: Engine, values: Input, from: number, current: RangedTa
   let hi = Math.min(Math.floor(max / MS_PER_DAY) + TABLE_MARGIN_DAYS + 1, MAX_EPOCH_MS / MS_PER_DAY);
   const limit = Math.max(4096, 4 * (values.length - from));
   if (hi - lo > MAX_TABLE_DAYS || hi - lo > limit + 2 * TABLE_MARGIN_DAYS) return undefined;
-  if (current && current.d0 <= lo && current.d0 + current.days >= hi) return current;
   if (current && Math.min(lo, current.d0) + MAX_TABLE_DAYS >= Math.max(hi, current.d0 + current.days)) {
     lo = Math.min(lo, current.d0);
     hi = Math.max(hi, current.d0 + current.days);
   }
-  const table = dayTable(e, lo, hi - lo);
-  if (!table) return undefined;
-  const ranged: RangedTable = { ...table, d0: lo, days: hi - lo };
-  tables.set(e, ranged);
-  return ranged;
+  return tableOver(e, lo, hi, current);
+}
+
+/**
+ * A table grown, without reading the input, to cover `t` (a valid instant) and the current table: every whole UTC
+ * day of the zone's chunks (engine.ts: mean Gregorian years, the unit in which the engine compiles a zone) from
+ * theirs to t's. The engine compiles those chunks in any case, so a first call over a year of instants compiles
+ * that year's chunks and no more, and never scans the input for its range (on a first call that scan ran before V8
+ * had optimized it, about a third of the call). `around` chunks more on each side: a large input's first table
+ * takes the years on either side of its first instant, because a kernel stopped by a miss while V8 is still
+ * tiering it up left the next call slower (second calls of 6.9 ms instead of 3.9, over 1M instants; bench/zone.ts,
+ * first use). Undefined past GROWN_CHUNKS chunks (the caller then scans), except
+ * for the last instant of the supported range, which no table holds (the caller asks the engine for it alone).
+ */
+function grownTable(e: Engine, t: number, current: RangedTable | undefined, around: number): RangedTable | undefined {
+  const day = Math.floor(t / MS_PER_DAY);
+  const k0 = Math.floor((Math.min(day, current?.d0 ?? day) * MS_PER_DAY) / CHUNK_MS) - around;
+  const k1 = Math.floor((Math.max(day + 1, current ? current.d0 + current.days : 0) * MS_PER_DAY - 1) / CHUNK_MS) + around;
+  if (k1 - k0 >= GROWN_CHUNKS) return t < MAX_EPOCH_MS ? undefined : current;
+  // From the first day that starts in chunk k0 to the last that ends in chunk k1, within the supported range.
+  const lo = Math.max(Math.ceil((k0 * CHUNK_MS) / MS_PER_DAY), MIN_EPOCH_MS / MS_PER_DAY);
+  return tableOver(e, lo, Math.min(Math.floor(((k1 + 1) * CHUNK_MS) / MS_PER_DAY), MAX_EPOCH_MS / MS_PER_DAY), current);
 }
 
 /**
@@ -285,7 +314,8 @@ export function fillFromDayTable<T extends Int32Array | Float64Array, C, A>(
   invalid: number,
 ): T {
   const n = epochMs.length;
-  let tab = tables.get(e);
+  const base = tables.get(e);
+  let tab = base;
   let i = 0;
   while (i < n) {
     if (tab) {
@@ -317,7 +347,7 @@ export function fillFromDayTable<T extends Int32Array | Float64Array, C, A>(
       result[i++] = invalid;
       continue;
     }
-    const wider = tableCovering(e, epochMs, i, tab);
+    const wider = grownTable(e, t, tab, !tab && n - i >= 1 << 16 ? 1 : 0) ?? tableCovering(e, epochMs, i, base);
     if (wider) {
       const k = Math.floor(t / MS_PER_DAY) - wider.d0;
       tab = wider;
