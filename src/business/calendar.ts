@@ -435,12 +435,7 @@ export function nthBusinessDayOfRange(calendar: CalendarInput, start: number, en
       { code: 'no-business-day', received: n },
     );
   }
-  if (n > 0) {
-    const first = e.shift(start, 0); // the first business day on or after start
-    return n === 1 ? first : e.shift(first, n - 1);
-  }
-  const last = e.isBusinessDay(end - 1) ? end - 1 : e.shift(end - 1, -1);
-  return n === -1 ? last : e.shift(last, n + 1);
+  return nthInRange(e, start, end, n); // the range holds it: never NaN here
 }
 
 /** What {@link nthBusinessDayOfPeriod} needs of a period: its unit's first-day mapping and its ordinal. */
